@@ -1,0 +1,32 @@
+import type { Knex } from 'knex';
+import type { Role } from '@shared/schemas/auth';
+import { buildClub, buildUser } from '../tests/factories';
+
+// Demo data for an invented club; every name and address here is made up.
+export const DEMO_PASSWORD = 'demo-garden-2027';
+
+export const demoPeople: Array<{ name: string; email: string; roles: Role[]; club: 'mossgate' | 'cinder' }> = [
+  { name: 'Maren Okafor', email: 'maren@example.org', roles: ['coordinator'], club: 'mossgate' },
+  { name: 'Teodor Lind', email: 'teodor@example.org', roles: ['plot_holder'], club: 'mossgate' },
+  { name: 'Priya Raman', email: 'priya@example.org', roles: ['plot_holder', 'volunteer'], club: 'mossgate' },
+  { name: 'Jonah Whitcombe', email: 'jonah@example.org', roles: ['plot_holder'], club: 'mossgate' },
+  { name: 'Aiko Brandt', email: 'aiko@example.org', roles: ['plot_holder'], club: 'mossgate' },
+  { name: 'Samir Haddad', email: 'samir@example.org', roles: ['plot_holder'], club: 'mossgate' },
+  { name: 'Lucía Ferreira', email: 'lucia@example.org', roles: ['volunteer'], club: 'mossgate' },
+  { name: 'Ben Achterberg', email: 'ben@example.org', roles: ['volunteer'], club: 'mossgate' },
+  { name: 'Odile Nkem', email: 'odile@example.org', roles: ['coordinator'], club: 'cinder' },
+];
+
+export async function seed(knex: Knex): Promise<void> {
+  await knex.raw('truncate table memberships, invites, password_resets, users, clubs restart identity cascade');
+  const mossgate = await buildClub(knex, { name: 'Mossgate Community Garden Club', slug: 'mossgate' });
+  const cinder = await buildClub(knex, { name: 'Cinder Lane Growers', slug: 'cinder-lane' });
+  const clubIds = { mossgate: mossgate.id, cinder: cinder.id };
+  for (const p of demoPeople) {
+    const user = await buildUser(knex, { name: p.name, email: p.email, password: DEMO_PASSWORD });
+    await knex('memberships').insert(p.roles.map((role) => ({ club_id: clubIds[p.club], user_id: user.id, role })));
+  }
+  // The coordinator also volunteers at the second club, so the demo shows the club switcher.
+  const maren = await knex('users').where({ email: 'maren@example.org' }).first('id');
+  await knex('memberships').insert({ club_id: cinder.id, user_id: maren.id, role: 'volunteer' });
+}

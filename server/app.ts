@@ -1,0 +1,102 @@
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import connectPgSimple from 'connect-pg-simple';
+import express from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import pg from 'pg';
+import { pino } from 'pino';
+import { pinoHttp } from 'pino-http';
+import type { Deps } from './deps';
+import { requireCsrf } from './middleware/csrf';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
+import { membersRouter } from './routes/members';
+import { passwordResetsRouter } from './routes/password-resets';
+import { sessionRouter } from './routes/session';
+
+export interface BuiltApp {
+  app: express.Express;
+  /** Closes what the app opened itself (the session store's pool). */
+  close(): Promise<void>;
+}
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApp(deps: Deps): BuiltApp {
+  const { config } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  if (config.trustProxy) app.set('trust proxy', 1);
+
+  const logger = pino({ level: config.logLevel });
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const incoming = req.headers['x-request-id'];
+        const id = typeof incoming === 'string' && /^[\w-]{1,64}$/.test(incoming) ? incoming : crypto.randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      // Keep cookies and tokens out of the logs.
+      serializers: {
+        req: (req) => ({ id: req.id, method: req.method, url: String(req.url).replace(/token=[^&]+/, 'token=…') }),
+      },
+    }),
+  );
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'upgrade-insecure-requests': config.cookieSecure ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.cookieSecure,
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+
+  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
+  const PgStore = connectPgSimple(session);
+  app.use(
+    session({
+      name: 'tillwell.sid',
+      store: new PgStore({ pool: sessionPool, tableName: 'session', pruneSessionInterval: 15 * 60 }),
+      secret: config.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.cookieSecure,
+        maxAge: 14 * 24 * 60 * 60 * 1000,
+      },
+    }),
+  );
+
+  app.use('/api', requireCsrf);
+  app.use('/api/session', sessionRouter(deps));
+  app.use('/api/password-resets', passwordResetsRouter(deps));
+  app.use('/api/invites', inviteLinksRouter(deps));
+  app.use('/api/clubs/:clubId/invites', clubInvitesRouter(deps));
+  app.use('/api/clubs/:clubId/members', membersRouter(deps));
+  app.use('/api', apiNotFound);
+
+  const indexHtml = path.join(config.staticDir, 'index.html');
+  if (fs.existsSync(indexHtml)) {
+    app.use(express.static(config.staticDir, { index: false, maxAge: '1h' }));
+    app.get('/*splat', (_req, res) => res.sendFile(indexHtml));
+  }
+
+  app.use(errorHandler);
+
+  return {
+    app,
+    async close() {
+      await sessionPool.end();
+    },
+  };
+}

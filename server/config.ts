@@ -1,0 +1,83 @@
+import path from 'node:path';
+import { z } from 'zod';
+
+const root = path.resolve(import.meta.dirname, '..');
+
+const boolish = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+
+const EnvSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+    HOST: z.string().default('127.0.0.1'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    DATABASE_URL: z.url({ message: 'must be a postgres:// URL' }).startsWith('postgres'),
+    PUBLIC_URL: z.url().optional(),
+    SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
+    SMTP_URL: z.string().startsWith('smtp', 'must be an smtp:// or smtps:// URL').default('smtp://127.0.0.1:2525'),
+    MAIL_FROM: z.string().default('Tillwell <no-reply@tillwell.example.org>'),
+    BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(12),
+    AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+    TRUST_PROXY: boolish.default(false),
+    LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+    STATIC_DIR: z.string().default(path.join(root, 'dist')),
+    UPLOAD_DIR: z.string().default(path.join(root, '.data', 'uploads')),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
+      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required in production' });
+    }
+    if (env.NODE_ENV === 'production' && !env.PUBLIC_URL) {
+      ctx.addIssue({ code: 'custom', path: ['PUBLIC_URL'], message: 'is required in production (links in e-mails)' });
+    }
+  });
+
+export type Env = z.infer<typeof EnvSchema>;
+
+export interface Config {
+  env: Env['NODE_ENV'];
+  host: string;
+  port: number;
+  databaseUrl: string;
+  publicUrl: string;
+  sessionSecret: string;
+  cookieSecure: boolean;
+  smtpUrl: string;
+  mailFrom: string;
+  bcryptCost: number;
+  authRateLimit: number;
+  trustProxy: boolean;
+  logLevel: Env['LOG_LEVEL'];
+  staticDir: string;
+  uploadDir: string;
+}
+
+/** Reads and validates the environment once, failing with every bad variable listed. */
+export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = EnvSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.') || '(env)'}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  const publicUrl = (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/$/, '');
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    databaseUrl: e.DATABASE_URL,
+    publicUrl,
+    // A fixed secret is tolerated only outside production, where the data is demo data.
+    sessionSecret: e.SESSION_SECRET ?? 'development-only-secret-not-for-production-use',
+    cookieSecure: publicUrl.startsWith('https://'),
+    smtpUrl: e.SMTP_URL,
+    mailFrom: e.MAIL_FROM,
+    bcryptCost: e.BCRYPT_COST,
+    authRateLimit: e.AUTH_RATE_LIMIT,
+    trustProxy: e.TRUST_PROXY,
+    logLevel: e.LOG_LEVEL,
+    staticDir: e.STATIC_DIR,
+    uploadDir: e.UPLOAD_DIR,
+  };
+}

@@ -1,0 +1,10 @@
+import type { Knex } from 'knex';
+import type { Config } from './config';
+import type { Mailer } from './mail/mailer';
+
+/** What every router and job needs: the database, the mailer and the configuration. */
+export interface Deps {
+  db: Knex;
+  mailer: Mailer;
+  config: Config;
+}

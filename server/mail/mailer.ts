@@ -1,0 +1,34 @@
+import nodemailer from 'nodemailer';
+
+export interface OutgoingMail {
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+}
+
+export interface Mailer {
+  send(mail: OutgoingMail): Promise<void>;
+  close(): void;
+}
+
+/** Builds the SMTP mailer; smtp:// URLs to loopback (the fake inbox) skip STARTTLS. */
+export function createMailer(smtpUrl: string, from: string): Mailer {
+  const url = new URL(smtpUrl);
+  const local = url.hostname === '127.0.0.1' || url.hostname === 'localhost';
+  const transport = nodemailer.createTransport({
+    host: url.hostname,
+    port: Number(url.port || (url.protocol === 'smtps:' ? 465 : 587)),
+    secure: url.protocol === 'smtps:',
+    ignoreTLS: local && url.protocol === 'smtp:',
+    auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
+  });
+  return {
+    async send(mail) {
+      await transport.sendMail({ from, ...mail });
+    },
+    close() {
+      transport.close();
+    },
+  };
+}

@@ -1,0 +1,70 @@
+import type { OutgoingMail } from './mailer';
+
+const escape = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+interface Layout {
+  to: string;
+  subject: string;
+  greeting: string;
+  paragraphs: string[];
+  action?: { label: string; url: string };
+  why: string;
+}
+
+/** Renders one e-mail as plain text and simple HTML from the same parts, with a footer saying why it was sent. */
+export function renderMail(m: Layout): OutgoingMail {
+  const text = [
+    m.greeting,
+    '',
+    ...m.paragraphs.flatMap((p) => [p, '']),
+    ...(m.action ? [`${m.action.label}: ${m.action.url}`, ''] : []),
+    '-- ',
+    `Tillwell. ${m.why}`,
+  ].join('\n');
+  const html = `<!doctype html><html><body style="margin:0;background:#faf7f0;font-family:'Work Sans',Arial,sans-serif;color:#3d2e26">
+<div style="max-width:560px;margin:0 auto;padding:24px">
+<p style="font-size:18px;font-weight:600;color:#2f6b3b;margin:0 0 16px">Tillwell</p>
+<p>${escape(m.greeting)}</p>
+${m.paragraphs.map((p) => `<p style="line-height:1.5">${escape(p)}</p>`).join('\n')}
+${
+  m.action
+    ? `<p style="margin:24px 0"><a href="${escape(m.action.url)}" style="background:#2f6b3b;color:#ffffff;padding:12px 20px;border-radius:8px;text-decoration:none;font-weight:600">${escape(m.action.label)}</a></p>
+<p style="font-size:14px;color:#6f695f">Or open this address: <a href="${escape(m.action.url)}" style="color:#2e6b8c">${escape(m.action.url)}</a></p>`
+    : ''
+}
+<hr style="border:none;border-top:1px solid #e4dccb;margin:24px 0">
+<p style="font-size:13px;color:#6f695f">${escape(m.why)}</p>
+</div></body></html>`;
+  return { to: m.to, subject: m.subject, text, html };
+}
+
+/** The e-mail that invites someone to a club. */
+export function inviteMail(p: { to: string; name: string; clubName: string; roles: string[]; url: string; expiresAt: Date }) {
+  return renderMail({
+    to: p.to,
+    subject: `You're invited to ${p.clubName} on Tillwell`,
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `The coordinator of ${p.clubName} has invited you to join as ${p.roles.join(', ')}.`,
+      `Follow the link to choose your password. The link works once and expires on ${p.expiresAt.toUTCString()}.`,
+    ],
+    action: { label: 'Accept the invitation', url: p.url },
+    why: `You got this because a coordinator of ${p.clubName} entered your address. If you did not expect it, ignore it.`,
+  });
+}
+
+/** The e-mail with a password reset link. */
+export function passwordResetMail(p: { to: string; name: string; url: string; expiresAt: Date }) {
+  return renderMail({
+    to: p.to,
+    subject: 'Reset your Tillwell password',
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      'Someone asked to reset the password of your Tillwell account.',
+      `The link works once and expires on ${p.expiresAt.toUTCString()}. If it was not you, ignore this e-mail: your password stays as it is.`,
+    ],
+    action: { label: 'Choose a new password', url: p.url },
+    why: 'You got this because a password reset was asked for this address on Tillwell.',
+  });
+}

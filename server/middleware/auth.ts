@@ -1,0 +1,34 @@
+import type { RequestHandler } from 'express';
+import type { Role } from '@shared/schemas/auth';
+import { AppError } from '../errors';
+import type { Db } from '../db/knex';
+import { rolesInClub } from '../services/memberships';
+
+/** Refuses requests from people who are not signed in. */
+export const requireUser: RequestHandler = (req, _res, next) => {
+  if (!req.session.userId) return next(new AppError('unauthenticated', 'Please sign in.'));
+  next();
+};
+
+/**
+ * Lets the request through only when the signed-in person holds one of the roles in the
+ * club named by the :clubId route parameter; the roles found are left on req.clubRoles.
+ */
+export function requireClubRole(db: Db, ...allowed: Role[]): RequestHandler {
+  return async (req, _res, next) => {
+    const userId = req.session.userId;
+    if (!userId) return next(new AppError('unauthenticated', 'Please sign in.'));
+    const clubId = Number(req.params.clubId);
+    if (!Number.isInteger(clubId) || clubId <= 0) {
+      return next(new AppError('validation_failed', 'Invalid club.', { clubId: 'Must be a positive whole number' }));
+    }
+    const roles = await rolesInClub(db, clubId, userId);
+    if (roles.length === 0) return next(new AppError('forbidden', 'You are not a member of this club.'));
+    if (allowed.length > 0 && !roles.some((r) => allowed.includes(r))) {
+      return next(new AppError('forbidden', 'Your role in this club does not allow that.'));
+    }
+    req.clubId = clubId;
+    req.clubRoles = roles;
+    next();
+  };
+}

@@ -1,0 +1,56 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { InviteAcceptBodySchema, InviteCreateBodySchema, type SessionInfo } from '@shared/schemas/auth';
+import type { Deps } from '../deps';
+import { parseInput } from '../errors';
+import { requireClubRole } from '../middleware/auth';
+import { csrfToken } from '../middleware/csrf';
+import { authRateLimit } from '../middleware/rate-limit';
+import { signIn } from '../middleware/session';
+import { loadSessionUser } from '../services/auth';
+import { acceptInvite, createInvite, listPendingInvites, previewInvite } from '../services/invites';
+
+const PreviewQuerySchema = z.object({ token: z.string().min(20).max(200) });
+
+/** A club's invitations (coordinators), mounted at /api/clubs/:clubId/invites. */
+export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireClubRole(db, 'coordinator'));
+
+  router.get('/', async (req, res) => {
+    res.json(await listPendingInvites(db, req.clubId!));
+  });
+
+  router.post('/', async (req, res) => {
+    const body = parseInput(InviteCreateBodySchema, req.body);
+    const invite = await createInvite(db, mailer, {
+      clubId: req.clubId!,
+      invitedBy: req.session.userId!,
+      body,
+      publicUrl: config.publicUrl,
+    });
+    res.status(201).json(invite);
+  });
+
+  return router;
+}
+
+/** Following an invitation link (public), mounted at /api/invites. */
+export function inviteLinksRouter({ db, config }: Deps): Router {
+  const router = Router();
+
+  router.get('/preview', async (req, res) => {
+    const { token } = parseInput(PreviewQuerySchema, req.query);
+    res.json(await previewInvite(db, token));
+  });
+
+  router.post('/accept', authRateLimit(config.authRateLimit), async (req, res) => {
+    const input = parseInput(InviteAcceptBodySchema, req.body);
+    const userId = await acceptInvite(db, { ...input, bcryptCost: config.bcryptCost });
+    await signIn(req, userId);
+    const body: SessionInfo = { user: await loadSessionUser(db, userId), csrfToken: csrfToken(req) };
+    res.json(body);
+  });
+
+  return router;
+}

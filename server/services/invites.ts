@@ -1,0 +1,154 @@
+import type { Knex } from 'knex';
+import bcrypt from 'bcryptjs';
+import { roleLabels, type Invite, type InviteCreateBody, type InvitePreview, type Role } from '@shared/schemas/auth';
+import { AppError, notFound } from '../errors';
+import type { Mailer } from '../mail/mailer';
+import { inviteMail } from '../mail/templates';
+import { hashPassword } from './auth';
+import { grantRoles, rolesInClub } from './memberships';
+import { hashToken, newToken } from './tokens';
+
+const INVITE_TTL_MS = 14 * 24 * 60 * 60 * 1000;
+
+interface InviteRow {
+  id: number;
+  club_id: number;
+  email: string;
+  name: string;
+  roles: Role[];
+  expires_at: Date;
+  accepted_at: Date | null;
+  created_at: Date;
+}
+
+function toInvite(r: InviteRow): Invite {
+  return {
+    id: r.id,
+    clubId: r.club_id,
+    email: r.email,
+    name: r.name,
+    roles: r.roles,
+    expiresAt: r.expires_at.toISOString(),
+    acceptedAt: r.accepted_at ? r.accepted_at.toISOString() : null,
+    createdAt: r.created_at.toISOString(),
+  };
+}
+
+/** Records an invitation and e-mails its single-use link. */
+export async function createInvite(
+  db: Knex,
+  mailer: Mailer,
+  opts: { clubId: number; invitedBy: number; body: InviteCreateBody; publicUrl: string; now?: Date },
+): Promise<Invite> {
+  const { clubId, body } = opts;
+  const club = await db('clubs').where({ id: clubId }).first('name');
+  if (!club) throw notFound('The club');
+  const existing = await db('users').whereRaw('lower(email) = lower(?)', [body.email]).first('id');
+  if (existing) {
+    const held = await rolesInClub(db, clubId, existing.id);
+    if (body.roles.every((r) => held.includes(r))) {
+      throw new AppError('conflict', 'That person already holds those roles in this club.', {
+        email: 'Already a member with these roles',
+      });
+    }
+  }
+  const now = opts.now ?? new Date();
+  const { token, hash } = newToken();
+  const expiresAt = new Date(now.getTime() + INVITE_TTL_MS);
+  const [row] = await db('invites')
+    .insert({
+      club_id: clubId,
+      email: body.email,
+      name: body.name,
+      roles: body.roles,
+      token_hash: hash,
+      expires_at: expiresAt,
+      invited_by_user_id: opts.invitedBy,
+    })
+    .returning('*');
+  const url = `${opts.publicUrl}/invite?token=${encodeURIComponent(token)}`;
+  await mailer.send(
+    inviteMail({
+      to: body.email,
+      name: body.name,
+      clubName: club.name,
+      roles: body.roles.map((r) => roleLabels[r]),
+      url,
+      expiresAt,
+    }),
+  );
+  return toInvite(row);
+}
+
+/** The club's invitations that are neither accepted nor expired, newest first. */
+export async function listPendingInvites(db: Knex, clubId: number, now = new Date()) {
+  const rows: InviteRow[] = await db('invites')
+    .where({ club_id: clubId })
+    .whereNull('accepted_at')
+    .where('expires_at', '>', now)
+    .orderBy('created_at', 'desc');
+  return { items: rows.map(toInvite), page: 1, total: rows.length };
+}
+
+async function liveInvite(db: Knex | Knex.Transaction, token: string, now: Date, lock = false) {
+  const q = db('invites as i')
+    .join('clubs as c', 'c.id', 'i.club_id')
+    .where('i.token_hash', hashToken(token))
+    .first('i.*', 'c.name as club_name');
+  if (lock) q.forUpdate();
+  const row = await q;
+  if (!row) throw notFound('That invitation');
+  if (row.accepted_at) throw new AppError('gone', 'This invitation has already been used.');
+  if (row.expires_at <= now) throw new AppError('gone', 'This invitation has expired. Ask the coordinator for a new one.');
+  return row as InviteRow & { club_name: string };
+}
+
+/** What the accept page shows: who is invited, to which club, as what. */
+export async function previewInvite(db: Knex, token: string, now = new Date()): Promise<InvitePreview> {
+  const row = await liveInvite(db, token, now);
+  const user = await db('users').whereRaw('lower(email) = lower(?)', [row.email]).first('password_hash');
+  return {
+    email: row.email,
+    name: row.name,
+    clubName: row.club_name,
+    roles: row.roles,
+    hasAccount: Boolean(user?.password_hash),
+  };
+}
+
+/**
+ * Accepts an invitation once: creates the account (or checks the existing account's
+ * password), grants the roles, and returns the user id to sign in.
+ */
+export async function acceptInvite(
+  db: Knex,
+  opts: { token: string; name: string; password: string; bcryptCost: number; now?: Date },
+): Promise<number> {
+  const now = opts.now ?? new Date();
+  const newHash = await hashPassword(opts.password, opts.bcryptCost);
+  return db.transaction(async (trx) => {
+    const invite = await liveInvite(trx, opts.token, now, true);
+    const user = await trx('users').whereRaw('lower(email) = lower(?)', [invite.email]).first('id', 'password_hash');
+    let userId: number;
+    if (user?.password_hash) {
+      // An existing account proves itself with its own password; the invite never changes it.
+      if (!(await bcrypt.compare(opts.password, user.password_hash))) {
+        throw new AppError('validation_failed', 'That is not the password of the existing account.', {
+          password: 'Enter the password you already use for Tillwell',
+        });
+      }
+      userId = user.id;
+    } else if (user) {
+      await trx('users').where({ id: user.id }).update({ name: opts.name, password_hash: newHash, updated_at: trx.fn.now() });
+      userId = user.id;
+    } else {
+      const [created] = await trx('users')
+        .insert({ email: invite.email, name: opts.name, password_hash: newHash })
+        .returning('id');
+      userId = created.id;
+    }
+    await grantRoles(trx, invite.club_id, userId, invite.roles);
+    await trx('invites').where({ id: invite.id }).update({ accepted_at: now, accepted_by_user_id: userId });
+    return userId;
+  });
+}

@@ -1,0 +1,49 @@
+import type { Knex } from 'knex';
+import { AppError } from '../errors';
+import type { Mailer } from '../mail/mailer';
+import { passwordResetMail } from '../mail/templates';
+import { hashPassword } from './auth';
+import { hashToken, newToken } from './tokens';
+
+const RESET_TTL_MS = 60 * 60 * 1000;
+
+/** Sends a reset link when the address has an account; says nothing either way. */
+export async function requestPasswordReset(
+  db: Knex,
+  mailer: Mailer,
+  opts: { email: string; publicUrl: string; now?: Date },
+): Promise<void> {
+  const user = await db('users').whereRaw('lower(email) = lower(?)', [opts.email]).first('id', 'name', 'email');
+  if (!user) return;
+  const now = opts.now ?? new Date();
+  const { token, hash } = newToken();
+  const expiresAt = new Date(now.getTime() + RESET_TTL_MS);
+  await db('password_resets').insert({ user_id: user.id, token_hash: hash, expires_at: expiresAt });
+  const url = `${opts.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
+  await mailer.send(passwordResetMail({ to: user.email, name: user.name, url, expiresAt }));
+}
+
+/** Sets a new password from a reset link; the link works once and only before it expires. */
+export async function completePasswordReset(
+  db: Knex,
+  opts: { token: string; password: string; bcryptCost: number; now?: Date },
+): Promise<number> {
+  const passwordHash = await hashPassword(opts.password, opts.bcryptCost);
+  return db.transaction(async (trx) => {
+    const used = await trx('password_resets')
+      .where({ token_hash: hashToken(opts.token) })
+      .whereNull('used_at')
+      .where('expires_at', '>', opts.now ?? new Date())
+      .update({ used_at: trx.fn.now() })
+      .returning('user_id');
+    if (used.length === 0) {
+      throw new AppError('gone', 'This reset link has been used or has expired. Ask for a new one.');
+    }
+    const userId = used[0].user_id as number;
+    await trx('users').where({ id: userId }).update({ password_hash: passwordHash, updated_at: trx.fn.now() });
+    // Any other outstanding links for this person stop working too.
+    await trx('password_resets').where({ user_id: userId }).whereNull('used_at').update({ used_at: trx.fn.now() });
+    await trx('session').whereRaw(`(sess->>'userId')::int = ?`, [userId]).delete();
+    return userId;
+  });
+}

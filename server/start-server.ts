@@ -1,0 +1,35 @@
+import type { Server } from 'node:http';
+import type { Config } from './config';
+import { createDb } from './db/knex';
+import { createApp } from './app';
+import { createMailer } from './mail/mailer';
+
+export interface RunningServer {
+  url: string;
+  stop(): Promise<void>;
+}
+
+/** Migrates the database, then serves the API and the built client on config.host:port. */
+export async function startServer(config: Config): Promise<RunningServer> {
+  const db = createDb(config.databaseUrl);
+  await db.migrate.latest();
+  const mailer = createMailer(config.smtpUrl, config.mailFrom);
+  const built = createApp({ db, mailer, config });
+  const server: Server = await new Promise((resolve, reject) => {
+    const s = built.app.listen(config.port, config.host, () => resolve(s));
+    s.once('error', reject);
+  });
+  const addr = server.address();
+  const port = typeof addr === 'object' && addr ? addr.port : config.port;
+  return {
+    url: `http://${config.host}:${port}`,
+    async stop() {
+      const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections();
+      await closed;
+      await built.close();
+      mailer.close();
+      await db.destroy();
+    },
+  };
+}

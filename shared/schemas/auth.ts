@@ -1,0 +1,95 @@
+import { z } from 'zod';
+import { EmailSchema, PasswordSchema } from './common';
+
+export const roles = ['coordinator', 'plot_holder', 'volunteer'] as const;
+export const RoleSchema = z.enum(roles);
+export type Role = z.infer<typeof RoleSchema>;
+
+export const roleLabels: Record<Role, string> = {
+  coordinator: 'Coordinator',
+  plot_holder: 'Plot holder',
+  volunteer: 'Volunteer',
+};
+
+export const SignInBodySchema = z.strictObject({
+  email: EmailSchema,
+  password: z.string().min(1, 'Enter your password').max(200),
+});
+export type SignInBody = z.infer<typeof SignInBodySchema>;
+
+export const ClubMembershipSchema = z.object({
+  clubId: z.number().int(),
+  clubName: z.string(),
+  clubSlug: z.string(),
+  roles: z.array(RoleSchema),
+});
+export type ClubMembership = z.infer<typeof ClubMembershipSchema>;
+
+export const SessionUserSchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  name: z.string(),
+  clubs: z.array(ClubMembershipSchema),
+});
+export type SessionUser = z.infer<typeof SessionUserSchema>;
+
+/** GET /api/session: who is signed in (user null when nobody) and the CSRF token. */
+export const SessionInfoSchema = z.object({
+  user: SessionUserSchema.nullable(),
+  csrfToken: z.string(),
+});
+export type SessionInfo = z.infer<typeof SessionInfoSchema>;
+
+export const PasswordResetRequestBodySchema = z.strictObject({ email: EmailSchema });
+export type PasswordResetRequestBody = z.infer<typeof PasswordResetRequestBodySchema>;
+
+export const PasswordResetBodySchema = z.strictObject({
+  token: z.string().min(20).max(200),
+  password: PasswordSchema,
+});
+export type PasswordResetBody = z.infer<typeof PasswordResetBodySchema>;
+
+export const InviteCreateBodySchema = z.strictObject({
+  email: EmailSchema,
+  name: z.string().trim().min(1, 'Enter a name').max(120),
+  roles: z.array(RoleSchema).min(1, 'Choose at least one role'),
+});
+export type InviteCreateBody = z.infer<typeof InviteCreateBodySchema>;
+
+export const InviteSchema = z.object({
+  id: z.number().int(),
+  clubId: z.number().int(),
+  email: z.string(),
+  name: z.string(),
+  roles: z.array(RoleSchema),
+  expiresAt: z.string(),
+  acceptedAt: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type Invite = z.infer<typeof InviteSchema>;
+
+/** What the accept-invite page shows before the person sets a password. */
+export const InvitePreviewSchema = z.object({
+  email: z.string(),
+  name: z.string(),
+  clubName: z.string(),
+  roles: z.array(RoleSchema),
+  hasAccount: z.boolean(),
+});
+export type InvitePreview = z.infer<typeof InvitePreviewSchema>;
+
+export const InviteAcceptBodySchema = z.strictObject({
+  token: z.string().min(20).max(200),
+  name: z.string().trim().min(1, 'Enter your name').max(120),
+  password: PasswordSchema,
+});
+export type InviteAcceptBody = z.infer<typeof InviteAcceptBodySchema>;
+
+export const MemberSchema = z.object({
+  userId: z.number().int(),
+  name: z.string(),
+  email: z.string(),
+  roles: z.array(RoleSchema),
+  joinedAt: z.string(),
+});
+export type Member = z.infer<typeof MemberSchema>;

@@ -1,0 +1,77 @@
+import type { Knex } from 'knex';
+import request from 'supertest';
+import { inject } from 'vitest';
+import { createApp } from '../../server/app';
+import { loadConfig, type Config } from '../../server/config';
+import { createDb } from '../../server/db/knex';
+import { createMailer } from '../../server/mail/mailer';
+
+export const mailUrl = () => inject('mailUrl');
+
+/** Configuration for tests: the throwaway database and fake inbox, quick hashing, quiet logs. */
+export function testConfig(env: Record<string, string> = {}): Config {
+  return loadConfig({
+    NODE_ENV: 'test',
+    DATABASE_URL: inject('databaseUrl'),
+    SMTP_URL: inject('smtpUrl'),
+    PUBLIC_URL: 'http://127.0.0.1:3999',
+    BCRYPT_COST: '10',
+    AUTH_RATE_LIMIT: '1000',
+    LOG_LEVEL: 'silent',
+    STATIC_DIR: '/nonexistent',
+    ...env,
+  });
+}
+
+/** A database handle, an app and a way to close them, for one test file. */
+export function setupTestApp(env: Record<string, string> = {}) {
+  const config = testConfig(env);
+  const db = createDb(config.databaseUrl);
+  const mailer = createMailer(config.smtpUrl, config.mailFrom);
+  const built = createApp({ db, mailer, config });
+  return {
+    db,
+    config,
+    app: built.app,
+    async close() {
+      await built.close();
+      mailer.close();
+      await db.destroy();
+    },
+  };
+}
+
+/** Empties every table the product writes (not the migrations' own bookkeeping). */
+export async function truncateAll(db: Knex) {
+  const { rows } = await db.raw(
+    "select tablename from pg_tables where schemaname = 'public' and tablename not like 'knex_%'",
+  );
+  const names = rows.map((r: { tablename: string }) => `"${r.tablename}"`).join(', ');
+  if (names) await db.raw(`truncate table ${names} restart identity cascade`);
+}
+
+/** A cookie-keeping client that already holds the session's CSRF token. */
+export async function browserLikeAgent(app: Parameters<typeof request.agent>[0]) {
+  const agent = request.agent(app);
+  const res = await agent.get('/api/session').expect(200);
+  let csrf: string = res.body.csrfToken;
+  return {
+    agent,
+    get csrf() {
+      return csrf;
+    },
+    async refresh() {
+      csrf = (await agent.get('/api/session').expect(200)).body.csrfToken;
+    },
+    get: (url: string) => agent.get(url),
+    post: (url: string, body?: object) => agent.post(url).set('X-CSRF-Token', csrf).send(body),
+    put: (url: string, body?: object) => agent.put(url).set('X-CSRF-Token', csrf).send(body),
+    patch: (url: string, body?: object) => agent.patch(url).set('X-CSRF-Token', csrf).send(body),
+    delete: (url: string) => agent.delete(url).set('X-CSRF-Token', csrf),
+    async signIn(email: string, password: string) {
+      const r = await agent.post('/api/session').set('X-CSRF-Token', csrf).send({ email, password });
+      if (r.status === 200) csrf = r.body.csrfToken;
+      return r;
+    },
+  };
+}
