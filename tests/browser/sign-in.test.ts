@@ -1,0 +1,67 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
+import { launchBrowser, openPage } from '../helpers/browser';
+import { startSeededServer } from '../helpers/server';
+import type { RunningServer } from '../../server/start-server';
+
+let server: RunningServer;
+let browser: Browser;
+let closeBrowser: () => Promise<void>;
+
+beforeAll(async () => {
+  server = await startSeededServer();
+  ({ browser, close: closeBrowser } = await launchBrowser());
+});
+afterAll(async () => {
+  await closeBrowser?.();
+  await server?.stop();
+});
+
+async function signIn(width: number, email: string) {
+  const w = await openPage(browser, width);
+  await w.page.goto(`${server.url}/`);
+  await w.page.getByLabel('E-mail').fill(email);
+  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await w.page.getByRole('button', { name: 'Sign in' }).click();
+  return w;
+}
+
+describe('signing in', () => {
+  it('the demo coordinator sees the club home and the coordinator navigation', async () => {
+    const w = await signIn(1280, 'maren@example.org');
+    await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+    const nav = w.page.getByRole('navigation', { name: 'Main' });
+    await expect(nav.getByRole('link', { name: 'Members' }).isVisible()).resolves.toBe(true);
+    await w.shot('sign-in-coordinator-desktop');
+
+    await nav.getByRole('link', { name: 'Members' }).click();
+    await w.page.getByRole('cell', { name: 'Teodor Lind' }).waitFor();
+    await w.shot('members-desktop');
+    expect(w.errors).toEqual([]);
+  });
+
+  it('a plot holder on a phone sees their own navigation and no coordinator pages', async () => {
+    const w = await signIn(390, 'teodor@example.org');
+    await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+    const menu = w.page.getByRole('button', { name: /menu/i });
+    if (await menu.isVisible()) await menu.click();
+    const nav = w.page.getByRole('navigation', { name: 'Main' });
+    await nav.getByRole('link', { name: 'My plot' }).waitFor();
+    expect(await nav.getByRole('link', { name: 'Members' }).count()).toBe(0);
+    await w.shot('sign-in-plot-holder-phone');
+    expect(w.errors).toEqual([]);
+  });
+
+  it('a wrong password shows a message on the form', async () => {
+    const w = await openPage(browser, 390);
+    await w.page.goto(`${server.url}/sign-in`);
+    await w.page.getByLabel('E-mail').fill('maren@example.org');
+    await w.page.getByLabel('Password').fill('not-the-password');
+    await w.page.getByRole('button', { name: 'Sign in' }).click();
+    await w.page.getByText('E-mail or password is wrong.').waitFor();
+    await w.shot('sign-in-wrong-password-phone');
+    // The browser logs the 401 response itself; nothing else may be logged.
+    expect(w.errors.filter((e) => !e.includes('401'))).toEqual([]);
+  });
+});
