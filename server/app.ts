@@ -14,6 +14,8 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
 import { membersRouter } from './routes/members';
 import { passwordResetsRouter } from './routes/password-resets';
+import { plotsRouter } from './routes/plots';
+import { clubSitesRouter, sitesRouter } from './routes/sites';
 import { sessionRouter } from './routes/session';
 
 export interface BuiltApp {
@@ -83,6 +85,9 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/invites', inviteLinksRouter(deps));
   app.use('/api/clubs/:clubId/invites', clubInvitesRouter(deps));
   app.use('/api/clubs/:clubId/members', membersRouter(deps));
+  app.use('/api/clubs/:clubId/sites', clubSitesRouter(deps));
+  app.use('/api/sites', sitesRouter(deps));
+  app.use('/api/plots', plotsRouter(deps));
   app.use('/api', apiNotFound);
 
   const indexHtml = path.join(config.staticDir, 'index.html');

@@ -32,3 +32,34 @@ export function requireClubRole(db: Db, ...allowed: Role[]): RequestHandler {
     next();
   };
 }
+
+/**
+ * Like requireClubRole for routes keyed by another record (/api/sites/:siteId, /api/plots/:plotId):
+ * resolve finds the record's club; a record that is missing, or in a club the person is not
+ * part of, answers 404 so ids of other clubs reveal nothing.
+ */
+export function requireRoleVia(
+  db: Db,
+  param: string,
+  resolve: (db: Db, id: number) => Promise<number | null>,
+  what: string,
+  ...allowed: Role[]
+): RequestHandler {
+  return async (req, _res, next) => {
+    const userId = req.session.userId;
+    if (!userId) return next(new AppError('unauthenticated', 'Please sign in.'));
+    const id = Number(req.params[param]);
+    if (!Number.isInteger(id) || id <= 0) {
+      return next(new AppError('validation_failed', `Invalid ${what.toLowerCase()} id.`, { [param]: 'Must be a positive whole number' }));
+    }
+    const clubId = await resolve(db, id);
+    const roles = clubId ? await rolesInClub(db, clubId, userId) : [];
+    if (!clubId || roles.length === 0) return next(new AppError('not_found', `${what} was not found.`));
+    if (allowed.length > 0 && !roles.some((r) => allowed.includes(r))) {
+      return next(new AppError('forbidden', 'Your role in this club does not allow that.'));
+    }
+    req.clubId = clubId;
+    req.clubRoles = roles;
+    next();
+  };
+}

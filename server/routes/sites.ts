@@ -1,0 +1,61 @@
+import { Router } from 'express';
+import { PlotCreateBodySchema } from '@shared/schemas/plots';
+import { SiteCreateBodySchema, SiteUpdateBodySchema } from '@shared/schemas/sites';
+import type { Deps } from '../deps';
+import { parseInput } from '../errors';
+import { requireClubRole, requireRoleVia } from '../middleware/auth';
+import { createPlot, listPlots, siteNeighbours } from '../services/plots';
+import { clubOfSite, createSite, deleteSite, getSite, listSites, updateSite } from '../services/sites';
+
+/** A club's sites, mounted at /api/clubs/:clubId/sites. */
+export function clubSitesRouter({ db }: Deps): Router {
+  const router = Router({ mergeParams: true });
+
+  router.get('/', requireClubRole(db), async (req, res) => {
+    res.json(await listSites(db, req.clubId!));
+  });
+
+  router.post('/', requireClubRole(db, 'coordinator'), async (req, res) => {
+    const body = parseInput(SiteCreateBodySchema, req.body);
+    res.status(201).json(await createSite(db, req.clubId!, body));
+  });
+
+  return router;
+}
+
+/** One site and the plots on it, mounted at /api/sites. */
+export function sitesRouter({ db }: Deps): Router {
+  const router = Router();
+  const member = requireRoleVia(db, 'siteId', clubOfSite, 'The site');
+  const coordinator = requireRoleVia(db, 'siteId', clubOfSite, 'The site', 'coordinator');
+
+  router.get('/:siteId', member, async (req, res) => {
+    res.json(await getSite(db, Number(req.params.siteId)));
+  });
+
+  router.patch('/:siteId', coordinator, async (req, res) => {
+    const body = parseInput(SiteUpdateBodySchema, req.body);
+    res.json(await updateSite(db, Number(req.params.siteId), body));
+  });
+
+  router.delete('/:siteId', coordinator, async (req, res) => {
+    await deleteSite(db, Number(req.params.siteId));
+    res.status(204).end();
+  });
+
+  router.get('/:siteId/plots', member, async (req, res) => {
+    res.json(await listPlots(db, Number(req.params.siteId)));
+  });
+
+  router.post('/:siteId/plots', coordinator, async (req, res) => {
+    const body = parseInput(PlotCreateBodySchema, req.body);
+    const plot = await createPlot(db, { siteId: Number(req.params.siteId), userId: req.session.userId!, body });
+    res.status(201).json(plot);
+  });
+
+  router.get('/:siteId/neighbours', member, async (req, res) => {
+    res.json(await siteNeighbours(db, Number(req.params.siteId)));
+  });
+
+  return router;
+}
