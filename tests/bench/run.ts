@@ -1,0 +1,111 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { findOverlaps, neighbours, type PlacedRect } from '@shared/geometry';
+import { loadConfig } from '../../server/config';
+import { createDb } from '../../server/db/knex';
+import { startServer } from '../../server/start-server';
+import { freePort, removeDir, startCluster } from '../../scripts/lib/postgres';
+
+// `npm run bench`: speed targets live here, never in timed tests. Prints medians and checks
+// them against the targets, exiting non-zero when one is missed.
+
+const targets: Array<{ name: string; ms: number; targetMs: number }> = [];
+
+function median(xs: number[]) {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+function time(name: string, runs: number, targetMs: number, fn: () => unknown) {
+  const xs: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    xs.push(performance.now() - t0);
+  }
+  targets.push({ name, ms: median(xs), targetMs });
+}
+
+async function timeAsync(name: string, runs: number, targetMs: number, fn: () => Promise<unknown>) {
+  const xs: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    await fn();
+    xs.push(performance.now() - t0);
+  }
+  targets.push({ name, ms: median(xs), targetMs });
+}
+
+/** A garden grid of n plots, 3 × 6 m with 0.9 m paths. */
+function grid(n: number): PlacedRect<number>[] {
+  const perRow = 25;
+  return Array.from({ length: n }, (_, i) => ({
+    id: i + 1,
+    x: (i % perRow) * 3.9,
+    y: Math.floor(i / perRow) * 6.9,
+    width: 3,
+    length: 6,
+    rotation: 0 as const,
+  }));
+}
+
+const g500 = grid(500);
+const g2000 = grid(2000);
+time('neighbours(), 500 plots', 21, 50, () => neighbours(g500, 0.9));
+time('neighbours(), 2000 plots', 11, 200, () => neighbours(g2000, 0.9));
+time('findOverlaps(), 2000 plots', 11, 200, () => findOverlaps(g2000));
+
+// The map's two reads over HTTP, for a site of 500 plots, on a throwaway cluster.
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tillwell-bench-'));
+fs.chmodSync(dir, 0o755);
+const cluster = startCluster({ dataDir: path.join(dir, 'data'), port: await freePort(), throwaway: true, log: () => {} });
+try {
+  await cluster.createDatabase('bench');
+  const port = await freePort();
+  const config = loadConfig({ NODE_ENV: 'test', DATABASE_URL: cluster.url('bench'), PORT: String(port), LOG_LEVEL: 'silent', STATIC_DIR: '/nonexistent', SMTP_URL: 'smtp://127.0.0.1:1' });
+  const server = await startServer(config);
+  const db = createDb(config.databaseUrl);
+  const [club] = await db('clubs').insert({ name: 'Bench club', slug: 'bench' }).returning('id');
+  const [site] = await db('sites')
+    .insert({ club_id: club.id, name: 'Big field', latitude: 51, longitude: 0, time_zone: 'UTC', width_m: 100, length_m: 200 })
+    .returning('id');
+  await db('plots').insert(g500.map((p) => ({ site_id: site.id, label: `P-${p.id}`, x_m: p.x, y_m: p.y, width_m: 3, length_m: 6 })));
+  const bcrypt = (await import('bcryptjs')).default;
+  const [user] = await db('users').insert({ email: 'b@example.org', name: 'B', password_hash: bcrypt.hashSync('bench-password-1', 10) }).returning('id');
+  await db('memberships').insert({ club_id: club.id, user_id: user.id, role: 'coordinator' });
+
+  const s0 = await fetch(`${server.url}/api/session`);
+  let cookie = s0.headers.get('set-cookie')!.split(';')[0];
+  const { csrfToken } = await s0.json();
+  const signIn = await fetch(`${server.url}/api/session`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie },
+    body: JSON.stringify({ email: 'b@example.org', password: 'bench-password-1' }),
+  });
+  cookie = signIn.headers.get('set-cookie')!.split(';')[0];
+  await timeAsync('GET /api/sites/:id/plots, 500 plots', 30, 100, async () => {
+    const r = await fetch(`${server.url}/api/sites/${site.id}/plots`, { headers: { cookie } });
+    if (r.status !== 200) throw new Error(`status ${r.status}`);
+    await r.arrayBuffer();
+  });
+  await timeAsync('GET /api/sites/:id/neighbours, 500 plots', 30, 100, async () => {
+    const r = await fetch(`${server.url}/api/sites/${site.id}/neighbours`, { headers: { cookie } });
+    if (r.status !== 200) throw new Error(`status ${r.status}`);
+    await r.arrayBuffer();
+  });
+  await db.destroy();
+  await server.stop();
+} finally {
+  cluster.stop();
+  removeDir(dir);
+}
+
+let missed = 0;
+for (const t of targets) {
+  const ok = t.ms <= t.targetMs;
+  if (!ok) missed++;
+  console.log(`${ok ? 'ok  ' : 'MISS'} ${t.name.padEnd(44)} median ${t.ms.toFixed(2).padStart(8)} ms  (target ≤ ${t.targetMs} ms)`);
+}
+process.exitCode = missed ? 1 : 0;
