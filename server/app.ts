@@ -93,7 +93,7 @@ export function createApp(deps: Deps): BuiltApp {
   const indexHtml = path.join(config.staticDir, 'index.html');
   if (fs.existsSync(indexHtml)) {
     app.use(express.static(config.staticDir, { index: false, maxAge: '1h' }));
-    app.get('/*splat', (_req, res) => res.sendFile(indexHtml));
+    app.get('/{*splat}', (_req, res) => res.sendFile(indexHtml));
   }
 
   app.use(errorHandler);

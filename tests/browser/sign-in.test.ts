@@ -30,6 +30,9 @@ async function signIn(width: number, email: string) {
 describe('signing in', () => {
   it('the demo coordinator sees the club home and the coordinator navigation', async () => {
     const w = await signIn(1280, 'maren@example.org');
+    // Maren belongs to two clubs, so she gets the club switcher.
+    await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
+    await w.page.getByLabel('Club').selectOption({ label: 'Mossgate Community Garden Club' });
     await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
     const nav = w.page.getByRole('navigation', { name: 'Main' });
     await expect(nav.getByRole('link', { name: 'Members' }).isVisible()).resolves.toBe(true);

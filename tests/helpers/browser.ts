@@ -1,14 +1,12 @@
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { CHROMIUM } from './chromium';
 
 export const SCREENSHOT_DIR = path.resolve(import.meta.dirname, '..', '..', 'screenshots');
 
-/** Starts Debian's Chromium headless with a fresh profile and no background traffic. */
+/** Starts Debian's Chromium headless (playwright gives it a fresh temporary profile) with no background traffic. */
 export async function launchBrowser(): Promise<{ browser: Browser; close(): Promise<void> }> {
-  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'tillwell-chromium-'));
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
     args: [
@@ -20,14 +18,12 @@ export async function launchBrowser(): Promise<{ browser: Browser; close(): Prom
       '--disable-component-update',
       '--disable-sync',
       '--no-first-run',
-      `--user-data-dir=${profile}`,
     ],
   });
   return {
     browser,
     async close() {
       await browser.close();
-      fs.rmSync(profile, { recursive: true, force: true });
     },
   };
 }

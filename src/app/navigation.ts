@@ -1,0 +1,24 @@
+import { CalendarRange, HandHelping, House, Map as MapIcon, Shovel, Users } from 'lucide-react';
+import type { ClubMembership } from '@shared/schemas/auth';
+import type { NavItem } from '@/components/layouts/app-layout';
+import { paths } from '@/lib/paths';
+
+/** The navigation a person sees in one club, built from their roles there; Home comes once, first. */
+export function navItemsFor(club: ClubMembership): NavItem[] {
+  const id = club.clubId;
+  const items: NavItem[] = [{ to: paths.club(id), label: 'Home', icon: House, end: true }];
+  if (club.roles.includes('coordinator')) {
+    items.push(
+      { to: paths.map(id), label: 'Map', icon: MapIcon, comingSoon: true },
+      { to: paths.springRound(id), label: 'Spring round', icon: CalendarRange, comingSoon: true },
+      { to: paths.members(id), label: 'Members', icon: Users },
+    );
+  }
+  if (club.roles.includes('plot_holder')) {
+    items.push({ to: paths.myPlot(id), label: 'My plot', icon: Shovel, comingSoon: true });
+  }
+  if (club.roles.includes('volunteer')) {
+    items.push({ to: paths.shifts(id), label: 'Shifts', icon: HandHelping, comingSoon: true });
+  }
+  return items;
+}

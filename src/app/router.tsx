@@ -1,0 +1,79 @@
+import { createBrowserRouter } from 'react-router-dom';
+import { LoadingState } from '@/components/ui/spinner';
+import { AppShell } from './routes/app-shell';
+import { AuthShell, SignedOutOnly } from './routes/auth-shell';
+import { ClubHomeRoute } from './routes/club-home';
+import { ClubScope } from './routes/club-scope';
+import { ComingSoonRoute } from './routes/coming-soon';
+import { HomeRedirect } from './routes/home-redirect';
+import { NotFoundRoute } from './routes/not-found';
+import { RouteError } from './routes/route-error';
+
+function PageLoading() {
+  return <LoadingState fullPage label="Loading…" />;
+}
+
+/** Every route in the app; form pages and the members table load on demand. */
+export const router = createBrowserRouter([
+  {
+    path: '/',
+    ErrorBoundary: RouteError,
+    HydrateFallback: PageLoading,
+    children: [
+      {
+        Component: AuthShell,
+        children: [
+          {
+            Component: SignedOutOnly,
+            children: [
+              { path: 'sign-in', lazy: () => import('./routes/sign-in').then((m) => ({ Component: m.SignInRoute })) },
+              {
+                path: 'forgot-password',
+                lazy: () => import('./routes/forgot-password').then((m) => ({ Component: m.ForgotPasswordRoute })),
+              },
+            ],
+          },
+          // Open to everyone: a signed-in person may still follow a reset or invite e-mail.
+          {
+            path: 'reset-password',
+            lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })),
+          },
+          { path: 'invite', lazy: () => import('./routes/invite').then((m) => ({ Component: m.InviteRoute })) },
+        ],
+      },
+      {
+        Component: AppShell,
+        children: [
+          { index: true, Component: HomeRedirect },
+          {
+            path: 'clubs/:clubId',
+            Component: ClubScope,
+            children: [
+              { index: true, Component: ClubHomeRoute },
+              { path: 'members', lazy: () => import('./routes/members').then((m) => ({ Component: m.MembersRoute })) },
+              {
+                path: 'map',
+                element: <ComingSoonRoute title="Map" description="The garden's beds, paths and plots, drawn to scale." />,
+              },
+              {
+                path: 'spring-round',
+                element: (
+                  <ComingSoonRoute title="Spring round" description="Offering free plots to the waiting list each spring." />
+                ),
+              },
+              {
+                path: 'my-plot',
+                element: <ComingSoonRoute title="My plot" description="Your plot, its plot book and watering cover." />,
+              },
+              {
+                path: 'shifts',
+                element: <ComingSoonRoute title="Shifts" description="Watering and weeding shifts you can claim." />,
+              },
+            ],
+          },
+        ],
+      },
+      { path: '*', Component: NotFoundRoute },
+    ],
+  },
+]);

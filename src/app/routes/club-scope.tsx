@@ -1,0 +1,40 @@
+import { useEffect } from 'react';
+import { Link, Outlet } from 'react-router-dom';
+import { SearchX } from 'lucide-react';
+import { buttonClasses } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { useCurrentClubId } from '@/features/clubs/hooks/use-current-club-id';
+import { rememberClub } from '@/features/clubs/lib/last-club';
+import { paths } from '@/lib/paths';
+import { useSignedInContext, type ClubContext } from '../app-context';
+
+/** Layout route for `/clubs/:clubId`: checks the person belongs to the club and remembers it. */
+export function ClubScope() {
+  const { user } = useSignedInContext();
+  const clubId = useCurrentClubId();
+  const club = user.clubs.find((membership) => membership.clubId === clubId);
+
+  useEffect(() => {
+    if (club) rememberClub(club.clubId);
+  }, [club]);
+
+  if (!club) {
+    return (
+      <EmptyState
+        icon={SearchX}
+        title="This isn't one of your clubs"
+        headingLevel="h1"
+        action={
+          <Link to={paths.home()} className={buttonClasses('primary')}>
+            Go to my club
+          </Link>
+        }
+      >
+        <p>The link may be old, or you may have left this club. If you should be here, ask its coordinator for an invite.</p>
+      </EmptyState>
+    );
+  }
+
+  const context: ClubContext = { user, club };
+  return <Outlet context={context} />;
+}

@@ -1,0 +1,134 @@
+import { Link } from 'react-router-dom';
+import {
+  BookOpen,
+  CalendarRange,
+  ChartNoAxesColumn,
+  Clock,
+  Droplets,
+  HandHelping,
+  Map as MapIcon,
+  Shovel,
+  Users,
+  type LucideIcon,
+} from 'lucide-react';
+import { roleLabels, type ClubMembership, type Role } from '@shared/schemas/auth';
+import { Badge } from '@/components/ui/badge';
+import { PageHeader } from '@/components/ui/page-header';
+import { firstName, joinWords } from '@/lib/format';
+import { paths } from '@/lib/paths';
+
+interface HomeCard {
+  title: string;
+  body: string;
+  icon: LucideIcon;
+  /** Only pages that really exist get a link; everything else says "Coming soon". */
+  href?: string;
+}
+
+function cardsFor(role: Role, clubId: number): HomeCard[] {
+  switch (role) {
+    case 'coordinator':
+      return [
+        { title: 'Map', body: 'Draw the beds and paths, and see who holds each plot.', icon: MapIcon },
+        { title: 'Spring round', body: 'Offer free plots to the waiting list, one round at a time.', icon: CalendarRange },
+        { title: 'Season at a glance', body: 'Plots taken, shifts covered and hours given this season.', icon: ChartNoAxesColumn },
+        {
+          title: 'Members',
+          body: 'See everyone in the club, invite new people and check pending invites.',
+          icon: Users,
+          href: paths.members(clubId),
+        },
+      ];
+    case 'plot_holder':
+      return [
+        { title: 'My plot', body: 'Your plot number, size and where it sits on the map.', icon: Shovel },
+        { title: 'Plot book', body: 'Note what you sowed, planted and harvested, bed by bed.', icon: BookOpen },
+        { title: 'Ask for watering cover', body: 'Going away? Ask a volunteer to water while you are gone.', icon: Droplets },
+      ];
+    case 'volunteer':
+      return [
+        { title: 'Open shifts', body: 'Watering and weeding shifts that still need a pair of hands.', icon: HandHelping },
+        { title: 'My hours', body: 'The shifts you have done and the hours you have given.', icon: Clock },
+      ];
+  }
+}
+
+const sectionTitles: Record<Role, string> = {
+  coordinator: 'Running the garden',
+  plot_holder: 'Your plot',
+  volunteer: 'Volunteering',
+};
+
+function HomeCardView({ card }: { card: HomeCard }) {
+  const { title, body, icon: Icon, href } = card;
+  const inner = (
+    <>
+      <div className="flex items-start justify-between gap-3">
+        <span className="flex size-11 items-center justify-center rounded-lg bg-leaf-50 text-leaf">
+          <Icon className="size-6" aria-hidden="true" />
+        </span>
+        {!href && <Badge tone="straw">Coming soon</Badge>}
+      </div>
+      <h3 className={`mt-4 text-lg font-semibold ${href ? 'text-water group-hover:underline' : ''}`}>{title}</h3>
+      <p className="mt-1 text-stone">{body}</p>
+    </>
+  );
+  const box = 'flex h-full flex-col rounded-xl border bg-white p-5';
+  return (
+    <li>
+      {href ? (
+        <Link to={href} className={`group ${box} border-leaf-100 no-underline shadow-sm hover:border-leaf`}>
+          {inner}
+        </Link>
+      ) : (
+        <div className={`${box} border-paper-200`}>{inner}</div>
+      )}
+    </li>
+  );
+}
+
+export interface ClubHomeProps {
+  club: ClubMembership;
+  personName: string;
+}
+
+/** The club's home page: a greeting and one section of cards per role the person holds. */
+export function ClubHome({ club, personName }: ClubHomeProps) {
+  const roles = club.roles;
+  const roleWords = roles.map((role) => roleLabels[role].toLowerCase());
+  return (
+    <>
+      <title>{`${club.clubName} · Tillwell`}</title>
+      <PageHeader
+        eyebrow="Club home"
+        title={club.clubName}
+        description={
+          <p>
+            Hello, {firstName(personName)}.{' '}
+            {roles.length > 0 ? `You're here as ${joinWords(roleWords)}.` : 'You have no role in this club yet.'}
+          </p>
+        }
+      />
+      <div className="flex flex-col gap-10">
+        {roles.map((role) => {
+          const headingId = `home-${role}`;
+          return (
+            <section key={role} aria-labelledby={headingId}>
+              <div className="mb-4 flex flex-wrap items-baseline gap-x-3">
+                <h2 id={headingId} className="text-xl font-semibold">
+                  {sectionTitles[role]}
+                </h2>
+                <span className="text-sm text-stone">as {roleLabels[role].toLowerCase()}</span>
+              </div>
+              <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+                {cardsFor(role, club.clubId).map((card) => (
+                  <HomeCardView key={card.title} card={card} />
+                ))}
+              </ul>
+            </section>
+          );
+        })}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,46 @@
+import { useId } from 'react';
+import { useNavigate } from 'react-router-dom';
+import type { ClubMembership } from '@shared/schemas/auth';
+import { inputClasses } from '@/components/ui/field';
+import { paths } from '@/lib/paths';
+
+export interface ClubSwitcherProps {
+  clubs: ClubMembership[];
+  currentClubId: number | null;
+}
+
+/** Lets a person in several clubs jump to another club's home; shows just the name when there is one club. */
+export function ClubSwitcher({ clubs, currentClubId }: ClubSwitcherProps) {
+  const navigate = useNavigate();
+  const id = useId();
+  const current = clubs.find((club) => club.clubId === currentClubId);
+
+  if (clubs.length <= 1) {
+    return current ? <span className="block truncate font-medium text-stone">{current.clubName}</span> : null;
+  }
+
+  return (
+    <div className="flex items-center gap-2">
+      <label htmlFor={id} className="text-sm font-medium text-stone">
+        Club
+      </label>
+      <select
+        id={id}
+        value={current ? String(current.clubId) : ''}
+        onChange={(event) => navigate(paths.club(Number(event.target.value)))}
+        className={`${inputClasses} w-full cursor-pointer md:w-64`}
+      >
+        {!current && (
+          <option value="" disabled>
+            Choose a club
+          </option>
+        )}
+        {clubs.map((club) => (
+          <option key={club.clubId} value={club.clubId}>
+            {club.clubName}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}

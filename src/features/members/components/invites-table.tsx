@@ -1,0 +1,49 @@
+import type { ColumnDef } from '@tanstack/react-table';
+import type { Invite } from '@shared/schemas/auth';
+import { DataTable } from '@/components/ui/data-table';
+import { formatDate } from '@/lib/format';
+import { RoleBadges, rolesText } from './role-badges';
+
+const columns: ColumnDef<Invite>[] = [
+  {
+    id: 'email',
+    header: 'E-mail',
+    accessorFn: (invite) => invite.email,
+    cell: ({ row }) => <span className="font-medium whitespace-nowrap">{row.original.email}</span>,
+  },
+  {
+    id: 'name',
+    header: 'Name',
+    accessorFn: (invite) => invite.name,
+    cell: ({ row }) => <span className="whitespace-nowrap">{row.original.name}</span>,
+  },
+  {
+    id: 'roles',
+    header: 'Roles',
+    accessorFn: (invite) => rolesText(invite.roles),
+    cell: ({ row }) => <RoleBadges roles={row.original.roles} />,
+  },
+  {
+    id: 'expires',
+    header: 'Expires',
+    accessorFn: (invite) => invite.expiresAt,
+    cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.expiresAt)}</span>,
+    enableGlobalFilter: false,
+  },
+];
+
+/** Invites sent but not yet accepted. */
+export function InvitesTable({ invites }: { invites: Invite[] }) {
+  return (
+    <DataTable
+      data={invites}
+      columns={columns}
+      caption="Pending invites"
+      filterLabel="Filter invites"
+      emptyMessage="No invites waiting. New invites show up here until they are accepted."
+      initialSorting={[{ id: 'expires', desc: false }]}
+      pageSizes={[5, 10, 25]}
+      getRowId={(invite) => String(invite.id)}
+    />
+  );
+}

@@ -1,0 +1,18 @@
+const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+
+/** Formats an ISO timestamp as a short calendar date ("3 Mar 2026"); returns the input when unreadable. */
+export function formatDate(iso: string): string {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
+}
+
+/** Joins a list of words for reading aloud or in a sentence: "A", "A and B", "A, B and C". */
+export function joinWords(words: readonly string[]): string {
+  if (words.length <= 1) return words.join('');
+  return `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
+}
+
+/** The first word of a person's name, for friendly greetings. */
+export function firstName(name: string): string {
+  return name.trim().split(/\s+/)[0] ?? name;
+}
