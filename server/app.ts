@@ -14,7 +14,9 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
 import { membersRouter } from './routes/members';
 import { passwordResetsRouter } from './routes/password-resets';
+import { plotImportsRouter } from './routes/plot-imports';
 import { plotsRouter } from './routes/plots';
+import { siteBackgroundsRouter } from './routes/site-backgrounds';
 import { clubSitesRouter, sitesRouter } from './routes/sites';
 import { sessionRouter } from './routes/session';
 
@@ -58,7 +60,7 @@ export function createApp(deps: Deps): BuiltApp {
       strictTransportSecurity: config.cookieSecure,
     }),
   );
-  app.use(express.json({ limit: '1mb' }));
+  app.use(express.json({ limit: '3mb' })); // plot CSV imports come as JSON, up to 2 MB of text
 
   const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
   const PgStore = connectPgSimple(session);
@@ -87,6 +89,8 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/clubs/:clubId/members', membersRouter(deps));
   app.use('/api/clubs/:clubId/sites', clubSitesRouter(deps));
   app.use('/api/sites', sitesRouter(deps));
+  app.use('/api/sites', plotImportsRouter(deps));
+  app.use('/api/sites', siteBackgroundsRouter(deps));
   app.use('/api/plots', plotsRouter(deps));
   app.use('/api', apiNotFound);
 

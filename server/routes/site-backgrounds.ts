@@ -1,0 +1,97 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import type { Deps } from '../deps';
+import { AppError, notFound, parseInput } from '../errors';
+import { requireRoleVia } from '../middleware/auth';
+import {
+  deleteSiteBackground,
+  findSiteBackground,
+  MAX_BACKGROUND_BYTES,
+  setSiteBackground,
+} from '../services/site-backgrounds';
+import { clubOfSite } from '../services/sites';
+
+const UploadFieldsSchema = z.strictObject({
+  widthMetres: z.preprocess(
+    (v) => (typeof v === 'string' && v.trim() === '' ? undefined : v),
+    z.coerce
+      .number({ message: 'Enter the width in metres, e.g. 40' })
+      .positive('Must be more than 0')
+      .max(2000, 'At most 2 km')
+      .optional(),
+  ),
+});
+
+const multerMessages: Record<string, { field: string; message: string }> = {
+  LIMIT_FILE_SIZE: { field: 'image', message: 'The image is larger than 5 MB' },
+  LIMIT_FILE_COUNT: { field: 'image', message: 'Send one image at a time' },
+  LIMIT_UNEXPECTED_FILE: { field: 'image', message: 'Send the image in the form field "image"' },
+};
+
+/** Parses the multipart form into memory, turning every upload failure into the standard 400 body. */
+function receiveImage(): RequestHandler {
+  const single = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: MAX_BACKGROUND_BYTES, files: 1, fields: 5, fieldSize: 1024, parts: 6 },
+  }).single('image');
+  return (req, res, next) => {
+    single(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        const known = multerMessages[err.code];
+        const field = known?.field ?? err.field ?? 'image';
+        const message = known?.message ?? 'The form could not be read; send one image and at most a width';
+        return next(new AppError('validation_failed', message, { [field]: message }));
+      }
+      // Anything else here is a malformed or cut-off multipart body, never a server fault.
+      const message = 'The upload could not be read; try again';
+      next(new AppError('validation_failed', message, { image: message }));
+    });
+  };
+}
+
+/** A site's map background image: upload, fetch, remove. Mounted at /api/sites. */
+export function siteBackgroundsRouter({ db, config }: Deps): Router {
+  const router = Router();
+  const member = requireRoleVia(db, 'siteId', clubOfSite, 'The site');
+  const coordinator = requireRoleVia(db, 'siteId', clubOfSite, 'The site', 'coordinator');
+
+  router.post('/:siteId/background', coordinator, receiveImage(), async (req, res) => {
+    const { widthMetres } = parseInput(UploadFieldsSchema, { ...req.body });
+    if (!req.file) {
+      throw new AppError('validation_failed', 'Choose an image to upload.', { image: 'Choose a PNG, JPEG or WebP image' });
+    }
+    const site = await setSiteBackground(db, {
+      siteId: Number(req.params.siteId),
+      uploadDir: config.uploadDir,
+      bytes: req.file.buffer,
+      widthMetres,
+    });
+    res.json(site);
+  });
+
+  router.get('/:siteId/background', member, async (req, res, next) => {
+    const found = await findSiteBackground(db, { siteId: Number(req.params.siteId), uploadDir: config.uploadDir });
+    const headers = {
+      'Content-Type': found.mime,
+      'Cache-Control': 'private, max-age=3600',
+      'X-Content-Type-Options': 'nosniff',
+    };
+    // Headers go with the file only, so a 404 is never cached; root keeps send's dot-folder
+    // check off the configured path (the default lives under .data/).
+    res.sendFile(found.name, { root: found.folder, headers, cacheControl: false, dotfiles: 'deny' }, (err) => {
+      if (!err) return;
+      if (res.headersSent) return res.destroy();
+      const code = (err as NodeJS.ErrnoException).code;
+      next(code === 'ENOENT' || code === 'EISDIR' ? notFound('The background image') : err);
+    });
+  });
+
+  router.delete('/:siteId/background', coordinator, async (req, res) => {
+    await deleteSiteBackground(db, { siteId: Number(req.params.siteId), uploadDir: config.uploadDir });
+    res.status(204).end();
+  });
+
+  return router;
+}
