@@ -51,10 +51,7 @@ export const router = createBrowserRouter([
             children: [
               { index: true, Component: ClubHomeRoute },
               { path: 'members', lazy: () => import('./routes/members').then((m) => ({ Component: m.MembersRoute })) },
-              {
-                path: 'map',
-                element: <ComingSoonRoute title="Map" description="The garden's beds, paths and plots, drawn to scale." />,
-              },
+              { path: 'map', lazy: () => import('./routes/map').then((m) => ({ Component: m.MapRoute })) },
               {
                 path: 'spring-round',
                 element: (

@@ -1,0 +1,75 @@
+import { Map as MapIcon } from 'lucide-react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorState } from '@/components/ui/error-state';
+import { PageHeader } from '@/components/ui/page-header';
+import { LoadingState } from '@/components/ui/spinner';
+import { MapEditor } from '@/features/plots/components/map/map-editor';
+import { useSites } from '@/features/sites/api/get-sites';
+import { paths } from '@/lib/paths';
+import { useClubContext } from '../app-context';
+
+/** `/clubs/:clubId/map?site=ID`: one site's map; coordinators edit it, everyone else looks. */
+export function MapRoute() {
+  const { club } = useClubContext();
+  const sites = useSites(club.clubId);
+  const [params, setParams] = useSearchParams();
+  const canEdit = club.roles.includes('coordinator');
+
+  if (sites.isPending) return <LoadingState label="Loading the sites…" />;
+  if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
+  const items = sites.data.items;
+  if (items.length === 0) {
+    return (
+      <EmptyState
+        icon={MapIcon}
+        title="No sites yet"
+        action={canEdit ? <Link to={paths.sites(club.clubId)}>Add the club's first site</Link> : undefined}
+      >
+        {canEdit ? 'Add a site, then draw its plots here.' : 'The coordinator has not drawn a site yet.'}
+      </EmptyState>
+    );
+  }
+  const wanted = Number(params.get('site'));
+  const site = items.find((s) => s.id === wanted) ?? items[0];
+
+  return (
+    <div>
+      <PageHeader
+        eyebrow={club.clubName}
+        title={`Map of ${site.name}`}
+        description={`${site.plotCount} plots on ${site.units === 'us' ? 'a site measured in feet' : 'a site measured in metres'}.`}
+        actions={
+          canEdit ? (
+            <div className="flex flex-wrap gap-3">
+              <Link to={paths.sitePlots(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
+                Plots table and CSV
+              </Link>
+              <Link to={paths.siteEdit(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
+                Site settings
+              </Link>
+            </div>
+          ) : undefined
+        }
+      />
+      {items.length > 1 && (
+        <nav aria-label="Sites" className="mb-4 flex flex-wrap gap-2">
+          {items.map((s) => (
+            <button
+              key={s.id}
+              type="button"
+              aria-current={s.id === site.id ? 'page' : undefined}
+              onClick={() => setParams({ site: String(s.id) })}
+              className={`min-h-11 rounded-full border px-4 font-medium ${
+                s.id === site.id ? 'border-leaf bg-leaf text-white' : 'border-paper-300 bg-white text-soil hover:bg-paper-100'
+              }`}
+            >
+              {s.name}
+            </button>
+          ))}
+        </nav>
+      )}
+      <MapEditor key={site.id} site={site} canEdit={canEdit} plotHref={(plotId) => paths.plot(club.clubId, plotId)} />
+    </div>
+  );
+}

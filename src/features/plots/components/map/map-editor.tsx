@@ -1,0 +1,350 @@
+import { DndContext, PointerSensor, useSensor, useSensors, type DragEndEvent, type DragMoveEvent } from '@dnd-kit/core';
+import { Minus, Plus, SquarePlus } from 'lucide-react';
+import { useCallback, useMemo, useState, type KeyboardEvent } from 'react';
+import { footprint, overlaps, snap, type Rect } from '@shared/geometry';
+import type { Plot, PlotCreateBody } from '@shared/schemas/plots';
+import type { Site } from '@shared/schemas/sites';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { ErrorState } from '@/components/ui/error-state';
+import { LoadingState } from '@/components/ui/spinner';
+import { isApiError } from '@/lib/api/client';
+import { useCreatePlot } from '../../api/create-plot';
+import { useDeletePlot } from '../../api/delete-plot';
+import { useSiteNeighbours } from '../../api/get-site-neighbours';
+import { useSitePlots } from '../../api/get-site-plots';
+import { useUpdatePlot } from '../../api/update-plot';
+import { useElementWidth } from '../../hooks/use-element-width';
+import { MapLegend } from './map-legend';
+import { clampToSite, defaultPlotSize, findFreeSpot, nextLabel, spansToSize } from './map-math';
+import { PlotInspector } from './plot-inspector';
+import { PlotShape, ResizeHandle, type PlotMark } from './plot-shape';
+import { ScaleBar } from './scale-bar';
+
+export interface MapEditorProps {
+  site: Site;
+  canEdit: boolean;
+  plotHref(plotId: number): string;
+}
+
+interface DragState {
+  kind: 'move' | 'resize';
+  plotId: number;
+  /** Screen pixels for pointer drags; grid steps are converted to pixels for keyboard moves. */
+  dx: number;
+  dy: number;
+  byKeyboard?: boolean;
+}
+
+const ARROWS: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
+const MIN_SIDE = 0.3;
+
+function rectOf(p: Plot): Rect {
+  return { x: p.x, y: p.y, width: p.width, length: p.length, rotation: p.rotation };
+}
+
+/** The site map: plots to scale on the site's grid, moved and resized by pointer or keyboard, each change saved at once. */
+export function MapEditor({ site, canEdit, plotHref }: MapEditorProps) {
+  const plotsQuery = useSitePlots(site.id);
+  const neighboursQuery = useSiteNeighbours(site.id);
+  const updatePlot = useUpdatePlot(site.id);
+  const createPlot = useCreatePlot(site.id);
+  const deletePlot = useDeletePlot(site.id);
+  const [selectedId, setSelectedId] = useState<number | null>(null);
+  const [zoom, setZoom] = useState(1);
+  const [drag, setDrag] = useState<DragState | null>(null);
+  const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
+  const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
+
+  const fit = wrapWidth ? (wrapWidth - 2) / site.width : 16;
+  const scale = Math.min(200, Math.max(2, fit * zoom));
+  const grid = site.grid > 0 ? site.grid : 0.1;
+  const [announcement, setAnnouncement] = useState('');
+  // Pointer drags go through dnd-kit; keyboard moves are our own pick-up mode (below), because
+  // dnd-kit's keyboard sensor scrolls the page instead of moving when the plot is low on screen.
+  const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 4 } }));
+
+  const plots = useMemo(() => plotsQuery.data?.items ?? [], [plotsQuery.data]);
+  const selected = plots.find((p) => p.id === selectedId) ?? null;
+
+  /** Where the plot would go if the current drag ended now: snapped to the grid and kept on the site. */
+  const candidate = useCallback(
+    (p: Plot, d: DragState | null): Rect => {
+      const r = rectOf(p);
+      if (!d || d.plotId !== p.id) return r;
+      const mx = d.dx / scale;
+      const my = d.dy / scale;
+      if (d.kind === 'move') return clampToSite({ ...r, x: snap(r.x + mx, grid), y: snap(r.y + my, grid) }, site);
+      const fp = footprint(r);
+      const spanX = Math.min(Math.max(MIN_SIDE, snap(fp.maxX - fp.minX + mx, grid)), site.width - r.x);
+      const spanY = Math.min(Math.max(MIN_SIDE, snap(fp.maxY - fp.minY + my, grid)), site.length - r.y);
+      return { ...r, ...spansToSize(r.rotation, spanX, spanY) };
+    },
+    [grid, scale, site],
+  );
+
+  const neighbourIds = useMemo(() => {
+    const pairs = neighboursQuery.data?.items ?? [];
+    return new Set(pairs.flatMap((n) => (n.a === selectedId ? [n.b] : n.b === selectedId ? [n.a] : [])));
+  }, [neighboursQuery.data, selectedId]);
+
+  const neighboursOfSelected = useMemo(() => {
+    if (!selected) return [];
+    const opposite = { north: 'south', south: 'north', east: 'west', west: 'east' } as const;
+    return (neighboursQuery.data?.items ?? [])
+      .filter((n) => n.a === selected.id || n.b === selected.id)
+      .map((n) => {
+        const otherId = n.a === selected.id ? n.b : n.a;
+        return {
+          plotId: otherId,
+          label: plots.find((p) => p.id === otherId)?.label ?? '?',
+          side: n.a === selected.id ? n.side : opposite[n.side],
+          kind: n.kind,
+          gap: n.gap,
+        };
+      });
+  }, [neighboursQuery.data, selected, plots]);
+
+  const save = useCallback(
+    async (plot: Plot, changes: Partial<PlotCreateBody>) => {
+      setNotice(null);
+      try {
+        await updatePlot.mutateAsync({ plotId: plot.id, body: { version: plot.version, ...changes } });
+      } catch (err) {
+        setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The change could not be saved. Try again.' });
+        throw err;
+      }
+    },
+    [updatePlot],
+  );
+
+  function onDragMove(e: DragMoveEvent) {
+    const [kind, id] = String(e.active.id).split(':');
+    setDrag({ kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y });
+  }
+
+  function onDragEnd(e: DragEndEvent) {
+    const [kind, id] = String(e.active.id).split(':');
+    const plot = plots.find((p) => p.id === Number(id));
+    const d: DragState = { kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y };
+    setDrag(null);
+    if (!plot) return;
+    setSelectedId(plot.id);
+    const to = candidate(plot, d);
+    const changes: Partial<PlotCreateBody> =
+      kind === 'move' ? { x: to.x, y: to.y } : { width: to.width, length: to.length };
+    const changed = Object.entries(changes).some(([k, v]) => (plot as Record<string, unknown>)[k] !== v);
+    if (changed) save(plot, changes).catch(() => undefined);
+  }
+
+  /**
+   * Keyboard: Space or Enter picks the plot up, arrows move it one grid step, Space or Enter
+   * puts it down (saved), Escape puts it back; Shift + arrows resize it, R turns it.
+   * Returns true when the key was handled.
+   */
+  function onKeyCommand(plot: Plot, e: KeyboardEvent<HTMLElement>): boolean {
+    if (!canEdit) return false;
+    const d = ARROWS[e.key];
+    const carrying = drag?.byKeyboard && drag.plotId === plot.id ? drag : null;
+    if (e.key === ' ' || e.key === 'Enter') {
+      e.preventDefault();
+      if (!carrying) {
+        setDrag({ kind: 'move', plotId: plot.id, dx: 0, dy: 0, byKeyboard: true });
+        setAnnouncement(`Picked up plot ${plot.label}. Arrow keys move it, Space puts it down, Escape puts it back.`);
+        return true;
+      }
+      setDrag(null);
+      const to = candidate(plot, carrying);
+      if (to.x !== plot.x || to.y !== plot.y) {
+        setAnnouncement(`Plot ${plot.label} put down.`);
+        save(plot, { x: to.x, y: to.y }).catch(() => undefined);
+      } else setAnnouncement(`Plot ${plot.label} put down where it was.`);
+      return true;
+    }
+    if (e.key === 'Escape' && carrying) {
+      e.preventDefault();
+      setDrag(null);
+      setAnnouncement(`Plot ${plot.label} put back.`);
+      return true;
+    }
+    if (d && carrying) {
+      e.preventDefault();
+      setDrag({ ...carrying, dx: carrying.dx + d[0] * grid * scale, dy: carrying.dy + d[1] * grid * scale });
+      return true;
+    }
+    if (d && e.shiftKey) {
+      e.preventDefault();
+      const r = rectOf(plot);
+      const fp = footprint(r);
+      const spanX = Math.max(MIN_SIDE, snap(fp.maxX - fp.minX + d[0] * grid, grid));
+      const spanY = Math.max(MIN_SIDE, snap(fp.maxY - fp.minY + d[1] * grid, grid));
+      save(plot, spansToSize(r.rotation, spanX, spanY)).catch(() => undefined);
+      return true;
+    }
+    if (e.key === 'r' || e.key === 'R') {
+      e.preventDefault();
+      save(plot, { rotation: plot.rotation === 0 ? 90 : 0 }).catch(() => undefined);
+      return true;
+    }
+    return false;
+  }
+
+  async function addPlot() {
+    setNotice(null);
+    const size = defaultPlotSize(site.units);
+    const spot = findFreeSpot(site, plots.map(rectOf), size);
+    if (!spot) {
+      setNotice({ tone: 'error', text: 'There is no free space left for a new plot of the usual size. Make the site larger or move plots.' });
+      return;
+    }
+    try {
+      const created = await createPlot.mutateAsync({ label: nextLabel(plots), ...spot, ...size });
+      setSelectedId(created.id);
+      setNotice({ tone: 'success', text: `Plot ${created.label} added. Drag it into place and give it a label.` });
+    } catch (err) {
+      setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The plot could not be added.' });
+    }
+  }
+
+  if (plotsQuery.isPending) return <LoadingState label="Loading the map…" />;
+  if (plotsQuery.isError) {
+    return <ErrorState title="The map could not be loaded" message={plotsQuery.error.message} onRetry={() => void plotsQuery.refetch()} />;
+  }
+
+  const dragged = drag ? plots.find((p) => p.id === drag.plotId) : undefined;
+  const draggedRect = dragged ? candidate(dragged, drag) : null;
+  const blocked = Boolean(dragged && draggedRect && plots.some((p) => p.id !== dragged.id && overlaps(draggedRect, rectOf(p))));
+  const helpId = `map-help-${site.id}`;
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[1fr_24rem]">
+      <div className="min-w-0 space-y-3">
+        <div className="flex flex-wrap items-center gap-2">
+          {canEdit && (
+            <Button onClick={() => void addPlot()} loading={createPlot.isPending} loadingText="Adding…">
+              <SquarePlus className="size-5" aria-hidden="true" /> Add plot
+            </Button>
+          )}
+          <div className="ml-auto flex items-center gap-1" role="group" aria-label="Zoom">
+            <Button variant="secondary" aria-label="Zoom out" onClick={() => setZoom((z) => Math.max(0.5, z / 1.5))}>
+              <Minus className="size-5" aria-hidden="true" />
+            </Button>
+            <Button variant="secondary" aria-label="Zoom in" onClick={() => setZoom((z) => Math.min(8, z * 1.5))}>
+              <Plus className="size-5" aria-hidden="true" />
+            </Button>
+          </div>
+        </div>
+        <p id={helpId} className="text-sm text-stone">
+          {canEdit
+            ? 'Drag a plot to move it and the round grip to resize it. With the keyboard: Tab to a plot, Space to pick it up, arrows to move it, Space to put it down (Escape puts it back); Shift + arrows resize, R turns it.'
+            : 'Select a plot to see its details and neighbours.'}
+        </p>
+        <p className="sr-only" aria-live="assertive">
+          {announcement}
+        </p>
+        {notice && (
+          <div role={notice.tone === 'error' ? 'alert' : 'status'}>
+            <Alert tone={notice.tone}>{notice.text}</Alert>
+          </div>
+        )}
+        {blocked && (
+          <p className="font-medium text-clay-700" role="status">
+            Here it would overlap another plot: plots may touch but not overlap.
+          </p>
+        )}
+        <div ref={wrapRef} className="overflow-auto rounded-xl border border-paper-300 bg-white">
+          <DndContext sensors={sensors} onDragMove={onDragMove} onDragEnd={onDragEnd} onDragCancel={() => setDrag(null)}>
+            <div
+              className="map-grid relative"
+              style={{
+                width: site.width * scale,
+                height: site.length * scale,
+                ['--grid-px' as string]: `${Math.max(grid * scale, 4) < 6 ? grid * scale * 10 : grid * scale}px`,
+              }}
+              aria-label={`Map of ${site.name}`}
+              role="group"
+            >
+              {site.background?.metresPerPixel && (
+                <img
+                  src={site.background.url}
+                  alt=""
+                  className="pointer-events-none absolute top-0 left-0 opacity-50 select-none"
+                  style={{ width: site.background.widthPx * site.background.metresPerPixel * scale }}
+                />
+              )}
+              {plots.map((p) => {
+                const rect = candidate(p, drag);
+                let mark: PlotMark = null;
+                if (drag?.plotId === p.id && blocked) mark = 'blocked';
+                else if (p.id === selectedId) mark = 'selected';
+                else if (neighbourIds.has(p.id)) mark = 'neighbour';
+                return (
+                  <PlotShape
+                    key={p.id}
+                    plot={p}
+                    rect={rect}
+                    scale={scale}
+                    mark={mark}
+                    canEdit={canEdit}
+                    describedBy={helpId}
+                    onSelect={() => setSelectedId(p.id)}
+                    onBlur={() => {
+                      if (drag?.byKeyboard && drag.plotId === p.id) setDrag(null);
+                    }}
+                    onKeyCommand={(e) => onKeyCommand(p, e)}
+                  />
+                );
+              })}
+              {canEdit && selected && <ResizeHandle plot={selected} rect={candidate(selected, drag)} scale={scale} />}
+            </div>
+          </DndContext>
+        </div>
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <div className="flex items-end gap-4">
+            <ScaleBar scale={scale} units={site.units} />
+            <span className="text-sm font-medium text-stone">North is up ↑</span>
+          </div>
+          <span className="text-sm text-stone">
+            {plots.length} plots · path width {site.units === 'us' ? `${Math.round((site.pathWidth / 0.3048) * 10) / 10} ft` : `${site.pathWidth} m`}
+          </span>
+        </div>
+        <MapLegend />
+      </div>
+      <Card className="h-fit p-4 lg:sticky lg:top-4">
+        {selected ? (
+          <PlotInspector
+            plot={selected}
+            units={site.units}
+            canEdit={canEdit}
+            neighbours={neighboursOfSelected}
+            plotHref={plotHref(selected.id)}
+            onSave={(changes) => save(selected, changes)}
+            onRotate={() => void save(selected, { rotation: selected.rotation === 0 ? 90 : 0 }).catch(() => undefined)}
+            onDelete={async () => {
+              try {
+                await deletePlot.mutateAsync({ plotId: selected.id, version: selected.version });
+                setNotice({ tone: 'success', text: `Plot ${selected.label} was removed from the map.` });
+                setSelectedId(null);
+              } catch (err) {
+                setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The plot could not be removed.' });
+              }
+            }}
+          />
+        ) : plots.length === 0 ? (
+          <div>
+            <h2 className="text-xl font-semibold">An empty site</h2>
+            <p className="mt-1 text-stone">
+              {canEdit ? 'Add the first plot, or import a plan from a CSV file on the plots page.' : 'No plots have been drawn yet.'}
+            </p>
+          </div>
+        ) : (
+          <div>
+            <h2 className="text-xl font-semibold">No plot selected</h2>
+            <p className="mt-1 text-stone">Select a plot on the map to see its size, soil and neighbours.</p>
+          </div>
+        )}
+      </Card>
+    </div>
+  );
+}

@@ -1,0 +1,149 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { createDb } from '../../server/db/knex';
+import type { RunningServer } from '../../server/start-server';
+import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
+import { testConfig } from '../helpers/app';
+import { launchBrowser, openPage } from '../helpers/browser';
+import { startSeededServer } from '../helpers/server';
+
+let server: RunningServer;
+let browser: Browser;
+let closeBrowser: () => Promise<void>;
+const db = createDb(testConfig().databaseUrl);
+
+beforeAll(async () => {
+  server = await startSeededServer();
+  ({ browser, close: closeBrowser } = await launchBrowser());
+});
+afterAll(async () => {
+  await closeBrowser?.();
+  await server?.stop();
+  await db.destroy();
+});
+
+async function openMap(width: number) {
+  const w = await openPage(browser, width);
+  await w.page.goto(`${server.url}/sign-in`);
+  await w.page.getByLabel('E-mail').fill('maren@example.org');
+  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await w.page.getByRole('button', { name: 'Sign in' }).click();
+  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
+  const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
+  await w.page.goto(`${server.url}/clubs/${club.id}/map`);
+  await w.page.getByRole('heading', { name: 'Map of Mossgate Lane' }).waitFor();
+  return w;
+}
+
+const plotRow = (label: string) =>
+  db('plots as p').join('sites as s', 's.id', 'p.site_id').where({ 's.name': 'Mossgate Lane', 'p.label': label }).first('p.*');
+
+function plot(page: Page, label: string) {
+  return page.getByRole('button', { name: `Plot ${label}`, exact: true });
+}
+
+async function savedAfter(page: Page, action: () => Promise<void>) {
+  const saved = page.waitForResponse((r) => r.url().includes('/api/plots/') && r.request().method() === 'PATCH');
+  await action();
+  const res = await saved;
+  expect(res.status(), await res.text()).toBe(200);
+}
+
+describe('the map editor', () => {
+  it('moves a plot with a real pointer drag, snapped to the grid, and the move survives a reload', async () => {
+    const w = await openMap(1280);
+    await w.shot('map-desktop');
+    const before = await plotRow('A-1');
+    const box = (await plot(w.page, 'A-1').boundingBox())!;
+    await savedAfter(w.page, async () => {
+      await w.page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+      await w.page.mouse.down();
+      await w.page.mouse.move(box.x + box.width / 2 - 6, box.y + box.height / 2 - 5, { steps: 4 });
+      await w.page.mouse.move(box.x + box.width / 2 - 12, box.y + box.height / 2 - 10, { steps: 4 });
+      await w.page.mouse.up();
+    });
+    const after = await plotRow('A-1');
+    expect(after.x_m).toBeLessThan(before.x_m);
+    expect(after.y_m).toBeLessThan(before.y_m);
+    // Snapped to the site's 0.1 m grid.
+    expect(Math.abs(after.x_m * 10 - Math.round(after.x_m * 10))).toBeLessThan(1e-6);
+    expect(after.version).toBe(before.version + 1);
+
+    await w.page.reload();
+    await plot(w.page, 'A-1').waitFor();
+    const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
+    const moved = (await plot(w.page, 'A-1').boundingBox())!;
+    const scale = map.width / 34; // the site is 34 m wide
+    expect(Math.abs(moved.x - map.x - after.x_m * scale)).toBeLessThan(1.5);
+    expect(Math.abs(moved.y - map.y - after.y_m * scale)).toBeLessThan(1.5);
+    expect(w.errors).toEqual([]);
+  });
+
+  it('resizes the selected plot by dragging its grip', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('A-5');
+    await plot(w.page, 'A-5').click();
+    const grip = (await w.page.getByRole('button', { name: 'Resize plot A-5' }).boundingBox())!;
+    await savedAfter(w.page, async () => {
+      await w.page.mouse.move(grip.x + grip.width / 2, grip.y + grip.height / 2);
+      await w.page.mouse.down();
+      await w.page.mouse.move(grip.x + grip.width / 2 - 5, grip.y + grip.height / 2 - 10, { steps: 3 });
+      await w.page.mouse.move(grip.x + grip.width / 2 - 10, grip.y + grip.height / 2 - 20, { steps: 3 });
+      await w.page.mouse.up();
+    });
+    const after = await plotRow('A-5');
+    expect(after.width_m).toBeLessThan(before.width_m);
+    expect(after.length_m).toBeLessThan(before.length_m);
+    expect([after.x_m, after.y_m]).toEqual([before.x_m, before.y_m]);
+    const history = await db('plot_events').where({ plot_id: after.id }).orderBy('id', 'desc').first();
+    expect(history.kind).toBe('resized');
+    expect(w.errors).toEqual([]);
+  });
+
+  it('moves a plot with the keyboard only, one grid step per arrow press', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('B-3');
+    await plot(w.page, 'B-3').focus();
+    await savedAfter(w.page, async () => {
+      await w.page.keyboard.press('Space');
+      await w.page.keyboard.press('ArrowDown');
+      await w.page.keyboard.press('ArrowDown');
+      await w.page.keyboard.press('ArrowRight');
+      await w.page.keyboard.press('Space');
+    });
+    const after = await plotRow('B-3');
+    expect(after.y_m).toBeCloseTo(before.y_m + 0.2, 6);
+    expect(after.x_m).toBeCloseTo(before.x_m + 0.1, 6);
+
+    // Shift + arrow makes it one grid step wider.
+    await plot(w.page, 'B-3').focus();
+    await savedAfter(w.page, () => w.page.keyboard.press('Shift+ArrowRight'));
+    expect((await plotRow('B-3')).width_m).toBeCloseTo(before.width_m + 0.1, 6);
+    expect(w.errors).toEqual([]);
+  });
+
+  it('refuses a move onto another plot with a clear message and puts the plot back', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('A-7');
+    await w.page.getByRole('button', { name: 'Plot A-7', exact: true }).click();
+    await w.page.getByLabel('From west edge (m)').fill(String(before.x_m + 2));
+    const refused = w.page.waitForResponse((r) => r.url().includes('/api/plots/') && r.request().method() === 'PATCH');
+    await w.page.getByRole('button', { name: 'Save plot' }).click();
+    expect((await refused).status()).toBe(409);
+    await w.page.getByText('That would overlap plot A-8. Plots may touch but not overlap.').first().waitFor();
+    expect((await plotRow('A-7')).x_m).toBe(before.x_m);
+    await w.shot('map-overlap-refused');
+    expect(w.errors.filter((e) => !e.includes('409'))).toEqual([]);
+  });
+
+  it('shows the whole site on a phone, with neighbours of the selected plot', async () => {
+    const w = await openMap(390);
+    await plot(w.page, 'B-4').click();
+    await w.page.getByRole('heading', { name: 'Plot B-4' }).waitFor();
+    await w.page.getByText('to the north, across 0.9 m of path').waitFor();
+    await w.shot('map-phone');
+    const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
+    expect(map.width).toBeLessThanOrEqual(390);
+    expect(w.errors).toEqual([]);
+  });
+});
