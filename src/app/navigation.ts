@@ -1,4 +1,4 @@
-import { CalendarRange, HandHelping, House, Map as MapIcon, Shovel, Users } from 'lucide-react';
+import { CalendarRange, HandHelping, House, LandPlot, Map as MapIcon, Shovel, Users } from 'lucide-react';
 import type { ClubMembership } from '@shared/schemas/auth';
 import type { NavItem } from '@/components/layouts/app-layout';
 import { paths } from '@/lib/paths';
@@ -9,7 +9,8 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
   const items: NavItem[] = [{ to: paths.club(id), label: 'Home', icon: House, end: true }];
   if (club.roles.includes('coordinator')) {
     items.push(
-      { to: paths.map(id), label: 'Map', icon: MapIcon, comingSoon: true },
+      { to: paths.map(id), label: 'Map', icon: MapIcon },
+      { to: paths.sites(id), label: 'Sites', icon: LandPlot },
       { to: paths.springRound(id), label: 'Spring round', icon: CalendarRange, comingSoon: true },
       { to: paths.members(id), label: 'Members', icon: Users },
     );
