@@ -1,0 +1,72 @@
+import { z } from 'zod';
+import { EmailSchema } from './common';
+
+export const preferredSizes = ['small', 'medium', 'large', 'any'] as const;
+export const PreferredSizeSchema = z.enum(preferredSizes);
+export const preferredSizeLabels: Record<(typeof preferredSizes)[number], string> = {
+  small: 'Small (a raised bed or half plot)',
+  medium: 'Medium (about 3 × 6 m / 10 × 20 ft)',
+  large: 'Large (a full plot or more)',
+  any: 'Any size',
+};
+
+export const applicationStatuses = ['waiting', 'offered', 'allocated', 'removed', 'withdrawn'] as const;
+export const ApplicationStatusSchema = z.enum(applicationStatuses);
+
+/** The public "apply for a plot" form. `website` is a honeypot: people leave it empty, bots fill it. */
+export const ApplicationBodySchema = z.strictObject({
+  name: z.string().trim().min(1, 'Enter your name').max(120),
+  email: EmailSchema,
+  phone: z.string().trim().max(40, 'At most 40 characters').default(''),
+  preferredSize: PreferredSizeSchema.default('any'),
+  needsAccessible: z.boolean().default(false),
+  needsRaised: z.boolean().default(false),
+  preferredSiteId: z.number().int().positive().nullable().default(null),
+  notes: z.string().trim().max(1000, 'At most 1000 characters').default(''),
+  website: z.string().max(200).default(''),
+});
+export type ApplicationBody = z.infer<typeof ApplicationBodySchema>;
+
+/** What the public form needs to show: the club's name and its sites. */
+export const ApplyInfoSchema = z.object({
+  clubName: z.string(),
+  sites: z.array(z.object({ id: z.number().int(), name: z.string() })),
+});
+export type ApplyInfo = z.infer<typeof ApplyInfoSchema>;
+
+export const ApplicationReceiptSchema = z.object({ position: z.number().int(), message: z.string() });
+
+/** One person on the waitlist as the coordinator sees them. */
+export const WaitlistEntrySchema = z.object({
+  id: z.number().int(),
+  position: z.number().int().nullable(),
+  name: z.string(),
+  email: z.string(),
+  phone: z.string(),
+  preferredSize: PreferredSizeSchema,
+  needsAccessible: z.boolean(),
+  needsRaised: z.boolean(),
+  preferredSiteId: z.number().int().nullable(),
+  preferredSiteName: z.string().nullable(),
+  notes: z.string(),
+  status: ApplicationStatusSchema,
+  appliedAt: z.string(),
+  waitedDays: z.number().int(),
+});
+export type WaitlistEntry = z.infer<typeof WaitlistEntrySchema>;
+
+export const WaitlistQuerySchema = z.object({
+  status: z.enum(['waiting', 'offered', 'all']).default('waiting'),
+  needs: z.enum(['accessible', 'raised']).optional(),
+  siteId: z.coerce.number().int().positive().optional(),
+});
+
+/** Moving someone in the queue always needs a reason, which is kept. */
+export const WaitlistMoveBodySchema = z.strictObject({
+  toPosition: z.number().int().min(1, 'Positions start at 1'),
+  reason: z.string().trim().min(3, 'Give a reason (it is kept in the record)').max(300),
+});
+
+export const ApplicationRemoveBodySchema = z.strictObject({
+  reason: z.string().trim().min(3, 'Give a reason (it is kept in the record)').max(200),
+});

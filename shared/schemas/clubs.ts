@@ -1,0 +1,22 @@
+import { z } from 'zod';
+
+export const currencies = ['GBP', 'EUR', 'USD', 'CAD', 'AUD', 'NZD'] as const;
+
+/** The spring-round rules a club sets for itself. */
+export const ClubSettingsSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  slug: z.string(),
+  currency: z.enum(currencies),
+  offerDays: z.number().int().min(1, 'At least 1 day').max(60, 'At most 60 days'),
+  renewalDays: z.number().int().min(1, 'At least 1 day').max(90, 'At most 90 days'),
+  declinedOfferPolicy: z.enum(['end_of_list', 'remove']),
+  allowMultipleOffers: z.boolean(),
+});
+export type ClubSettings = z.infer<typeof ClubSettingsSchema>;
+
+export const ClubSettingsUpdateBodySchema = ClubSettingsSchema.omit({ id: true, slug: true })
+  .extend({ name: z.string().trim().min(1, 'Enter a name').max(160) })
+  .partial()
+  .strict();
+export type ClubSettingsUpdateBody = z.infer<typeof ClubSettingsUpdateBodySchema>;

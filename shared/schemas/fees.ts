@@ -1,0 +1,75 @@
+import { z } from 'zod';
+
+const minor = z.number().int('Whole minor units (pence, cents)').min(0, 'Cannot be negative').max(100_000_000);
+
+/** How a club charges for plots: per area or per kind of plot, with a concession and a deposit. */
+export const FeeScheduleSchema = z.strictObject({
+  basis: z.enum(['area', 'kind']),
+  areaUnit: z.enum(['m2', 'ft2']),
+  rateMinorPerArea: minor,
+  priceInGroundMinor: minor,
+  priceRaisedBedMinor: minor,
+  priceContainerMinor: minor,
+  priceSharedBedMinor: minor,
+  concessionPercent: z.number().int().min(0, '0 to 100').max(100, '0 to 100'),
+  depositMinor: minor,
+});
+export type FeeSchedule = z.infer<typeof FeeScheduleSchema>;
+
+export const paymentMethods = ['cash', 'cheque', 'bank_transfer', 'card'] as const;
+export const paymentMethodLabels: Record<(typeof paymentMethods)[number], string> = {
+  cash: 'Cash',
+  cheque: 'Cheque',
+  bank_transfer: 'Bank transfer',
+  card: 'Card',
+};
+
+export const PaymentBodySchema = z.strictObject({
+  kind: z.enum(['payment', 'refund']).default('payment'),
+  amountMinor: z.number().int('Whole minor units (pence, cents)').positive('Must be more than 0').max(100_000_000),
+  method: z.enum(paymentMethods),
+  paidOn: z.iso.date('A date like 2027-03-14'),
+  note: z.string().trim().max(300).default(''),
+});
+export type PaymentBody = z.infer<typeof PaymentBodySchema>;
+
+export const PaymentSchema = z.object({
+  id: z.number().int(),
+  kind: z.enum(['payment', 'refund']),
+  amountMinor: z.number().int(),
+  method: z.enum(paymentMethods),
+  paidOn: z.string(),
+  note: z.string(),
+  recordedBy: z.string().nullable(),
+});
+
+/** A fee with what has been paid and what is still owed. */
+export const FeeSchema = z.object({
+  id: z.number().int(),
+  seasonYear: z.number().int(),
+  userId: z.number().int(),
+  holderName: z.string(),
+  holderEmail: z.string(),
+  plotId: z.number().int(),
+  plotLabel: z.string(),
+  siteName: z.string(),
+  description: z.string(),
+  plotFeeMinor: z.number().int(),
+  depositMinor: z.number().int(),
+  isConcession: z.boolean(),
+  currency: z.string(),
+  dueOn: z.string(),
+  paidMinor: z.number().int(),
+  refundedMinor: z.number().int(),
+  depositHeldMinor: z.number().int(),
+  balanceMinor: z.number().int(),
+  payments: z.array(PaymentSchema),
+});
+export type Fee = z.infer<typeof FeeSchema>;
+
+export const FeesListSchema = z.object({
+  items: z.array(FeeSchema),
+  page: z.number().int(),
+  total: z.number().int(),
+  totals: z.object({ dueMinor: z.number().int(), paidMinor: z.number().int(), refundedMinor: z.number().int(), outstandingMinor: z.number().int() }),
+});
