@@ -15,7 +15,10 @@ import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
 import { membersRouter } from './routes/members';
 import { passwordResetsRouter } from './routes/password-resets';
 import { plotImportsRouter } from './routes/plot-imports';
+import { offersRouter } from './routes/offers';
 import { plotsRouter } from './routes/plots';
+import { renewalsRouter } from './routes/renewals';
+import { clubSeasonsRouter, seasonsRouter } from './routes/seasons';
 import { siteBackgroundsRouter } from './routes/site-backgrounds';
 import { clubSitesRouter, sitesRouter } from './routes/sites';
 import { sessionRouter } from './routes/session';
@@ -92,6 +95,10 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/sites', plotImportsRouter(deps));
   app.use('/api/sites', siteBackgroundsRouter(deps));
   app.use('/api/plots', plotsRouter(deps));
+  app.use('/api/clubs/:clubId/seasons', clubSeasonsRouter(deps));
+  app.use('/api/seasons', seasonsRouter(deps));
+  app.use('/api/offers', offersRouter(deps));
+  app.use('/api/renewals', renewalsRouter(deps));
   app.use('/api', apiNotFound);
 
   const indexHtml = path.join(config.staticDir, 'index.html');

@@ -2,7 +2,9 @@ import type { Server } from 'node:http';
 import type { Config } from './config';
 import { createDb } from './db/knex';
 import { createApp } from './app';
+import { startJobs } from './jobs';
 import { createMailer } from './mail/mailer';
+import { pino } from 'pino';
 
 export interface RunningServer {
   url: string;
@@ -15,6 +17,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   await db.migrate.latest();
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
   const built = createApp({ db, mailer, config });
+  const jobs = await startJobs(config.databaseUrl, db, pino({ level: config.logLevel }));
   const server: Server = await new Promise((resolve, reject) => {
     const s = built.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -27,6 +30,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
       await closed;
+      await jobs.stop();
       await built.close();
       mailer.close();
       await db.destroy();

@@ -68,3 +68,80 @@ export function passwordResetMail(p: { to: string; name: string; url: string; ex
     why: 'You got this because a password reset was asked for this address on Tillwell.',
   });
 }
+
+/** The renewal e-mail: keep the plot or give it up, before the deadline. */
+export function renewalMail(p: {
+  to: string;
+  name: string;
+  clubName: string;
+  year: number;
+  plotLabel: string;
+  siteName: string;
+  url: string;
+  deadline: Date;
+}) {
+  return renderMail({
+    to: p.to,
+    subject: `Keep plot ${p.plotLabel} for ${p.year}? Please answer by ${p.deadline.toUTCString().slice(0, 16)}`,
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `${p.clubName} is opening the ${p.year} season. You held plot ${p.plotLabel} at ${p.siteName} last season and are in good standing, so it is yours to keep.`,
+      `Follow the link to keep it or give it up. If we have no answer by ${p.deadline.toUTCString()}, the plot goes to the next person on the waitlist.`,
+    ],
+    action: { label: 'Keep or give up my plot', url: p.url },
+    why: `You got this because you held a plot at ${p.clubName} last season. This message is part of the spring round and cannot be switched off.`,
+  });
+}
+
+/** The offer e-mail: a free plot for someone on the waitlist, with its deadline and fee. */
+export function offerMail(p: {
+  to: string;
+  name: string;
+  clubName: string;
+  year: number;
+  plotLabel: string;
+  siteName: string;
+  size: string;
+  fee: string;
+  url: string;
+  deadline: Date;
+}) {
+  return renderMail({
+    to: p.to,
+    subject: `A plot for you at ${p.clubName}: ${p.plotLabel} (answer by ${p.deadline.toUTCString().slice(0, 16)})`,
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `Good news: plot ${p.plotLabel} at ${p.siteName} (${p.size}) is free for the ${p.year} season and you are next on the waitlist.`,
+      `The season's fee would be ${p.fee}.`,
+      `Follow the link to accept or decline. The offer stays open until ${p.deadline.toUTCString()}; after that the plot goes to the next person.`,
+    ],
+    action: { label: 'Accept or decline the plot', url: p.url },
+    why: `You got this because you are on the waitlist of ${p.clubName}.`,
+  });
+}
+
+/** Sent after an offer is accepted: what is owed, and a link to set a password when the person has none. */
+export function welcomeHolderMail(p: {
+  to: string;
+  name: string;
+  clubName: string;
+  plotLabel: string;
+  siteName: string;
+  year: number;
+  feeDue: string;
+  dueOn: string;
+  passwordUrl: string | null;
+}) {
+  return renderMail({
+    to: p.to,
+    subject: `Plot ${p.plotLabel} is yours for ${p.year}`,
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `Welcome to ${p.clubName}. Plot ${p.plotLabel} at ${p.siteName} is yours for the ${p.year} season.`,
+      `Your fee of ${p.feeDue} is due by ${p.dueOn}. The coordinator will tell you how to pay.`,
+      ...(p.passwordUrl ? ['To see your plot and keep its plot book, choose a password for your Tillwell account.'] : []),
+    ],
+    action: p.passwordUrl ? { label: 'Choose my password', url: p.passwordUrl } : undefined,
+    why: `You got this because you accepted a plot offer from ${p.clubName}.`,
+  });
+}

@@ -47,3 +47,14 @@ export async function completePasswordReset(
     return userId;
   });
 }
+
+/** A single-use link for a person who has no password yet to choose one (valid for a week). */
+export async function createPasswordLink(
+  db: Knex | Knex.Transaction,
+  opts: { userId: number; publicUrl: string; now?: Date },
+): Promise<string> {
+  const { token, hash } = newToken();
+  const expiresAt = new Date((opts.now ?? new Date()).getTime() + 7 * 24 * 60 * 60 * 1000);
+  await db('password_resets').insert({ user_id: opts.userId, token_hash: hash, expires_at: expiresAt });
+  return `${opts.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
+}

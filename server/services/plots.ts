@@ -145,6 +145,12 @@ export async function getPlotDetail(db: Db, plotId: number): Promise<PlotDetail>
     .whereNull('p.deleted_at')
     .first('p.*', 's.name as site_name', 's.units', 's.path_width_m as path_width_m_site');
   if (!row) throw notFound('The plot');
+  const holder = await db('allocations as a')
+    .join('seasons as se', 'se.id', 'a.season_id')
+    .join('users as u', 'u.id', 'a.user_id')
+    .where({ 'a.plot_id': plotId, 'a.status': 'active' })
+    .orderBy('se.year', 'desc')
+    .first('u.id', 'u.name', 'se.year');
   const siblings: PlotRow[] = await livePlots(db, row.site_id);
   const byId = new Map(siblings.map((s) => [s.id, s]));
   const pairs = neighbours(siblings.map(plotRect), row.path_width_m_site).filter((n) => n.a === plotId || n.b === plotId);
@@ -153,7 +159,7 @@ export async function getPlotDetail(db: Db, plotId: number): Promise<PlotDetail>
     ...toPlot(row),
     siteName: row.site_name,
     units: row.units,
-    holder: null,
+    holder: holder ? { userId: holder.id, name: holder.name, season: holder.year } : null,
     neighbours: pairs.map((n) => {
       const otherId = (n.a === plotId ? n.b : n.a) as number;
       const other = byId.get(otherId)!;

@@ -1,0 +1,65 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { OfferCreateBodySchema, SeasonCreateBodySchema } from '@shared/schemas/seasons';
+import type { Deps } from '../deps';
+import { parseInput } from '../errors';
+import { requireClubRole, requireRoleVia } from '../middleware/auth';
+import { createOffer } from '../services/offers';
+import { seasonPlotStates } from '../services/season-plots';
+import { clubOfSeason, getSeason, listSeasons, openSeason } from '../services/seasons';
+
+const PlotStatesQuerySchema = z.object({ siteId: z.coerce.number().int().positive() });
+
+/** A club's seasons (list, open one), mounted at /api/clubs/:clubId/seasons. */
+export function clubSeasonsRouter({ db, mailer, config }: Deps): Router {
+  const router = Router({ mergeParams: true });
+  router.get('/', requireClubRole(db), async (req, res) => {
+    res.json(await listSeasons(db, req.clubId!));
+  });
+  router.post('/', requireClubRole(db, 'coordinator'), async (req, res) => {
+    const body = parseInput(SeasonCreateBodySchema, req.body);
+    const result = await openSeason(db, mailer, {
+      clubId: req.clubId!,
+      userId: req.session.userId!,
+      year: body.year,
+      renewalDeadline: new Date(body.renewalDeadline),
+      publicUrl: config.publicUrl,
+    });
+    res.status(201).json(result);
+  });
+  return router;
+}
+
+/** One season: its counts, where each plot stands, and making offers. Mounted at /api/seasons. */
+export function seasonsRouter({ db, mailer, config }: Deps): Router {
+  const router = Router();
+  const member = requireRoleVia(db, 'seasonId', clubOfSeason, 'The season');
+  const coordinator = requireRoleVia(db, 'seasonId', clubOfSeason, 'The season', 'coordinator');
+
+  router.get('/:seasonId', member, async (req, res) => {
+    res.json(await getSeason(db, Number(req.params.seasonId)));
+  });
+
+  router.get('/:seasonId/plot-states', member, async (req, res) => {
+    const { siteId } = parseInput(PlotStatesQuerySchema, req.query);
+    const site = await db('sites').where({ id: siteId, club_id: req.clubId }).first('id');
+    if (!site) return res.json({ items: [], page: 1, total: 0 });
+    const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId);
+    res.json({ items, page: 1, total: items.length });
+  });
+
+  router.post('/:seasonId/offers', coordinator, async (req, res) => {
+    const body = parseInput(OfferCreateBodySchema, req.body);
+    const offer = await createOffer(db, mailer, {
+      seasonId: Number(req.params.seasonId),
+      plotId: body.plotId,
+      applicationId: body.applicationId,
+      userId: req.session.userId!,
+      deadline: body.deadline ? new Date(body.deadline) : undefined,
+      publicUrl: config.publicUrl,
+    });
+    res.status(201).json(offer);
+  });
+
+  return router;
+}

@@ -1,0 +1,250 @@
+import type { Knex } from 'knex';
+import { formatMoney } from '@shared/fees/compute';
+import type { LinkPreview, Offer } from '@shared/schemas/seasons';
+import { AppError, notFound } from '../errors';
+import type { Db } from '../db/knex';
+import type { Mailer } from '../mail/mailer';
+import { offerMail, welcomeHolderMail } from '../mail/templates';
+import { createFeeForAllocation, quotePlotFee } from './fees';
+import { plotFacts } from './link-preview';
+import { grantRoles } from './memberships';
+import { createPasswordLink } from './password-resets';
+import { recordPlotEvent } from './plot-events';
+import { plotBlocker } from './season-plots';
+import { hashToken, newToken } from './tokens';
+
+const DAY = 24 * 60 * 60 * 1000;
+
+function toOffer(r: { id: number; season_id: number; plot_id: number; application_id: number; status: Offer['status']; deadline: Date; created_at: Date }): Offer {
+  return {
+    id: r.id,
+    seasonId: r.season_id,
+    plotId: r.plot_id,
+    applicationId: r.application_id,
+    status: r.status,
+    deadline: r.deadline.toISOString(),
+    createdAt: r.created_at.toISOString(),
+  };
+}
+
+/** The club an offer belongs to, or null. */
+export async function clubOfOffer(db: Db, offerId: number): Promise<number | null> {
+  const row = await db('offers as o').join('seasons as s', 's.id', 'o.season_id').where('o.id', offerId).first('s.club_id');
+  return row ? row.club_id : null;
+}
+
+/**
+ * Offers a free plot to someone on the waitlist. The plot row is locked so two coordinators
+ * dropping onto the same plot at once get one offer and one refusal; unique indexes back it up.
+ */
+export async function createOffer(
+  db: Knex,
+  mailer: Mailer,
+  opts: { seasonId: number; plotId: number; applicationId: number; userId: number; deadline?: Date; publicUrl: string; now?: Date },
+): Promise<Offer> {
+  const now = opts.now ?? new Date();
+  let mail: Parameters<typeof offerMail>[0] | null = null;
+  const offer = await db
+    .transaction(async (trx) => {
+      const season = await trx('seasons as s').join('clubs as c', 'c.id', 's.club_id').where('s.id', opts.seasonId).first('s.*', 'c.name as club_name', 'c.offer_days', 'c.allow_multiple_offers', 'c.currency');
+      if (!season) throw notFound('The season');
+      const plot = await trx('plots as p')
+        .join('sites as st', 'st.id', 'p.site_id')
+        .where('p.id', opts.plotId)
+        .whereNull('p.deleted_at')
+        .forUpdate('p')
+        .first('p.id', 'p.label', 'st.club_id');
+      if (!plot || plot.club_id !== season.club_id) {
+        throw new AppError('validation_failed', 'That plot is not on one of this club’s sites.', { plotId: 'Unknown plot' });
+      }
+      const blocker = await plotBlocker(trx, opts.seasonId, opts.plotId);
+      if (blocker) throw new AppError('conflict', `Plot ${plot.label} cannot be offered: ${blocker}.`);
+      const app = await trx('applications').where({ id: opts.applicationId }).forUpdate().first();
+      if (!app || app.club_id !== season.club_id) {
+        throw new AppError('validation_failed', 'That person is not on this club’s waitlist.', { applicationId: 'Unknown person' });
+      }
+      const mayHoldMore = season.allow_multiple_offers && app.status === 'offered';
+      if (app.status !== 'waiting' && !mayHoldMore) {
+        throw new AppError(
+          'conflict',
+          app.status === 'offered'
+            ? `${app.name} already has an open offer; the club allows one at a time.`
+            : `${app.name} is no longer waiting (${app.status}).`,
+        );
+      }
+      const deadline = opts.deadline ?? new Date(now.getTime() + season.offer_days * DAY);
+      if (deadline <= now) throw new AppError('validation_failed', 'The deadline must be in the future.', { deadline: 'Choose a later date' });
+      const { token, hash } = newToken();
+      const [row] = await trx('offers')
+        .insert({
+          season_id: opts.seasonId,
+          plot_id: opts.plotId,
+          application_id: app.id,
+          token_hash: hash,
+          deadline,
+          is_exclusive: !season.allow_multiple_offers,
+          created_by_user_id: opts.userId,
+        })
+        .returning('*');
+      await trx('applications').where({ id: app.id }).update({ status: 'offered', updated_at: now });
+      await recordPlotEvent(trx, {
+        plotId: plot.id,
+        userId: opts.userId,
+        kind: 'offered',
+        details: { summary: `Offered to ${app.name} for ${season.year}, answer by ${deadline.toISOString().slice(0, 10)}` },
+      });
+      const quote = await quotePlotFee(trx, season.club_id, plot.id);
+      const facts = await plotFacts(trx, plot.id);
+      mail = {
+        to: app.email,
+        name: app.name,
+        clubName: season.club_name,
+        year: season.year,
+        plotLabel: facts.label,
+        siteName: facts.siteName,
+        size: `${facts.size}, ${facts.area}`,
+        fee: `${formatMoney(quote.plotFeeMinor, quote.currency)} plus a refundable deposit of ${formatMoney(quote.depositMinor, quote.currency)}`,
+        url: `${opts.publicUrl}/respond/offer?token=${encodeURIComponent(token)}`,
+        deadline,
+      };
+      return toOffer(row);
+    })
+    .catch((err: { code?: string; constraint?: string }) => {
+      // The partial unique indexes are the last word if two requests slipped past the checks.
+      if (err?.code === '23505' && err.constraint === 'offers_one_per_plot') {
+        throw new AppError('conflict', 'Someone else has just offered this plot.');
+      }
+      if (err?.code === '23505' && err.constraint === 'offers_one_per_person') {
+        throw new AppError('conflict', 'That person has just been offered another plot.');
+      }
+      throw err;
+    });
+  if (mail) await mailer.send(offerMail(mail));
+  return offer;
+}
+
+async function findOffer(db: Knex | Knex.Transaction, token: string, lock = false) {
+  const q = db('offers as o')
+    .join('applications as a', 'a.id', 'o.application_id')
+    .join('seasons as s', 's.id', 'o.season_id')
+    .join('clubs as c', 'c.id', 's.club_id')
+    .where('o.token_hash', hashToken(token))
+    .first('o.*', 'a.name', 'a.email', 'a.user_id', 's.year', 's.club_id', 'c.name as club_name', 'c.declined_offer_policy');
+  if (lock) q.forUpdate('o');
+  const row = await q;
+  if (!row) throw notFound('That offer link');
+  return row;
+}
+
+function assertPending(row: { status: string; deadline: Date }, now: Date) {
+  if (row.status !== 'pending') throw new AppError('gone', `This offer has already been ${row.status}.`);
+  if (row.deadline <= now) throw new AppError('gone', 'This offer has expired; the plot has gone to the next person.');
+}
+
+/** What the offer page shows. */
+export async function previewOffer(db: Knex, token: string): Promise<LinkPreview> {
+  const o = await findOffer(db, token);
+  const quote = await quotePlotFee(db, o.club_id, o.plot_id);
+  return {
+    kind: 'offer',
+    status: o.status,
+    clubName: o.club_name,
+    name: o.name,
+    year: o.year,
+    plot: await plotFacts(db, o.plot_id),
+    deadline: o.deadline.toISOString(),
+    fee: { plotFeeMinor: quote.plotFeeMinor, depositMinor: quote.depositMinor, currency: quote.currency },
+  };
+}
+
+/**
+ * Accepts an offer once, before its deadline: the person becomes a plot holder of the club for
+ * the season (an account is made for them if they have none) and the fee becomes due.
+ */
+export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: string; publicUrl: string; now?: Date }) {
+  const now = opts.now ?? new Date();
+  const outcome = await db.transaction(async (trx) => {
+    const o = await findOffer(trx, opts.token, true);
+    assertPending(o, now);
+    let user = await trx('users').whereRaw('lower(email) = lower(?)', [o.email]).first('id', 'password_hash');
+    if (!user) {
+      [user] = await trx('users').insert({ email: o.email.toLowerCase(), name: o.name, password_hash: null }).returning(['id', 'password_hash']);
+    }
+    await grantRoles(trx, o.club_id, user.id, ['plot_holder']);
+    const [allocation] = await trx('allocations')
+      .insert({ season_id: o.season_id, plot_id: o.plot_id, user_id: user.id, source: 'offer' })
+      .returning('id');
+    const feeId = await createFeeForAllocation(trx, { allocationId: allocation.id, now });
+    await trx('offers').where({ id: o.id }).update({ status: 'accepted', answered_at: now });
+    await trx('applications').where({ id: o.application_id }).update({ status: 'allocated', user_id: user.id, updated_at: now });
+    await recordPlotEvent(trx, {
+      plotId: o.plot_id,
+      userId: user.id,
+      kind: 'accepted',
+      details: { summary: `${o.name} accepted the offer and holds the plot for ${o.year}` },
+    });
+    const fee = await trx('fees').where({ id: feeId }).first();
+    const passwordUrl = user.password_hash ? null : await createPasswordLink(trx, { userId: user.id, publicUrl: opts.publicUrl, now });
+    const facts = await plotFacts(trx, o.plot_id);
+    return {
+      mail: welcomeHolderMail({
+        to: o.email,
+        name: o.name,
+        clubName: o.club_name,
+        plotLabel: facts.label,
+        siteName: facts.siteName,
+        year: o.year,
+        feeDue: formatMoney(fee.plot_fee_minor + fee.deposit_minor, fee.currency),
+        dueOn: fee.due_on,
+        passwordUrl,
+      }),
+      message: `Plot ${facts.label} is yours for ${o.year}. We have sent you an e-mail with what happens next.`,
+    };
+  });
+  await mailer.send(outcome.mail);
+  return { status: 'accepted', message: outcome.message };
+}
+
+/** Moves a person who declined or let an offer lapse, as the club's policy says; inside the caller's transaction. */
+export async function applyDeclinePolicy(
+  trx: Knex.Transaction,
+  o: { application_id: number; declined_offer_policy: string },
+  kind: 'declined' | 'lapsed',
+  now: Date,
+) {
+  if (o.declined_offer_policy === 'remove') {
+    await trx('applications')
+      .where({ id: o.application_id })
+      .update({ status: 'removed', removed_reason: kind === 'declined' ? 'Declined an offer' : 'Did not answer an offer in time', updated_at: now });
+    await trx('waitlist_moves').insert({ application_id: o.application_id, kind: 'removed', reason: `Offer ${kind}; the club removes people who ${kind === 'declined' ? 'decline' : 'do not answer'}` });
+  } else {
+    await trx('applications').where({ id: o.application_id }).update({ status: 'waiting', queue_at: now, updated_at: now });
+    await trx('waitlist_moves').insert({ application_id: o.application_id, kind: `${kind}_moved`, reason: `Offer ${kind}; moved to the end of the list (club rule)` });
+  }
+}
+
+/** Declines an offer: the plot is free again and the person is moved or removed as the club's rule says. */
+export async function declineOffer(db: Knex, opts: { token: string; now?: Date }) {
+  const now = opts.now ?? new Date();
+  return db.transaction(async (trx) => {
+    const o = await findOffer(trx, opts.token, true);
+    assertPending(o, now);
+    await trx('offers').where({ id: o.id }).update({ status: 'declined', answered_at: now });
+    await applyDeclinePolicy(trx, o, 'declined', now);
+    await recordPlotEvent(trx, { plotId: o.plot_id, userId: null, kind: 'declined', details: { summary: `${o.name} declined the offer; the plot is free` } });
+    return { status: 'declined', message: 'Thank you for letting us know. The plot will be offered to the next person.' };
+  });
+}
+
+/** The coordinator takes back an open offer; the person keeps their place on the waitlist. */
+export async function withdrawOffer(db: Knex, opts: { offerId: number; userId: number; now?: Date }) {
+  const now = opts.now ?? new Date();
+  await db.transaction(async (trx) => {
+    const o = await trx('offers as o').join('applications as a', 'a.id', 'o.application_id').where('o.id', opts.offerId).forUpdate('o').first('o.*', 'a.name');
+    if (!o) throw notFound('The offer');
+    if (o.status !== 'pending') throw new AppError('conflict', `This offer has already been ${o.status}.`);
+    await trx('offers').where({ id: o.id }).update({ status: 'withdrawn', answered_at: now });
+    await trx('applications').where({ id: o.application_id }).update({ status: 'waiting', updated_at: now });
+    await recordPlotEvent(trx, { plotId: o.plot_id, userId: opts.userId, kind: 'offer_withdrawn', details: { summary: `Offer to ${o.name} withdrawn` } });
+  });
+}

@@ -1,0 +1,58 @@
+import type { Knex } from 'knex';
+import type { PlotSeasonState } from '@shared/schemas/seasons';
+import type { Db } from '../db/knex';
+
+/** Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free. */
+export async function seasonPlotStates(db: Db, seasonId: number, siteId: number): Promise<PlotSeasonState[]> {
+  const plots = await db('plots').where({ site_id: siteId }).whereNull('deleted_at').select('id');
+  const holders = await db('allocations as a')
+    .join('users as u', 'u.id', 'a.user_id')
+    .where({ 'a.season_id': seasonId, 'a.status': 'active' })
+    .select('a.plot_id', 'u.id as user_id', 'u.name');
+  const offers = await db('offers as o')
+    .join('applications as ap', 'ap.id', 'o.application_id')
+    .where({ 'o.season_id': seasonId, 'o.status': 'pending' })
+    .select('o.id', 'o.plot_id', 'o.application_id', 'o.deadline', 'ap.name');
+  const renewals = await db('renewals as r')
+    .join('users as u', 'u.id', 'r.user_id')
+    .where({ 'r.season_id': seasonId, 'r.status': 'pending' })
+    .select('r.id', 'r.plot_id', 'r.deadline', 'u.name');
+  const byPlot = <T extends { plot_id: number }>(rows: T[]) => new Map(rows.map((r) => [r.plot_id, r]));
+  const h = byPlot(holders);
+  const o = byPlot(offers);
+  const r = byPlot(renewals);
+  return plots.map(({ id }) => {
+    const holder = h.get(id);
+    const offer = o.get(id);
+    const renewal = r.get(id);
+    return {
+      plotId: id,
+      status: holder ? 'taken' : offer ? 'offered' : renewal ? 'renewal_pending' : 'free',
+      holder: holder ? { userId: holder.user_id, name: holder.name } : null,
+      offer: offer
+        ? { id: offer.id, applicationId: offer.application_id, name: offer.name, deadline: new Date(offer.deadline).toISOString() }
+        : null,
+      renewal: renewal ? { id: renewal.id, name: renewal.name, deadline: new Date(renewal.deadline).toISOString() } : null,
+    };
+  });
+}
+
+/** Refuses, with a 409-worthy message, a plot that is not free in the season (call with the plot row locked). */
+export async function plotBlocker(trx: Knex.Transaction, seasonId: number, plotId: number): Promise<string | null> {
+  const taken = await trx('allocations as a')
+    .join('users as u', 'u.id', 'a.user_id')
+    .where({ 'a.season_id': seasonId, 'a.plot_id': plotId, 'a.status': 'active' })
+    .first('u.name');
+  if (taken) return `it is held by ${taken.name} this season`;
+  const offered = await trx('offers as o')
+    .join('applications as ap', 'ap.id', 'o.application_id')
+    .where({ 'o.season_id': seasonId, 'o.plot_id': plotId, 'o.status': 'pending' })
+    .first('ap.name');
+  if (offered) return `it is already offered to ${offered.name}`;
+  const renewing = await trx('renewals as r')
+    .join('users as u', 'u.id', 'r.user_id')
+    .where({ 'r.season_id': seasonId, 'r.plot_id': plotId, 'r.status': 'pending' })
+    .first('u.name');
+  if (renewing) return `${renewing.name} has not yet answered the renewal for it`;
+  return null;
+}

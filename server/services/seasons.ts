@@ -1,0 +1,142 @@
+import type { Knex } from 'knex';
+import type { Season } from '@shared/schemas/seasons';
+import { AppError, notFound } from '../errors';
+import type { Db } from '../db/knex';
+import type { Mailer } from '../mail/mailer';
+import { renewalMail } from '../mail/templates';
+import { recordPlotEvent } from './plot-events';
+import { newToken } from './tokens';
+
+/** The club a season belongs to, or null. */
+export async function clubOfSeason(db: Db, seasonId: number): Promise<number | null> {
+  const row = await db('seasons').where({ id: seasonId }).first('club_id');
+  return row ? row.club_id : null;
+}
+
+async function withCounts(db: Db, rows: Array<{ id: number; club_id: number; year: number; renewal_deadline: Date | null; created_at: Date }>): Promise<Season[]> {
+  const ids = rows.map((r) => r.id);
+  const renewals = await db('renewals').whereIn('season_id', ids).groupBy('season_id', 'status').select('season_id', 'status').count({ n: '*' });
+  const offers = await db('offers').whereIn('season_id', ids).where({ status: 'pending' }).groupBy('season_id').select('season_id').count({ n: '*' });
+  const taken = await db('allocations').whereIn('season_id', ids).where({ status: 'active' }).groupBy('season_id').select('season_id').count({ n: '*' });
+  const pick = (list: Array<Record<string, unknown>>, id: number, status?: string) =>
+    Number(list.find((r) => r.season_id === id && (status === undefined || r.status === status))?.n ?? 0);
+  return rows.map((r) => ({
+    id: r.id,
+    clubId: r.club_id,
+    year: r.year,
+    renewalDeadline: r.renewal_deadline ? r.renewal_deadline.toISOString() : null,
+    createdAt: r.created_at.toISOString(),
+    counts: {
+      renewalsPending: pick(renewals, r.id, 'pending'),
+      renewalsKept: pick(renewals, r.id, 'kept'),
+      renewalsReleased: pick(renewals, r.id, 'released'),
+      renewalsLapsed: pick(renewals, r.id, 'lapsed'),
+      offersPending: pick(offers, r.id),
+      taken: pick(taken, r.id),
+    },
+  }));
+}
+
+/** A club's seasons, newest first. */
+export async function listSeasons(db: Db, clubId: number) {
+  const rows = await db('seasons').where({ club_id: clubId }).orderBy('year', 'desc');
+  return { items: await withCounts(db, rows), page: 1, total: rows.length };
+}
+
+/** One season with its counts. */
+export async function getSeason(db: Db, seasonId: number): Promise<Season> {
+  const row = await db('seasons').where({ id: seasonId }).first();
+  if (!row) throw notFound('The season');
+  return (await withCounts(db, [row]))[0];
+}
+
+/** Holders of the club's latest season before `year`, each with whether they are in good standing (fee paid). */
+async function previousHolders(trx: Knex.Transaction, clubId: number, year: number) {
+  const prev = await trx('seasons').where({ club_id: clubId }).where('year', '<', year).orderBy('year', 'desc').first('id', 'year');
+  if (!prev) return [];
+  const rows = await trx('allocations as a')
+    .join('users as u', 'u.id', 'a.user_id')
+    .join('plots as p', 'p.id', 'a.plot_id')
+    .join('sites as s', 's.id', 'p.site_id')
+    .leftJoin('fees as f', 'f.allocation_id', 'a.id')
+    .where({ 'a.season_id': prev.id, 'a.status': 'active' })
+    .whereNull('p.deleted_at')
+    .select(
+      'a.id as allocation_id',
+      'a.plot_id',
+      'u.id as user_id',
+      'u.name',
+      'u.email',
+      'p.label',
+      's.name as site_name',
+      trx.raw(
+        `coalesce(f.plot_fee_minor + f.deposit_minor - (select coalesce(sum(amount_minor), 0) from payments where fee_id = f.id and kind = 'payment'), 0) as owed`,
+      ),
+    );
+  return rows.map((r) => ({ ...r, owed: Number(r.owed) }));
+}
+
+/**
+ * Opens a season: last season's holders in good standing get a renewal link with the deadline;
+ * holders who still owe fees get none, so their plots are free. E-mails go out after the commit.
+ */
+export async function openSeason(
+  db: Knex,
+  mailer: Mailer,
+  opts: { clubId: number; userId: number; year: number; renewalDeadline: Date; publicUrl: string; now?: Date },
+) {
+  const now = opts.now ?? new Date();
+  if (opts.renewalDeadline <= now) {
+    throw new AppError('validation_failed', 'The renewal deadline must be in the future.', { renewalDeadline: 'Choose a later date' });
+  }
+  const club = await db('clubs').where({ id: opts.clubId }).first('name');
+  const outgoing: Array<Parameters<typeof renewalMail>[0]> = [];
+  const notRenewed: Array<{ name: string; plotLabel: string; reason: string }> = [];
+  const season = await db.transaction(async (trx) => {
+    const exists = await trx('seasons').where({ club_id: opts.clubId, year: opts.year }).first('id');
+    if (exists) throw new AppError('conflict', `The ${opts.year} season is already open.`, { year: 'Already open' });
+    const [row] = await trx('seasons')
+      .insert({ club_id: opts.clubId, year: opts.year, renewal_deadline: opts.renewalDeadline, opened_by_user_id: opts.userId })
+      .returning('*');
+    for (const h of await previousHolders(trx, opts.clubId, opts.year)) {
+      if (h.owed > 0) {
+        notRenewed.push({ name: h.name, plotLabel: h.label, reason: 'Last season’s fee is not fully paid' });
+        await recordPlotEvent(trx, {
+          plotId: h.plot_id,
+          userId: opts.userId,
+          kind: 'not_renewed',
+          details: { summary: `Not offered for renewal to ${h.name} for ${opts.year}: last season’s fee is not fully paid` },
+        });
+        continue;
+      }
+      const { token, hash } = newToken();
+      await trx('renewals').insert({
+        season_id: row.id,
+        previous_allocation_id: h.allocation_id,
+        plot_id: h.plot_id,
+        user_id: h.user_id,
+        token_hash: hash,
+        deadline: opts.renewalDeadline,
+      });
+      await recordPlotEvent(trx, {
+        plotId: h.plot_id,
+        userId: opts.userId,
+        kind: 'renewal_sent',
+        details: { summary: `Renewal for ${opts.year} sent to ${h.name}, answer by ${opts.renewalDeadline.toISOString().slice(0, 10)}` },
+      });
+      outgoing.push({
+        to: h.email,
+        name: h.name,
+        clubName: club.name,
+        year: opts.year,
+        plotLabel: h.label,
+        siteName: h.site_name,
+        url: `${opts.publicUrl}/respond/renewal?token=${encodeURIComponent(token)}`,
+        deadline: opts.renewalDeadline,
+      });
+    }
+    return row;
+  });
+  for (const m of outgoing) await mailer.send(renewalMail(m));
+  return { season: await getSeason(db, season.id), renewalsSent: outgoing.length, notRenewed };
+}
