@@ -11,7 +11,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
     items.push(
       { to: paths.map(id), label: 'Map', icon: MapIcon },
       { to: paths.sites(id), label: 'Sites', icon: LandPlot },
-      { to: paths.springRound(id), label: 'Spring round', icon: CalendarRange, comingSoon: true },
+      { to: paths.springRound(id), label: 'Spring round', icon: CalendarRange },
       { to: paths.members(id), label: 'Members', icon: Users },
     );
   }

@@ -39,6 +39,14 @@ export const router = createBrowserRouter([
             lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })),
           },
           { path: 'invite', lazy: () => import('./routes/invite').then((m) => ({ Component: m.InviteRoute })) },
+          {
+            path: 'respond/offer',
+            lazy: () => import('./routes/respond').then((m) => ({ Component: m.OfferResponseRoute })),
+          },
+          {
+            path: 'respond/renewal',
+            lazy: () => import('./routes/respond').then((m) => ({ Component: m.RenewalResponseRoute })),
+          },
         ],
       },
       {
@@ -54,9 +62,7 @@ export const router = createBrowserRouter([
               { path: 'map', lazy: () => import('./routes/map').then((m) => ({ Component: m.MapRoute })) },
               {
                 path: 'spring-round',
-                element: (
-                  <ComingSoonRoute title="Spring round" description="Offering free plots to the waiting list each spring." />
-                ),
+                lazy: () => import('./routes/spring-round').then((m) => ({ Component: m.SpringRoundRoute })),
               },
               {
                 path: 'my-plot',

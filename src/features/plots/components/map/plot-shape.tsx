@@ -20,7 +20,7 @@ export interface PlotShapeProps {
 }
 
 // Kind is told by outline shape, never by colour alone.
-const kindClasses: Record<Plot['kind'], string> = {
+export const kindClasses: Record<Plot['kind'], string> = {
   in_ground: 'rounded-sm border-2 border-soil/70',
   raised_bed: 'rounded-md border-[5px] border-double border-soil/80',
   container: 'rounded-2xl border-2 border-dashed border-soil/80',

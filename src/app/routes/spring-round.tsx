@@ -1,0 +1,130 @@
+import { CalendarRange } from 'lucide-react';
+import { useSearchParams } from 'react-router-dom';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorState } from '@/components/ui/error-state';
+import { PageHeader } from '@/components/ui/page-header';
+import { LoadingState } from '@/components/ui/spinner';
+import { AllocationMap, type AllocationPerson } from '@/features/plots/components/map/allocation-map';
+import { useSites } from '@/features/sites/api/get-sites';
+import { useCreateOffer } from '@/features/spring-round/api/create-offer';
+import { usePlotStates } from '@/features/spring-round/api/get-plot-states';
+import { useSeasons } from '@/features/spring-round/api/get-seasons';
+import { useWaitingPeople } from '@/features/spring-round/api/get-waiting-people';
+import { useWithdrawOffer } from '@/features/spring-round/api/withdraw-offer';
+import { OpenSeasonForm } from '@/features/spring-round/components/open-season-form';
+import { SeasonSummary } from '@/features/spring-round/components/season-summary';
+import { paths } from '@/lib/paths';
+import type { Season } from '@shared/schemas/seasons';
+import type { Site } from '@shared/schemas/sites';
+import { useClubContext } from '../app-context';
+
+const sizeWords = { small: 'small plot', medium: 'medium plot', large: 'large plot', any: 'any size' } as const;
+
+function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; site: Site }) {
+  const states = usePlotStates(season.id, site.id);
+  const waiting = useWaitingPeople(clubId);
+  const offer = useCreateOffer(season.id, () => waiting.refetch());
+  const withdraw = useWithdrawOffer(() => waiting.refetch());
+  if (states.isPending || waiting.isPending) return <LoadingState label="Loading the season…" />;
+  if (states.isError) return <ErrorState title="The season could not be loaded" message={states.error.message} onRetry={() => void states.refetch()} />;
+  if (waiting.isError) return <ErrorState title="The waitlist could not be loaded" message={waiting.error.message} onRetry={() => void waiting.refetch()} />;
+  const people: AllocationPerson[] = waiting.data.items.map((w) => ({
+    id: w.id,
+    name: w.name,
+    position: w.position,
+    detail: [
+      `waited ${w.waitedDays} days`,
+      sizeWords[w.preferredSize],
+      w.needsRaised ? 'raised bed' : null,
+      w.preferredSiteName ? `prefers ${w.preferredSiteName}` : null,
+    ]
+      .filter(Boolean)
+      .join(' · '),
+    preferredSize: w.preferredSize,
+    needsAccessible: w.needsAccessible,
+    needsRaised: w.needsRaised,
+    preferredSiteId: w.preferredSiteId,
+  }));
+  return (
+    <AllocationMap
+      site={site}
+      states={states.data.items}
+      people={people}
+      plotHref={(plotId) => paths.plot(clubId, plotId)}
+      onOffer={(plotId, applicationId) => offer.mutateAsync({ plotId, applicationId })}
+      onWithdraw={(offerId) => withdraw.mutateAsync(offerId)}
+    />
+  );
+}
+
+/** `/clubs/:clubId/spring-round`: open the season, watch renewals, and offer free plots from the map. */
+export function SpringRoundRoute() {
+  const { club } = useClubContext();
+  const seasons = useSeasons(club.clubId);
+  const sites = useSites(club.clubId);
+  const [params, setParams] = useSearchParams();
+
+  if (seasons.isPending || sites.isPending) return <LoadingState label="Loading the spring round…" />;
+  if (seasons.isError) return <ErrorState title="The seasons could not be loaded" message={seasons.error.message} onRetry={() => void seasons.refetch()} />;
+  if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
+
+  const current = seasons.data.items[0];
+  const nextYear = current ? current.year + 1 : new Date().getFullYear() + 1;
+  const site = sites.data.items.find((s) => s.id === Number(params.get('site'))) ?? sites.data.items[0];
+
+  return (
+    <div className="space-y-8">
+      <PageHeader
+        eyebrow={club.clubName}
+        title={current ? `Spring round ${current.year}` : 'Spring round'}
+        description="Renew last season's plot holders, then offer the free plots to the waitlist in fair order."
+      />
+      {current ? (
+        <>
+          <SeasonSummary season={current} />
+          {site ? (
+            <section aria-labelledby="season-map" className="space-y-3">
+              <h2 id="season-map" className="text-xl font-semibold">
+                Plots this season
+              </h2>
+              {sites.data.items.length > 1 && (
+                <nav aria-label="Sites" className="flex flex-wrap gap-2">
+                  {sites.data.items.map((s) => (
+                    <button
+                      key={s.id}
+                      type="button"
+                      aria-current={s.id === site.id ? 'page' : undefined}
+                      onClick={() => setParams({ site: String(s.id) })}
+                      className={`min-h-11 rounded-full border px-4 font-medium ${s.id === site.id ? 'border-leaf bg-leaf text-white' : 'border-paper-300 bg-white text-soil hover:bg-paper-100'}`}
+                    >
+                      {s.name}
+                    </button>
+                  ))}
+                </nav>
+              )}
+              <SeasonMap key={`${current.id}-${site.id}`} clubId={club.clubId} season={current} site={site} />
+            </section>
+          ) : (
+            <EmptyState icon={CalendarRange} title="No sites yet">
+              Draw a site and its plots first; then you can offer them here.
+            </EmptyState>
+          )}
+        </>
+      ) : (
+        <EmptyState icon={CalendarRange} title="No season is open yet">
+          Open the first season below. Plots on the map then show as free, offered or taken.
+        </EmptyState>
+      )}
+      <section aria-labelledby="open-season" className="space-y-3">
+        <h2 id="open-season" className="text-xl font-semibold">
+          Open the {nextYear} season
+        </h2>
+        <p className="text-stone">
+          Holders of {current ? current.year : 'last season'} whose fees are paid get an e-mail to keep or give up their plot
+          by the deadline; plots not kept by then become free.
+        </p>
+        <OpenSeasonForm clubId={club.clubId} suggestedYear={nextYear} />
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,281 @@
+import { DndContext, DragOverlay, PointerSensor, useDraggable, useDroppable, useSensor, useSensors, type DragEndEvent } from '@dnd-kit/core';
+import { Accessibility, GripVertical, Hourglass, UserRound } from 'lucide-react';
+import { useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { footprint, formatArea, formatLength } from '@shared/geometry';
+import { plotKindLabels, type Plot } from '@shared/schemas/plots';
+import { plotSeasonStatusLabels, type PlotSeasonState, type PlotSeasonStatus } from '@shared/schemas/seasons';
+import type { Site } from '@shared/schemas/sites';
+import { meetsNeeds, suggestApplicant, type SuggestPerson } from '@shared/spring-round/suggest';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { ErrorState } from '@/components/ui/error-state';
+import { Select } from '@/components/ui/select';
+import { LoadingState } from '@/components/ui/spinner';
+import { isApiError } from '@/lib/api/client';
+import { useSitePlots } from '../../api/get-site-plots';
+import { useElementWidth } from '../../hooks/use-element-width';
+import { initials } from './map-math';
+import { kindClasses } from './plot-shape';
+import { ScaleBar } from './scale-bar';
+
+/** Someone on the waitlist, as the allocation map shows them. */
+export interface AllocationPerson extends SuggestPerson {
+  name: string;
+  position: number | null;
+  detail: string;
+}
+
+export interface AllocationMapProps {
+  site: Site;
+  states: PlotSeasonState[];
+  people: AllocationPerson[];
+  plotHref(plotId: number): string;
+  onOffer(plotId: number, personId: number): Promise<unknown>;
+  onWithdraw(offerId: number): Promise<unknown>;
+}
+
+// Fill and a word say the status, so it reads without colour too.
+const statusClasses: Record<PlotSeasonStatus, string> = {
+  free: 'bg-white',
+  renewal_pending: 'bg-paper-200',
+  offered: 'bg-straw',
+  taken: 'bg-shoot-100',
+};
+
+function fits(person: AllocationPerson, plot: Plot, siteId: number) {
+  return meetsNeeds(person, { ...plot, siteId });
+}
+
+function PlotTile({ plot, state, scale, selected, onSelect }: { plot: Plot; state: PlotSeasonState | undefined; scale: number; selected: boolean; onSelect(): void }) {
+  const status = state?.status ?? 'free';
+  const { setNodeRef, isOver } = useDroppable({ id: `plot:${plot.id}`, disabled: status !== 'free' });
+  const fp = footprint(plot);
+  const w = (fp.maxX - fp.minX) * scale;
+  const h = (fp.maxY - fp.minY) * scale;
+  const fontPx = Math.max(10, Math.min(14, Math.min(w, h) / 3.2));
+  const who = state?.holder?.name ?? state?.offer?.name ?? state?.renewal?.name ?? null;
+  return (
+    <button
+      ref={setNodeRef}
+      type="button"
+      onClick={onSelect}
+      aria-pressed={selected}
+      aria-label={`Plot ${plot.label}: ${plotSeasonStatusLabels[status]}${who ? `, ${who}` : ''}`}
+      data-plot-label={plot.label}
+      className={`absolute flex flex-col items-center justify-center overflow-hidden text-soil ${kindClasses[plot.kind]} ${statusClasses[status]} ${
+        selected ? 'z-20 ring-4 ring-leaf' : ''
+      } ${isOver ? 'z-20 ring-4 ring-water' : ''}`}
+      style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: fontPx }}
+    >
+      <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>
+      {Math.min(w, h) >= 30 && (
+        <span className="max-w-full truncate px-0.5 text-[0.85em] leading-tight">
+          {status === 'free' ? 'free' : status === 'taken' ? initials(who ?? '') : status === 'offered' ? 'offered' : 'renewal?'}
+        </span>
+      )}
+    </button>
+  );
+}
+
+function PersonChip({ person, suggested, fitsSelected }: { person: AllocationPerson; suggested: boolean; fitsSelected: boolean | null }) {
+  const { attributes, listeners, setNodeRef, isDragging } = useDraggable({ id: `person:${person.id}` });
+  return (
+    <li
+      ref={setNodeRef}
+      {...attributes}
+      {...listeners}
+      aria-label={`Drag ${person.name} onto a free plot`}
+      className={`flex min-h-12 cursor-grab touch-none items-center gap-2 rounded-lg border bg-white px-2 py-1.5 ${
+        suggested ? 'border-leaf ring-2 ring-leaf' : 'border-paper-300'
+      } ${isDragging ? 'opacity-40' : ''}`}
+    >
+      <GripVertical className="size-4 shrink-0 text-stone" aria-hidden="true" />
+      <span className="w-7 shrink-0 text-right font-semibold tabular-nums">{person.position ?? '–'}</span>
+      <span className="min-w-0 flex-1">
+        <span className="block truncate font-medium">{person.name}</span>
+        <span className="block truncate text-sm text-stone">
+          {person.detail}
+          {fitsSelected === false && ' · does not match this plot'}
+        </span>
+      </span>
+      {person.needsAccessible && <Accessibility className="size-4 shrink-0 text-water-700" aria-label="Needs an accessible bed" />}
+      {suggested && <span className="shrink-0 rounded-full bg-leaf px-2 py-0.5 text-xs font-semibold text-white">next</span>}
+    </li>
+  );
+}
+
+/** The spring-round map: plots coloured and labelled by their status, and the waitlist to drag onto free plots. */
+export function AllocationMap({ site, states, people, plotHref, onOffer, onWithdraw }: AllocationMapProps) {
+  const plotsQuery = useSitePlots(site.id);
+  const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
+  const [selectedId, setSelectedId] = useState<number | null>(null);
+  const [choice, setChoice] = useState<string>('');
+  const [dragging, setDragging] = useState<AllocationPerson | null>(null);
+  const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 4 } }));
+
+  const plots = useMemo(() => plotsQuery.data?.items ?? [], [plotsQuery.data]);
+  const stateOf = useMemo(() => new Map(states.map((s) => [s.plotId, s])), [states]);
+  const selected = plots.find((p) => p.id === selectedId) ?? null;
+  const selectedState = selected ? stateOf.get(selected.id) : undefined;
+  const suggested = selected && selectedState?.status === 'free' ? suggestApplicant({ ...selected, siteId: site.id }, people) : null;
+  const scale = Math.max(2, (wrapWidth ? wrapWidth - 2 : 600) / site.width);
+
+  async function offer(plotId: number, personId: number) {
+    const plot = plots.find((p) => p.id === plotId);
+    const person = people.find((p) => p.id === personId);
+    if (!plot || !person) return;
+    setBusy(true);
+    setNotice(null);
+    try {
+      await onOffer(plotId, personId);
+      setNotice({ tone: 'success', text: `Plot ${plot.label} offered to ${person.name}. The offer e-mail is on its way.` });
+      setChoice('');
+    } catch (err) {
+      setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The offer could not be made. Try again.' });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  function onDragEnd(e: DragEndEvent) {
+    setDragging(null);
+    const personId = Number(String(e.active.id).split(':')[1]);
+    const overId = e.over ? Number(String(e.over.id).split(':')[1]) : null;
+    if (overId === null) return;
+    setSelectedId(overId);
+    void offer(overId, personId);
+  }
+
+  if (plotsQuery.isPending) return <LoadingState label="Loading the map…" />;
+  if (plotsQuery.isError) return <ErrorState title="The map could not be loaded" message={plotsQuery.error.message} onRetry={() => void plotsQuery.refetch()} />;
+
+  const counts = plots.reduce<Record<PlotSeasonStatus, number>>(
+    (acc, p) => ({ ...acc, [stateOf.get(p.id)?.status ?? 'free']: acc[stateOf.get(p.id)?.status ?? 'free'] + 1 }),
+    { free: 0, renewal_pending: 0, offered: 0, taken: 0 },
+  );
+
+  return (
+    <DndContext
+      sensors={sensors}
+      onDragStart={(e) => setDragging(people.find((p) => `person:${p.id}` === e.active.id) ?? null)}
+      onDragEnd={onDragEnd}
+      onDragCancel={() => setDragging(null)}
+    >
+      <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
+        <div className="min-w-0 space-y-3">
+          {notice && (
+            <div role={notice.tone === 'error' ? 'alert' : 'status'}>
+              <Alert tone={notice.tone}>{notice.text}</Alert>
+            </div>
+          )}
+          <p className="text-sm text-stone">
+            Drag a person from the waitlist onto a free plot to send them an offer, or select a plot and choose a person
+            below the map.
+          </p>
+          <div ref={wrapRef} className="overflow-auto rounded-xl border border-paper-300 bg-white">
+            <div className="map-grid relative" style={{ width: site.width * scale, height: site.length * scale, ['--grid-px' as string]: `${Math.max(site.grid * scale, 8)}px` }} role="group" aria-label={`Spring round map of ${site.name}`}>
+              {plots.map((p) => (
+                <PlotTile key={p.id} plot={p} state={stateOf.get(p.id)} scale={scale} selected={p.id === selectedId} onSelect={() => setSelectedId(p.id)} />
+              ))}
+            </div>
+          </div>
+          <div className="flex flex-wrap items-center justify-between gap-3">
+            <ScaleBar scale={scale} units={site.units} />
+            <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Plot status legend">
+              {(Object.keys(statusClasses) as PlotSeasonStatus[]).map((s) => (
+                <li key={s} className="flex items-center gap-1.5">
+                  <span className={`inline-block size-4 rounded-sm border-2 border-soil/70 ${statusClasses[s]}`} aria-hidden="true" />
+                  {plotSeasonStatusLabels[s]} ({counts[s]})
+                </li>
+              ))}
+            </ul>
+          </div>
+          {selected && (
+            <Card className="space-y-3 p-4">
+              <div className="flex flex-wrap items-baseline justify-between gap-2">
+                <h3 className="text-lg font-semibold">
+                  Plot {selected.label}: {plotSeasonStatusLabels[selectedState?.status ?? 'free']}
+                </h3>
+                <Link to={plotHref(selected.id)}>Plot page and history</Link>
+              </div>
+              <p className="text-stone">
+                {plotKindLabels[selected.kind]} · {formatLength(selected.width, site.units)} × {formatLength(selected.length, site.units)} ·{' '}
+                {formatArea(selected.area, site.units)}
+                {selected.isAccessible ? ' · wheelchair height' : ''}
+              </p>
+              {selectedState?.holder && <p>Held by {selectedState.holder.name}.</p>}
+              {selectedState?.renewal && (
+                <p>
+                  Waiting for {selectedState.renewal.name} to keep or give it up (by {new Date(selectedState.renewal.deadline).toLocaleDateString()}).
+                </p>
+              )}
+              {selectedState?.offer && (
+                <div className="flex flex-wrap items-center gap-3">
+                  <p className="flex items-center gap-2">
+                    <Hourglass className="size-4" aria-hidden="true" /> Offered to {selectedState.offer.name}, answer by{' '}
+                    {new Date(selectedState.offer.deadline).toLocaleString()}.
+                  </p>
+                  <Button variant="secondary" disabled={busy} onClick={() => void onWithdraw(selectedState.offer!.id).then(() => setNotice({ tone: 'success', text: 'Offer withdrawn.' }))}>
+                    Withdraw offer
+                  </Button>
+                </div>
+              )}
+              {(selectedState?.status ?? 'free') === 'free' && (
+                <form
+                  className="flex flex-wrap items-end gap-3"
+                  onSubmit={(e) => {
+                    e.preventDefault();
+                    const id = Number(choice || suggested?.id);
+                    if (id) void offer(selected.id, id);
+                  }}
+                >
+                  <Select label="Offer to" value={choice || String(suggested?.id ?? '')} onChange={(e) => setChoice(e.target.value)} className="min-w-64">
+                    <option value="" disabled>
+                      {people.length ? 'Choose a person' : 'Nobody is waiting'}
+                    </option>
+                    {people.map((p) => (
+                      <option key={p.id} value={p.id}>
+                        {p.position ? `${p.position}. ` : ''}
+                        {p.name}
+                        {p.id === suggested?.id ? ' (next who fits)' : fits(p, selected, site.id) ? '' : ' (does not match)'}
+                      </option>
+                    ))}
+                  </Select>
+                  <Button type="submit" loading={busy} loadingText="Sending…" disabled={!people.length}>
+                    Offer plot {selected.label}
+                  </Button>
+                </form>
+              )}
+            </Card>
+          )}
+        </div>
+        <Card className="h-fit p-4 lg:sticky lg:top-4">
+          <h2 className="flex items-center gap-2 text-xl font-semibold">
+            <UserRound className="size-5" aria-hidden="true" /> Waitlist
+          </h2>
+          <p className="mb-3 text-sm text-stone">
+            In order of application. {suggested ? `For plot ${selected?.label}, the next who fits is ${suggested.name}.` : 'Select a free plot to see who fits it.'}
+          </p>
+          {people.length === 0 ? (
+            <p className="text-stone">Nobody is waiting for a plot.</p>
+          ) : (
+            <ul className="max-h-[32rem] space-y-2 overflow-y-auto pr-1" aria-label="People waiting for a plot">
+              {people.map((p) => (
+                <PersonChip key={p.id} person={p} suggested={p.id === suggested?.id} fitsSelected={selected && selectedState?.status === 'free' ? fits(p, selected, site.id) : null} />
+              ))}
+            </ul>
+          )}
+        </Card>
+      </div>
+      <DragOverlay>
+        {dragging && (
+          <div className="rounded-lg border-2 border-leaf bg-white px-3 py-2 font-medium shadow-lg">{dragging.name}</div>
+        )}
+      </DragOverlay>
+    </DndContext>
+  );
+}

@@ -1,0 +1,25 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { pageSchema } from '@shared/schemas/common';
+import { PlotSeasonStateSchema } from '@shared/schemas/seasons';
+import { apiFetch } from '@/lib/api/client';
+import { springRoundKeys } from './keys';
+
+const StatesPageSchema = pageSchema(PlotSeasonStateSchema);
+
+/** GET /api/seasons/:seasonId/plot-states?siteId=: where each plot of a site stands this season. */
+export function getPlotStates(seasonId: number, siteId: number, signal?: AbortSignal) {
+  return apiFetch(`/api/seasons/${seasonId}/plot-states?siteId=${siteId}`, { schema: StatesPageSchema, signal });
+}
+
+/** Query options for a site's plot states in a season. */
+export function plotStatesQueryOptions(seasonId: number, siteId: number) {
+  return queryOptions({
+    queryKey: springRoundKeys.plotStates({ seasonId, siteId }),
+    queryFn: ({ signal }) => getPlotStates(seasonId, siteId, signal),
+  });
+}
+
+/** Free, offered, renewing and taken plots of one site in one season. */
+export function usePlotStates(seasonId: number, siteId: number) {
+  return useQuery(plotStatesQueryOptions(seasonId, siteId));
+}

@@ -1,0 +1,86 @@
+import { CircleCheck, Sprout } from 'lucide-react';
+import { formatMoney } from '@shared/fees/compute';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { ErrorState } from '@/components/ui/error-state';
+import { LoadingState } from '@/components/ui/spinner';
+import { isApiError } from '@/lib/api/client';
+import { useAnswerLink, useLinkPreview, type LinkKind } from '../api/answer-link';
+
+const words = {
+  offer: { title: 'A plot for you', yes: 'Accept the plot', no: 'Decline', yesBusy: 'Accepting…' },
+  renewal: { title: 'Keep your plot?', yes: 'Keep my plot', no: 'Give it up', yesBusy: 'Saving…' },
+} as const;
+
+/** The page an offer or renewal e-mail opens: the plot, the fee and the deadline, with the two answers. */
+export function LinkResponse({ kind, token }: { kind: LinkKind; token: string }) {
+  const preview = useLinkPreview(kind, token);
+  const answer = useAnswerLink(kind, token);
+  const w = words[kind];
+
+  if (!token) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
+  if (preview.isPending) return <LoadingState label="Opening your link…" />;
+  if (preview.isError) {
+    return (
+      <ErrorState
+        title={isApiError(preview.error, 404) ? 'We do not know this link' : 'This link cannot be used'}
+        message={preview.error.message}
+      />
+    );
+  }
+  const p = preview.data;
+  if (answer.isSuccess) {
+    return (
+      <Card className="space-y-3 p-6 text-center">
+        <CircleCheck className="mx-auto size-10 text-leaf" aria-hidden="true" />
+        <h1 className="text-2xl font-bold">{answer.data.status === 'accepted' || answer.data.status === 'kept' ? 'Done — see you at the plot' : 'Thank you'}</h1>
+        <p>{answer.data.message}</p>
+      </Card>
+    );
+  }
+  const answered = p.status !== 'pending';
+  return (
+    <Card className="space-y-4 p-6">
+      <p className="flex items-center gap-2 font-semibold text-leaf">
+        <Sprout className="size-5" aria-hidden="true" /> {p.clubName}
+      </p>
+      <h1 className="text-2xl font-bold">{w.title}</h1>
+      <p>
+        Hello {p.name}. {kind === 'offer' ? 'This plot is offered to you' : 'You can keep this plot'} for the {p.year} season:
+      </p>
+      <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
+        <dt className="text-stone">Plot</dt>
+        <dd className="font-semibold">{p.plot.label}, {p.plot.siteName}</dd>
+        <dt className="text-stone">Size</dt>
+        <dd>{p.plot.size} ({p.plot.area}), {p.plot.kind.toLowerCase()}</dd>
+        {p.fee && (
+          <>
+            <dt className="text-stone">Fee</dt>
+            <dd>
+              {formatMoney(p.fee.plotFeeMinor, p.fee.currency)}
+              {p.fee.depositMinor > 0 && ` plus a refundable deposit of ${formatMoney(p.fee.depositMinor, p.fee.currency)}`}
+            </dd>
+          </>
+        )}
+        <dt className="text-stone">Answer by</dt>
+        <dd>{new Date(p.deadline).toLocaleString()}</dd>
+      </dl>
+      {answered ? (
+        <Alert tone="info">This has already been answered ({p.status}). Nothing more to do.</Alert>
+      ) : (
+        <>
+          {answer.isError && <Alert tone="error">{answer.error.message}</Alert>}
+          <div className="flex flex-wrap gap-3">
+            <Button onClick={() => answer.mutate('yes')} loading={answer.isPending && answer.variables === 'yes'} loadingText={w.yesBusy} disabled={answer.isPending}>
+              {w.yes}
+            </Button>
+            <Button variant="secondary" onClick={() => answer.mutate('no')} loading={answer.isPending && answer.variables === 'no'} loadingText="Saving…" disabled={answer.isPending}>
+              {w.no}
+            </Button>
+          </div>
+        </>
+      )}
+    </Card>
+  );
+}

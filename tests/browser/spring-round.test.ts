@@ -1,0 +1,102 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { createDb } from '../../server/db/knex';
+import type { RunningServer } from '../../server/start-server';
+import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
+import { mailUrl, testConfig } from '../helpers/app';
+import { launchBrowser, openPage, type WatchedPage } from '../helpers/browser';
+import { extractLink, waitForMail } from '../helpers/inbox';
+import { startSeededServer } from '../helpers/server';
+
+let server: RunningServer;
+let browser: Browser;
+let closeBrowser: () => Promise<void>;
+const db = createDb(testConfig().databaseUrl);
+
+beforeAll(async () => {
+  server = await startSeededServer();
+  ({ browser, close: closeBrowser } = await launchBrowser());
+});
+afterAll(async () => {
+  await closeBrowser?.();
+  await server?.stop();
+  await db.destroy();
+});
+
+async function coordinatorOn(width: number): Promise<WatchedPage> {
+  const w = await openPage(browser, width);
+  await w.page.goto(`${server.url}/sign-in`);
+  await w.page.getByLabel('E-mail').fill('maren@example.org');
+  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await w.page.getByRole('button', { name: 'Sign in' }).click();
+  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
+  const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
+  await w.page.goto(`${server.url}/clubs/${club.id}/spring-round`);
+  return w;
+}
+
+const plotTile = (w: WatchedPage, label: string) => w.page.locator(`[data-plot-label="${label}"]`);
+
+describe('the spring round in the browser', () => {
+  it('opens the season, drags a waitlisted person onto a free plot, and the e-mailed accept link makes it taken', async () => {
+    const w = await coordinatorOn(1280);
+    await w.page.getByRole('heading', { name: 'Spring round 2026' }).waitFor();
+    await w.page.getByRole('button', { name: 'Open the season and send renewals' }).click();
+    await w.page.getByText('The 2027 season is open').waitFor();
+    await w.page.getByText('3 renewal e-mails sent.').waitFor();
+    await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
+    // Jonah still owes part of his 2026 fee, so B-1 was not renewed and is free.
+    await expect(plotTile(w, 'B-1').getAttribute('aria-label')).resolves.toBe('Plot B-1: Free');
+    await expect(plotTile(w, 'A-1').getAttribute('aria-label')).resolves.toMatch(/^Plot A-1: Waiting for renewal, Teodor Lind/);
+    await w.shot('spring-round-opened-desktop');
+
+    const since = Date.now();
+    const person = w.page.getByRole('button', { name: 'Drag Ines Carvalho onto a free plot' });
+    const from = (await person.boundingBox())!;
+    const to = (await plotTile(w, 'B-1').boundingBox())!;
+    const saved = w.page.waitForResponse((r) => r.url().includes('/offers') && r.request().method() === 'POST');
+    await w.page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+    await w.page.mouse.down();
+    await w.page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
+    await w.page.mouse.move(to.x + to.width / 2, to.y + to.height / 2, { steps: 15 });
+    await w.page.mouse.up();
+    expect((await saved).status()).toBe(201);
+    await w.page.getByText('Plot B-1 offered to Ines Carvalho. The offer e-mail is on its way.').waitFor();
+    await expect(plotTile(w, 'B-1').getAttribute('aria-label')).resolves.toBe('Plot B-1: Offered, Ines Carvalho');
+    await w.shot('spring-round-offered-desktop');
+
+    const mail = await waitForMail(mailUrl(), { to: 'ines@example.org', after: since });
+    expect(mail.subject).toMatch(/^A plot for you at Mossgate Community Garden Club: B-1/);
+    const link = extractLink(mail, '/respond/offer');
+    const applicant = await openPage(browser, 390);
+    await applicant.page.goto(link.replace(/^http:\/\/127\.0\.0\.1:\d+/, server.url));
+    await applicant.page.getByRole('heading', { name: 'A plot for you' }).waitFor();
+    await applicant.page.getByText('£45.00 plus a refundable deposit of £15.00').waitFor();
+    await applicant.shot('offer-link-phone');
+    await applicant.page.getByRole('button', { name: 'Accept the plot' }).click();
+    await applicant.page.getByText('Plot B-1 is yours for 2027.', { exact: false }).waitFor();
+    await applicant.shot('offer-accepted-phone');
+
+    await w.page.reload();
+    await plotTile(w, 'B-1').waitFor();
+    await expect(plotTile(w, 'B-1').getAttribute('aria-label')).resolves.toBe('Plot B-1: Taken, Ines Carvalho');
+    expect(w.errors).toEqual([]);
+    expect(applicant.errors).toEqual([]);
+  });
+
+  it('offers a plot without dragging: select the plot, take the suggested person, press Offer', async () => {
+    const w = await coordinatorOn(390);
+    await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
+    // R-1 is a wheelchair-height raised bed freed this season; Grace asked for exactly that.
+    await plotTile(w, 'R-1').click();
+    await w.page.getByText('For plot R-1, the next who fits is Grace Adeyemi.').waitFor();
+    const saved = w.page.waitForResponse((r) => r.url().includes('/offers') && r.request().method() === 'POST');
+    await w.page.getByRole('button', { name: 'Offer plot R-1' }).click();
+    expect((await saved).status()).toBe(201);
+    await expect(plotTile(w, 'R-1').getAttribute('aria-label')).resolves.toBe('Plot R-1: Offered, Grace Adeyemi');
+    await w.shot('spring-round-phone');
+    const offer = await db('offers as o').join('applications as a', 'a.id', 'o.application_id').where('a.name', 'Grace Adeyemi').first('o.status');
+    expect(offer.status).toBe('pending');
+    expect(w.errors).toEqual([]);
+  });
+});
