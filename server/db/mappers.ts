@@ -4,6 +4,12 @@ import { area } from '@shared/geometry';
 
 // Rows stay snake_case in here; the API speaks camelCase.
 
+/**
+ * Lengths are stored to the millimetre, so a gap computed from three stored values can be off
+ * by up to 1.5 mm, and a path width by 0.5 mm: geometry on stored plots allows 2 mm.
+ */
+export const STORED_LENGTH_EPS = 0.002;
+
 export interface SiteRow {
   id: number;
   club_id: number;

@@ -23,7 +23,7 @@ import {
 } from '@shared/schemas/plots';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
-import { plotColumns, type PlotRow } from '../db/mappers';
+import { plotColumns, STORED_LENGTH_EPS, type PlotRow } from '../db/mappers';
 import { recordPlotEvent } from './plot-events';
 
 // File rules, kept in one place so the template, the export and the README agree:
@@ -316,7 +316,7 @@ function placementErrors(rows: ParsedRow[], site: SiteBounds, existing: PlotRow[
     ...placed.map((r) => ({ id: `r${r.row}`, ...r.plot })),
   ];
   // Pairs come in input order: saved plots first, then rows by line, so b is always the later one.
-  for (const { a, b } of findOverlaps(rects)) {
+  for (const { a, b } of findOverlaps(rects, STORED_LENGTH_EPS)) {
     if (b[0] === 'p') continue; // two saved plots: not this file's doing
     const later = byRow.get(Number(b.slice(1)))!;
     const other =

@@ -3,10 +3,10 @@ import { footprint, neighbours, overlaps, type Rect } from '@shared/geometry';
 import type { NeighbourPair, Plot, PlotCreateBody, PlotDetail, PlotUpdateBody } from '@shared/schemas/plots';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
-import { plotColumns, plotRect, toPlot, type PlotRow } from '../db/mappers';
+import { plotColumns, plotRect, STORED_LENGTH_EPS, toPlot, type PlotRow } from '../db/mappers';
 import { listPlotEvents, recordPlotEvent } from './plot-events';
 
-const EPS = 1e-6;
+const EPS = STORED_LENGTH_EPS;
 
 /** The club a (live) plot belongs to, or null. */
 export async function clubOfPlot(db: Db, plotId: number): Promise<number | null> {
@@ -48,7 +48,7 @@ export async function assertPlacement(
   const others: PlotRow[] = await livePlots(trx, site.id).modify((q) => {
     if (exceptPlotId) q.whereNot({ id: exceptPlotId });
   });
-  const hit = others.find((o) => overlaps(rect, plotRect(o)));
+  const hit = others.find((o) => overlaps(rect, plotRect(o), STORED_LENGTH_EPS));
   if (hit) {
     throw new AppError('conflict', `That would overlap plot ${hit.label}. Plots may touch but not overlap.`, {
       x: `Overlaps plot ${hit.label}`,
@@ -131,7 +131,7 @@ export async function siteNeighbours(db: Db, siteId: number): Promise<{ items: N
   const site = await db('sites').where({ id: siteId }).first('path_width_m');
   if (!site) throw notFound('The site');
   const rows: PlotRow[] = await livePlots(db, siteId).orderBy('id');
-  const pairs = neighbours(rows.map(plotRect), site.path_width_m);
+  const pairs = neighbours(rows.map(plotRect), site.path_width_m, STORED_LENGTH_EPS);
   return { items: pairs as NeighbourPair[], pathWidth: site.path_width_m };
 }
 
@@ -153,7 +153,7 @@ export async function getPlotDetail(db: Db, plotId: number): Promise<PlotDetail>
     .first('u.id', 'u.name', 'se.year');
   const siblings: PlotRow[] = await livePlots(db, row.site_id);
   const byId = new Map(siblings.map((s) => [s.id, s]));
-  const pairs = neighbours(siblings.map(plotRect), row.path_width_m_site).filter((n) => n.a === plotId || n.b === plotId);
+  const pairs = neighbours(siblings.map(plotRect), row.path_width_m_site, STORED_LENGTH_EPS).filter((n) => n.a === plotId || n.b === plotId);
   const opposite = { north: 'south', south: 'north', east: 'west', west: 'east' } as const;
   return {
     ...toPlot(row),

@@ -59,6 +59,16 @@ export const router = createBrowserRouter([
             children: [
               { index: true, Component: ClubHomeRoute },
               { path: 'members', lazy: () => import('./routes/members').then((m) => ({ Component: m.MembersRoute })) },
+              { path: 'sites', lazy: () => import('./routes/sites').then((m) => ({ Component: m.SitesRoute })) },
+              {
+                path: 'sites/:siteId/edit',
+                lazy: () => import('./routes/site-edit').then((m) => ({ Component: m.SiteEditRoute })),
+              },
+              {
+                path: 'sites/:siteId/plots',
+                lazy: () => import('./routes/site-plots').then((m) => ({ Component: m.SitePlotsRoute })),
+              },
+              { path: 'plots/:plotId', lazy: () => import('./routes/plot').then((m) => ({ Component: m.PlotRoute })) },
               { path: 'map', lazy: () => import('./routes/map').then((m) => ({ Component: m.MapRoute })) },
               {
                 path: 'spring-round',

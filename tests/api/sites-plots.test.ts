@@ -155,6 +155,24 @@ describe('plots', () => {
   });
 });
 
+describe('neighbours on a site measured in feet', () => {
+  it('keeps plots 3 ft apart as neighbours across a 3 ft path despite millimetre storage', async () => {
+    const { club } = await coordinatorWithSite();
+    const c = await browserLikeAgent(t.app);
+    const coord = await buildMember(t.db, { clubId: club.id, roles: ['coordinator'] });
+    await c.signIn(coord.email, coord.password!);
+    // 1 ft = 0.3048 m exactly (NIST SP 811); stored to the millimetre these become 0.914, 3.962 and 4.877 m.
+    const ft = (v: number) => v * 0.3048;
+    const site = (await c.post(`/api/clubs/${club.id}/sites`, { ...siteBody, name: 'Feet field', units: 'us', pathWidth: ft(3) }).expect(201)).body;
+    const a = (await c.post(`/api/sites/${site.id}/plots`, { label: 'N-1', x: ft(3), y: 0, width: ft(10), length: ft(20) }).expect(201)).body;
+    const b = (await c.post(`/api/sites/${site.id}/plots`, { label: 'N-2', x: ft(16), y: 0, width: ft(10), length: ft(20) }).expect(201)).body;
+    const res = await c.get(`/api/sites/${site.id}/neighbours`).expect(200);
+    expect(res.body.items).toHaveLength(1);
+    expect(res.body.items[0]).toMatchObject({ a: a.id, b: b.id, kind: 'across_path', side: 'east' });
+    expect(res.body.items[0].gap).toBeCloseTo(0.915, 6);
+  });
+});
+
 describe('who may do what', () => {
   it('lets plot holders read the map but not change it; other clubs get 404', async () => {
     const { club, site, c } = await coordinatorWithSite();

@@ -35,6 +35,7 @@ export function isApiError(value: unknown, status?: number): value is ApiError {
 
 export interface ApiFetchOptions<T> {
   method?: HttpMethod;
+  /** Sent as JSON, except a FormData, which goes as multipart (the browser writes its boundary). */
   body?: unknown;
   /** Parses the success body; leave it out for endpoints that answer 204 or whose body is not needed. */
   schema?: z.ZodType<T>;
@@ -95,13 +96,15 @@ async function readError(response: Response): Promise<ApiError> {
 
 async function send(path: string, method: HttpMethod, body: unknown, signal?: AbortSignal): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  const payload = body === undefined ? undefined : body instanceof FormData ? body : JSON.stringify(body);
+  // A FormData needs the browser's own multipart Content-Type, boundary included.
+  if (typeof payload === 'string') headers['Content-Type'] = 'application/json';
   if (method !== 'GET') headers['X-CSRF-Token'] = csrfToken ?? (await loadCsrfToken());
   try {
     return await fetch(path, {
       method,
       headers,
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: payload,
       credentials: 'same-origin',
       signal,
     });
@@ -117,7 +120,7 @@ async function send(path: string, method: HttpMethod, body: unknown, signal?: Ab
 }
 
 /**
- * Calls the Tillwell API: JSON in and out, CSRF header on every write, zod-checked success bodies,
+ * Calls the Tillwell API: JSON (or FormData) in, JSON out, CSRF header on every write, zod-checked success bodies,
  * and an ApiError for every failure. Any response carrying `csrfToken` refreshes the cached token.
  */
 export async function apiFetch<T = undefined>(path: string, options: ApiFetchOptions<T> = {}): Promise<T> {

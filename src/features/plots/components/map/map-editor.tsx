@@ -314,6 +314,7 @@ export function MapEditor({ site, canEdit, plotHref }: MapEditorProps) {
       <Card className="h-fit p-4 lg:sticky lg:top-4">
         {selected ? (
           <PlotInspector
+            key={`${selected.id}-${selected.version}`}
             plot={selected}
             units={site.units}
             canEdit={canEdit}

@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { ExternalLink, RotateCw, Trash2 } from 'lucide-react';
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import { z } from 'zod';
@@ -107,23 +107,19 @@ export interface PlotInspectorProps {
 
 const FIELD_NAMES = ['label', 'x', 'y', 'width', 'length', 'rotation', 'kind', 'sun', 'soilDepth', 'soilPh', 'notes'] as const;
 
-/** The selected plot's details: exact position and size, kind, soil and notes, with save and remove. */
+/**
+ * The selected plot's details: exact position and size, kind, soil and notes, with save and remove.
+ * The parent keys it by plot id and version, so a new selection or the server's newer copy starts it afresh.
+ */
 export function PlotInspector({ plot, units, canEdit, neighbours, plotHref, onSave, onDelete, onRotate }: PlotInspectorProps) {
   const schema = formSchema(units);
-  const { register, handleSubmit, reset, setError, formState } = useForm<FormInput, unknown, z.output<typeof schema>>({
+  const { register, handleSubmit, setError, formState } = useForm<FormInput, unknown, z.output<typeof schema>>({
     resolver: zodResolver(schema),
     defaultValues: toForm(plot, units),
   });
   const [alert, setAlert] = useState<string | null>(null);
   const [confirming, setConfirming] = useState(false);
   const u = lengthUnitLabel(units);
-
-  // A new selection, or the server's newer copy, replaces what the form shows.
-  useEffect(() => {
-    reset(toForm(plot, units));
-    setAlert(null);
-    setConfirming(false);
-  }, [plot, units, reset]);
 
   const submit = handleSubmit(async (values) => {
     const changes: Partial<PlotCreateBody> = {};

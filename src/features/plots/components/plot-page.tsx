@@ -1,0 +1,221 @@
+import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import { format, formatDistanceToNow, parseISO } from 'date-fns';
+import { ArrowLeft, History, Map as MapIcon, SearchX, Users } from 'lucide-react';
+import { formatLength } from '@shared/geometry';
+import { plotKindLabels, sunLabels, type PlotDetail, type PlotKind } from '@shared/schemas/plots';
+import { buttonClasses } from '@/components/ui/button';
+import { Card } from '@/components/ui/card';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorState } from '@/components/ui/error-state';
+import { PageHeader } from '@/components/ui/page-header';
+import { LoadingState } from '@/components/ui/spinner';
+import { isApiError } from '@/lib/api/client';
+import { paths } from '@/lib/paths';
+import { usePlot } from '../api/get-plot';
+import { formatPlotArea, formatSize, formatSoilDepth, sideText } from '../lib/format';
+
+function Panel({ id, title, children }: { id: string; title: string; children: ReactNode }) {
+  return (
+    <section aria-labelledby={id} className="min-w-0">
+      <Card className="h-full">
+        <h2 id={id} className="mb-4 text-xl font-semibold">
+          {title}
+        </h2>
+        {children}
+      </Card>
+    </section>
+  );
+}
+
+function Fact({ term, children }: { term: string; children: ReactNode }) {
+  return (
+    <div className="flex flex-col gap-0.5 border-b border-paper-200 py-2.5 last:border-b-0 sm:flex-row sm:gap-4">
+      <dt className="font-medium text-stone sm:w-40 sm:shrink-0">{term}</dt>
+      <dd className="min-w-0 break-words">{children}</dd>
+    </div>
+  );
+}
+
+const kindLabel = (kind: string) => plotKindLabels[kind as PlotKind] ?? kind;
+
+function formatDay(iso: string): string {
+  const date = parseISO(iso);
+  return Number.isNaN(date.getTime()) ? iso : format(date, 'd MMM yyyy');
+}
+
+function Details({ plot }: { plot: PlotDetail }) {
+  const u = plot.units;
+  return (
+    <dl>
+      <Fact term="Kind">{kindLabel(plot.kind)}</Fact>
+      <Fact term="Size">{formatSize(plot.width, plot.length, u)}</Fact>
+      <Fact term="Area">{formatPlotArea(plot.area, u)}</Fact>
+      <Fact term="Sun">{sunLabels[plot.sun]}</Fact>
+      <Fact term="Soil depth">
+        {plot.soilDepth === null ? <span className="text-stone">Not measured</span> : formatSoilDepth(plot.soilDepth, u)}
+      </Fact>
+      <Fact term="Soil pH">
+        {plot.soilPh === null ? (
+          <span className="text-stone">Not tested</span>
+        ) : (
+          <>
+            {plot.soilPh}
+            {plot.soilTestedOn && <span className="text-stone"> (tested {formatDay(plot.soilTestedOn)})</span>}
+          </>
+        )}
+      </Fact>
+      {plot.soilPh === null && plot.soilTestedOn && <Fact term="Soil tested">{formatDay(plot.soilTestedOn)}</Fact>}
+      <Fact term="Accessible">{plot.isAccessible ? 'Yes' : 'No'}</Fact>
+      <Fact term="Water tap">{plot.hasWaterTap ? 'Yes, at the plot' : 'No'}</Fact>
+      <Fact term="Notes">{plot.notes ? <span className="whitespace-pre-line">{plot.notes}</span> : <span className="text-stone">None</span>}</Fact>
+    </dl>
+  );
+}
+
+function Neighbours({ plot, clubId }: { plot: PlotDetail; clubId: number }) {
+  if (plot.neighbours.length === 0) {
+    return <p className="text-stone">No other plot touches this one or faces it across a path.</p>;
+  }
+  return (
+    <ul className="flex flex-col divide-y divide-paper-200">
+      {plot.neighbours.map((n) => (
+        <li key={n.plotId} className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1 py-2.5">
+          <Link to={paths.plot(clubId, n.plotId)} className="font-semibold">
+            {n.label}
+          </Link>
+          <span>
+            {sideText(n.side)},{' '}
+            {n.kind === 'touching' ? 'touching' : `across a ${formatLength(n.gap, plot.units)} path`}
+          </span>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+function HistoryList({ plot }: { plot: PlotDetail }) {
+  if (plot.history.length === 0) return <p className="text-stone">Nothing recorded yet.</p>;
+  // Newest first, whatever order the list arrives in.
+  const events = [...plot.history].sort((a, b) => b.at.localeCompare(a.at) || b.id - a.id);
+  return (
+    <ol className="flex flex-col gap-4">
+      {events.map((event) => {
+        const at = parseISO(event.at);
+        return (
+          <li key={event.id} className="border-l-3 border-leaf-100 pl-4">
+            <p className="font-medium">{event.summary}</p>
+            <p className="text-sm text-stone">
+              {event.byName ?? 'Someone no longer in the club'} ·{' '}
+              <time dateTime={event.at} title={format(at, 'd MMM yyyy, HH:mm')}>
+                {format(at, 'd MMM yyyy, HH:mm')} ({formatDistanceToNow(at, { addSuffix: true })})
+              </time>
+            </p>
+          </li>
+        );
+      })}
+    </ol>
+  );
+}
+
+export interface PlotPageProps {
+  clubId: number;
+  /** From the URL; NaN when the URL holds no number. */
+  plotId: number;
+  /** Coordinators get a link to edit the plot on the map. */
+  canEdit: boolean;
+}
+
+function PlotNotFound({ clubId }: { clubId: number }) {
+  return (
+    <EmptyState
+      icon={SearchX}
+      title="We can't find that plot"
+      headingLevel="h1"
+      action={
+        <Link to={paths.club(clubId)} className={buttonClasses('secondary')}>
+          Back to club home
+        </Link>
+      }
+    >
+      <p>It may have been taken off the map, or the link belongs to another club.</p>
+    </EmptyState>
+  );
+}
+
+function LoadedPlotPage({ clubId, plotId, canEdit }: PlotPageProps) {
+  const query = usePlot(plotId);
+  if (isApiError(query.error, 404)) return <PlotNotFound clubId={clubId} />;
+  if (query.isPending) return <LoadingState label="Loading the plot…" />;
+  if (query.isError) {
+    return (
+      <ErrorState
+        message={query.error.message}
+        requestId={isApiError(query.error) ? query.error.requestId : undefined}
+        onRetry={() => void query.refetch()}
+        retrying={query.isFetching}
+      />
+    );
+  }
+
+  const plot = query.data;
+  return (
+    <>
+      <title>{`Plot ${plot.label} · ${plot.siteName} · Tillwell`}</title>
+      <Link to={paths.sitePlots(clubId, plot.siteId)} className="mb-4 inline-flex min-h-11 items-center gap-1.5 font-medium">
+        <ArrowLeft className="size-5" aria-hidden="true" />
+        All plots on {plot.siteName}
+      </Link>
+      <PageHeader
+        eyebrow={plot.siteName}
+        title={`Plot ${plot.label}`}
+        description={`${kindLabel(plot.kind)}, ${formatSize(plot.width, plot.length, plot.units)} (${formatPlotArea(plot.area, plot.units)})`}
+        actions={
+          canEdit && (
+            <Link to={`${paths.map(clubId)}?site=${plot.siteId}&plot=${plot.id}`} className={buttonClasses('secondary')}>
+              <MapIcon className="size-5" aria-hidden="true" />
+              Edit on the map
+            </Link>
+          )
+        }
+      />
+      <div className="grid gap-6 lg:grid-cols-2">
+        <Panel id="plot-details" title="About this plot">
+          <Details plot={plot} />
+        </Panel>
+        <div className="flex min-w-0 flex-col gap-6">
+          <Panel id="plot-holder" title="This season">
+            {plot.holder ? (
+              <p className="flex items-center gap-2">
+                <Users className="size-5 text-leaf" aria-hidden="true" />
+                <span>
+                  Held by <strong className="font-semibold">{plot.holder.name}</strong> for {plot.holder.season}
+                </span>
+              </p>
+            ) : (
+              <p className="text-stone">Not allocated yet</p>
+            )}
+          </Panel>
+          <Panel id="plot-neighbours" title="Neighbours">
+            <Neighbours plot={plot} clubId={clubId} />
+          </Panel>
+        </div>
+        <div className="lg:col-span-2">
+          <Panel id="plot-history" title="History">
+            <div className="mb-3 flex items-center gap-2 text-sm text-stone">
+              <History className="size-4" aria-hidden="true" />
+              Newest first
+            </div>
+            <HistoryList plot={plot} />
+          </Panel>
+        </div>
+      </div>
+    </>
+  );
+}
+
+/** One plot for any club member: its details in the site's units, who holds it, its neighbours and history. */
+export function PlotPage({ clubId, plotId, canEdit }: PlotPageProps) {
+  if (!Number.isInteger(plotId) || plotId <= 0) return <PlotNotFound clubId={clubId} />;
+  return <LoadedPlotPage clubId={clubId} plotId={plotId} canEdit={canEdit} />;
+}
