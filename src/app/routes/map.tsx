@@ -69,7 +69,13 @@ export function MapRoute() {
           ))}
         </nav>
       )}
-      <MapEditor key={site.id} site={site} canEdit={canEdit} plotHref={(plotId) => paths.plot(club.clubId, plotId)} />
+      <MapEditor
+        key={site.id}
+        site={site}
+        canEdit={canEdit}
+        initialPlotId={Number(params.get('plot')) || null}
+        plotHref={(plotId) => paths.plot(club.clubId, plotId)}
+      />
     </div>
   );
 }

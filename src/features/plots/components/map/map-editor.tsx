@@ -26,6 +26,8 @@ export interface MapEditorProps {
   site: Site;
   canEdit: boolean;
   plotHref(plotId: number): string;
+  /** A plot to select when the map opens (from a plot page's "Edit on the map"). */
+  initialPlotId?: number | null;
 }
 
 interface DragState {
@@ -45,13 +47,13 @@ function rectOf(p: Plot): Rect {
 }
 
 /** The site map: plots to scale on the site's grid, moved and resized by pointer or keyboard, each change saved at once. */
-export function MapEditor({ site, canEdit, plotHref }: MapEditorProps) {
+export function MapEditor({ site, canEdit, plotHref, initialPlotId = null }: MapEditorProps) {
   const plotsQuery = useSitePlots(site.id);
   const neighboursQuery = useSiteNeighbours(site.id);
   const updatePlot = useUpdatePlot(site.id);
   const createPlot = useCreatePlot(site.id);
   const deletePlot = useDeletePlot(site.id);
-  const [selectedId, setSelectedId] = useState<number | null>(null);
+  const [selectedId, setSelectedId] = useState<number | null>(initialPlotId);
   const [zoom, setZoom] = useState(1);
   const [drag, setDrag] = useState<DragState | null>(null);
   const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
