@@ -19,6 +19,7 @@ const EnvSchema = z
     MAIL_FROM: z.string().default('Tillwell <no-reply@tillwell.example.org>'),
     BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(12),
     AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+    APPLY_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
     TRUST_PROXY: boolish.default(false),
     LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
     STATIC_DIR: z.string().default(path.join(root, 'dist')),
@@ -47,6 +48,8 @@ export interface Config {
   mailFrom: string;
   bcryptCost: number;
   authRateLimit: number;
+  /** Public waitlist applications per client address per hour. */
+  applyRateLimit: number;
   trustProxy: boolean;
   logLevel: Env['LOG_LEVEL'];
   staticDir: string;
@@ -75,6 +78,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     bcryptCost: e.BCRYPT_COST,
     authRateLimit: e.AUTH_RATE_LIMIT,
+    applyRateLimit: e.APPLY_RATE_LIMIT,
     trustProxy: e.TRUST_PROXY,
     logLevel: e.LOG_LEVEL,
     staticDir: e.STATIC_DIR,

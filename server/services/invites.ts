@@ -43,8 +43,9 @@ export async function createInvite(
   const { clubId, body } = opts;
   const club = await db('clubs').where({ id: clubId }).first('name');
   if (!club) throw notFound('The club');
-  const existing = await db('users').whereRaw('lower(email) = lower(?)', [body.email]).first('id');
-  if (existing) {
+  const existing = await db('users').whereRaw('lower(email) = lower(?)', [body.email]).first('id', 'password_hash');
+  // Someone added by an import has roles but no password yet: inviting them is how they get in.
+  if (existing?.password_hash) {
     const held = await rolesInClub(db, clubId, existing.id);
     if (body.roles.every((r) => held.includes(r))) {
       throw new AppError('conflict', 'That person already holds those roles in this club.', {

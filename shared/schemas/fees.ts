@@ -73,3 +73,25 @@ export const FeesListSchema = z.object({
   total: z.number().int(),
   totals: z.object({ dueMinor: z.number().int(), paidMinor: z.number().int(), refundedMinor: z.number().int(), outstandingMinor: z.number().int() }),
 });
+export type Payment = z.infer<typeof PaymentSchema>;
+export type FeesList = z.infer<typeof FeesListSchema>;
+
+export const feeStatusFilters = ['unpaid', 'paid', 'all'] as const;
+
+/** GET /api/clubs/:clubId/fees and fees.csv: one season's fees (every season when year is left out). */
+export const FeesQuerySchema = z.strictObject({
+  // An empty `year=` means every season, as a form's blank option sends it.
+  year: z.preprocess(
+    (v) => (v === '' ? undefined : v),
+    z.coerce.number().int('A year like 2027').min(2000, 'A year like 2027').max(2100, 'A year like 2027').optional(),
+  ),
+  status: z.enum(feeStatusFilters).default('all'),
+});
+export type FeesQuery = z.infer<typeof FeesQuerySchema>;
+
+/** One of the signed-in person's own fees, with the club it belongs to. */
+export const MyFeeSchema = FeeSchema.extend({ clubId: z.number().int(), clubName: z.string() });
+export type MyFee = z.infer<typeof MyFeeSchema>;
+
+/** GET /api/me/fees: the signed-in person's fees in every club, unpaid first. */
+export const MyFeesListSchema = z.object({ items: z.array(MyFeeSchema), page: z.number().int(), total: z.number().int() });

@@ -1,4 +1,4 @@
-import { CalendarRange, HandHelping, House, LandPlot, Map as MapIcon, Shovel, Users } from 'lucide-react';
+import { CalendarRange, Coins, HandHelping, House, LandPlot, ListOrdered, Mail, Map as MapIcon, Settings, Shovel, Users } from 'lucide-react';
 import type { ClubMembership } from '@shared/schemas/auth';
 import type { NavItem } from '@/components/layouts/app-layout';
 import { paths } from '@/lib/paths';
@@ -12,7 +12,10 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
       { to: paths.map(id), label: 'Map', icon: MapIcon },
       { to: paths.sites(id), label: 'Sites', icon: LandPlot },
       { to: paths.springRound(id), label: 'Spring round', icon: CalendarRange },
+      { to: paths.waitlist(id), label: 'Waitlist', icon: ListOrdered },
+      { to: paths.fees(id), label: 'Fees', icon: Coins },
       { to: paths.members(id), label: 'Members', icon: Users },
+      { to: paths.messages(id), label: 'Messages', icon: Mail },
     );
   }
   if (club.roles.includes('plot_holder')) {
@@ -21,5 +24,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
   if (club.roles.includes('volunteer')) {
     items.push({ to: paths.shifts(id), label: 'Shifts', icon: HandHelping, comingSoon: true });
   }
+  // Settings are visited least, so they come last, after every role's own pages.
+  if (club.roles.includes('coordinator')) items.push({ to: paths.clubSettings(id), label: 'Settings', icon: Settings });
   return items;
 }

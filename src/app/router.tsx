@@ -39,6 +39,8 @@ export const router = createBrowserRouter([
             lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })),
           },
           { path: 'invite', lazy: () => import('./routes/invite').then((m) => ({ Component: m.InviteRoute })) },
+          // The waitlist form is public: anyone may apply, signed in or not.
+          { path: 'apply/:clubSlug', lazy: () => import('./routes/apply').then((m) => ({ Component: m.ApplyRoute })) },
           {
             path: 'respond/offer',
             lazy: () => import('./routes/respond').then((m) => ({ Component: m.OfferResponseRoute })),
@@ -70,6 +72,20 @@ export const router = createBrowserRouter([
               },
               { path: 'plots/:plotId', lazy: () => import('./routes/plot').then((m) => ({ Component: m.PlotRoute })) },
               { path: 'map', lazy: () => import('./routes/map').then((m) => ({ Component: m.MapRoute })) },
+              { path: 'fees', lazy: () => import('./routes/fees').then((m) => ({ Component: m.FeesRoute })) },
+              {
+                path: 'settings',
+                lazy: () => import('./routes/club-settings').then((m) => ({ Component: m.ClubSettingsRoute })),
+              },
+              {
+                path: 'waitlist',
+                lazy: () => import('./routes/waitlist').then((m) => ({ Component: m.WaitlistRoute })),
+              },
+              { path: 'messages', lazy: () => import('./routes/messages').then((m) => ({ Component: m.MessagesRoute })) },
+              {
+                path: 'email-choices',
+                lazy: () => import('./routes/email-choices').then((m) => ({ Component: m.EmailChoicesRoute })),
+              },
               {
                 path: 'spring-round',
                 lazy: () => import('./routes/spring-round').then((m) => ({ Component: m.SpringRoundRoute })),

@@ -11,6 +11,13 @@ export const paths = {
   sitePlots: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/plots`,
   plot: (clubId: number, plotId: number) => `/clubs/${clubId}/plots/${plotId}`,
   springRound: (clubId: number) => `/clubs/${clubId}/spring-round`,
+  waitlist: (clubId: number) => `/clubs/${clubId}/waitlist`,
+  messages: (clubId: number) => `/clubs/${clubId}/messages`,
+  emailChoices: (clubId: number) => `/clubs/${clubId}/email-choices`,
+  /** The public application form; shared with people who want a plot. */
+  apply: (clubSlug: string) => `/apply/${encodeURIComponent(clubSlug)}`,
+  fees: (clubId: number, year?: number) => `/clubs/${clubId}/fees${year ? `?year=${year}` : ''}`,
+  clubSettings: (clubId: number) => `/clubs/${clubId}/settings`,
   myPlot: (clubId: number) => `/clubs/${clubId}/my-plot`,
   shifts: (clubId: number) => `/clubs/${clubId}/shifts`,
 };

@@ -221,6 +221,16 @@ describe('invitations', () => {
     expect(res.body.error.message).toMatch(/expired/);
   });
 
+  it('invites someone an import added without a password, even though they hold the roles', async () => {
+    const club = await buildClub(t.db);
+    const coord = await buildMember(t.db, { clubId: club.id, roles: ['coordinator'] });
+    const imported = await buildMember(t.db, { clubId: club.id, roles: ['plot_holder'], user: { password: null } });
+    const c = await browserLikeAgent(t.app);
+    await c.signIn(coord.email, coord.password!);
+    const res = await c.post(`/api/clubs/${club.id}/invites`, { email: imported.email, name: 'Imported', roles: ['plot_holder'] });
+    expect(res.status).toBe(201);
+  });
+
   it('refuses to invite someone who already holds those roles (409 with the field)', async () => {
     const club = await buildClub(t.db);
     const coord = await buildMember(t.db, { clubId: club.id, roles: ['coordinator'] });

@@ -61,3 +61,36 @@ export async function buildMember(
   await db('memberships').insert(roles.map((role) => ({ club_id: clubId, user_id: user.id, role })));
   return { ...user, clubId, roles };
 }
+
+/** Puts someone on a club's waitlist; appliedAt (default now) also sets their place in the queue. */
+export async function buildApplication(
+  db: Knex,
+  opts: {
+    clubId: number;
+    name?: string;
+    email?: string;
+    appliedAt?: Date;
+    status?: 'waiting' | 'offered' | 'allocated' | 'removed' | 'withdrawn';
+    needsAccessible?: boolean;
+    needsRaised?: boolean;
+    preferredSiteId?: number | null;
+    preferredSize?: 'small' | 'medium' | 'large' | 'any';
+  },
+): Promise<{ id: number; name: string; email: string }> {
+  const at = opts.appliedAt ?? new Date();
+  const [row] = await db('applications')
+    .insert({
+      club_id: opts.clubId,
+      name: opts.name ?? 'Waiting Person',
+      email: opts.email ?? `applicant-${next()}@example.org`,
+      status: opts.status ?? 'waiting',
+      needs_accessible: opts.needsAccessible ?? false,
+      needs_raised: opts.needsRaised ?? false,
+      preferred_site_id: opts.preferredSiteId ?? null,
+      preferred_size: opts.preferredSize ?? 'any',
+      applied_at: at,
+      queue_at: at,
+    })
+    .returning(['id', 'name', 'email']);
+  return row;
+}

@@ -22,6 +22,7 @@ function SignedInFrame({ user }: { user: SessionUser }) {
       nav={club ? navItemsFor(club) : []}
       clubPicker={<ClubSwitcher clubs={user.clubs} currentClubId={club?.clubId ?? null} />}
       personName={user.name}
+      accountLink={club ? { to: paths.emailChoices(club.clubId), label: 'E-mail choices' } : undefined}
       onSignOut={() => signOut.mutate()}
       signingOut={signOut.isPending}
     >

@@ -1,8 +1,14 @@
 import { ClubHome } from '@/features/clubs/components/club-home';
+import { MyFees } from '@/features/fees/components/my-fees';
 import { useClubContext } from '../app-context';
 
 /** `/clubs/:clubId`: the club's home page. */
 export function ClubHomeRoute() {
   const { user, club } = useClubContext();
-  return <ClubHome club={club} personName={user.name} />;
+  return (
+    <>
+      <ClubHome club={club} personName={user.name} />
+      {club.roles.includes('plot_holder') && <MyFees clubId={club.clubId} />}
+    </>
+  );
 }

@@ -1,6 +1,6 @@
 import { useEffect, useId, useState, type ReactNode } from 'react';
 import { Link, NavLink } from 'react-router-dom';
-import { LogOut, Menu, X, type LucideIcon } from 'lucide-react';
+import { LogOut, Mail, Menu, X, type LucideIcon } from 'lucide-react';
 import { Button } from '@/components/ui/button';
 import { Wordmark } from './logo';
 
@@ -20,6 +20,8 @@ export interface AppLayoutProps {
   /** The club switcher (or the club's name), supplied by the app. */
   clubPicker?: ReactNode;
   personName: string;
+  /** The person's own settings in this club (their e-mail choices), shown beside their name. */
+  accountLink?: { to: string; label: string };
   onSignOut: () => void;
   signingOut: boolean;
   children: ReactNode;
@@ -71,7 +73,16 @@ function NavLinks({ items, stacked, soonNoteId, onNavigate }: {
 }
 
 /** Signed-in frame: top bar, role-based navigation (a menu on phones) and the main area. */
-export function AppLayout({ homeHref, nav, clubPicker, personName, onSignOut, signingOut, children }: AppLayoutProps) {
+export function AppLayout({
+  homeHref,
+  nav,
+  clubPicker,
+  personName,
+  accountLink,
+  onSignOut,
+  signingOut,
+  children,
+}: AppLayoutProps) {
   const [menuOpen, setMenuOpen] = useState(false);
   const ids = useId();
   const menuId = `${ids}-menu`;
@@ -110,6 +121,12 @@ export function AppLayout({ homeHref, nav, clubPicker, personName, onSignOut, si
             <span className="max-w-48 truncate text-stone" title={personName}>
               {personName}
             </span>
+            {accountLink && (
+              <NavLink to={accountLink.to} className={({ isActive }) => navClasses(isActive, false)}>
+                <Mail className="size-5 shrink-0" aria-hidden="true" />
+                <span className="whitespace-nowrap">{accountLink.label}</span>
+              </NavLink>
+            )}
             <Button variant="secondary" onClick={onSignOut} loading={signingOut} loadingText="Signing out…">
               <LogOut className="size-5" aria-hidden="true" />
               Sign out
@@ -141,8 +158,14 @@ export function AppLayout({ homeHref, nav, clubPicker, personName, onSignOut, si
                 <NavLinks items={nav} stacked soonNoteId={soonNoteId} onNavigate={closeMenu} />
               </nav>
             )}
-            <div className="mt-4 flex items-center justify-between gap-3 border-t border-paper-200 pt-4">
+            <div className="mt-4 flex flex-wrap items-center justify-between gap-3 border-t border-paper-200 pt-4">
               <span className="min-w-0 truncate text-stone">{personName}</span>
+              {accountLink && (
+                <NavLink to={accountLink.to} onClick={closeMenu} className="inline-flex min-h-11 items-center gap-2 underline">
+                  <Mail className="size-5 shrink-0" aria-hidden="true" />
+                  {accountLink.label}
+                </NavLink>
+              )}
               <Button variant="secondary" onClick={onSignOut} loading={signingOut} loadingText="Signing out…">
                 <LogOut className="size-5" aria-hidden="true" />
                 Sign out

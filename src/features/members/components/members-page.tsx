@@ -10,6 +10,7 @@ import { useInvites } from '../api/get-invites';
 import { useMembers } from '../api/get-members';
 import { InviteForm } from './invite-form';
 import { InvitesTable } from './invites-table';
+import { MembersImport } from './members-import';
 import { MembersTable } from './members-table';
 import { NotAllowed } from './not-allowed';
 
@@ -104,6 +105,12 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
             )}
           </Section>
         </div>
+
+        <Section id="import-export" title="Import and download">
+          <Card>
+            <MembersImport clubId={clubId} />
+          </Card>
+        </Section>
       </div>
     </>
   );

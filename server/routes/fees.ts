@@ -1,0 +1,82 @@
+import { Router } from 'express';
+import { FeeScheduleSchema, FeesQuerySchema, PaymentBodySchema } from '@shared/schemas/fees';
+import type { Deps } from '../deps';
+import { parseInput } from '../errors';
+import { requireClubRole, requireRoleVia, requireUser } from '../middleware/auth';
+import { getClubSettings } from '../services/clubs';
+import {
+  clubOfFee,
+  exportFeesCsv,
+  getFeeSchedule,
+  listFees,
+  listMyFees,
+  recordPayment,
+  saveFeeSchedule,
+} from '../services/fees';
+
+// A byte-order mark makes spreadsheet programs read the file as UTF-8 (common practice).
+const BOM = '\uFEFF';
+
+/**
+ * A club's fee schedule and fees (coordinators), mounted at /api/clubs/:clubId. Roles are checked per
+ * route so other /api/clubs/:clubId/... paths pass through untouched.
+ */
+export function clubFeesRouter({ db }: Deps): Router {
+  const router = Router({ mergeParams: true });
+  const coordinator = requireClubRole(db, 'coordinator');
+
+  router.get('/fee-schedule', coordinator, async (req, res) => {
+    res.json(await getFeeSchedule(db, req.clubId!));
+  });
+
+  router.put('/fee-schedule', coordinator, async (req, res) => {
+    const body = parseInput(FeeScheduleSchema, req.body);
+    res.json(await saveFeeSchedule(db, req.clubId!, body));
+  });
+
+  router.get('/fees', coordinator, async (req, res) => {
+    const query = parseInput(FeesQuerySchema, req.query);
+    res.json(await listFees(db, req.clubId!, query));
+  });
+
+  router.get('/fees.csv', coordinator, async (req, res) => {
+    const query = parseInput(FeesQuerySchema, req.query);
+    const club = await getClubSettings(db, req.clubId!);
+    const csv = await exportFeesCsv(db, req.clubId!, query);
+    res.attachment(`${club.slug}-fees${query.year ? `-${query.year}` : ''}.csv`);
+    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Cache-Control': 'private, no-cache' });
+    res.send(BOM + csv);
+  });
+
+  return router;
+}
+
+/** Payments against one fee, mounted at /api/fees. */
+export function feesRouter({ db, mailer }: Deps): Router {
+  const router = Router();
+  const coordinator = requireRoleVia(db, 'feeId', clubOfFee, 'The fee', 'coordinator');
+
+  router.post('/:feeId/payments', coordinator, async (req, res) => {
+    const body = parseInput(PaymentBodySchema, req.body);
+    const fee = await recordPayment(db, mailer, {
+      feeId: Number(req.params.feeId),
+      userId: req.session.userId!,
+      body,
+      onMailError: (err) => req.log.warn({ err }, 'payment receipt e-mail failed'),
+    });
+    res.status(201).json(fee);
+  });
+
+  return router;
+}
+
+/** The signed-in person's own fees, mounted at /api/me/fees. */
+export function myFeesRouter({ db }: Deps): Router {
+  const router = Router();
+
+  router.get('/', requireUser, async (req, res) => {
+    res.json(await listMyFees(db, req.session.userId!));
+  });
+
+  return router;
+}

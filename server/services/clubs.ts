@@ -1,0 +1,69 @@
+import type { Knex } from 'knex';
+import type { ClubSettings, ClubSettingsUpdateBody } from '@shared/schemas/clubs';
+import { AppError, notFound } from '../errors';
+import type { Db } from '../db/knex';
+
+interface ClubRow {
+  id: number;
+  name: string;
+  slug: string;
+  currency: ClubSettings['currency'];
+  offer_days: number;
+  renewal_days: number;
+  declined_offer_policy: ClubSettings['declinedOfferPolicy'];
+  allow_multiple_offers: boolean;
+}
+
+function toClubSettings(r: ClubRow): ClubSettings {
+  return {
+    id: r.id,
+    name: r.name,
+    slug: r.slug,
+    currency: r.currency,
+    offerDays: r.offer_days,
+    renewalDays: r.renewal_days,
+    declinedOfferPolicy: r.declined_offer_policy,
+    allowMultipleOffers: r.allow_multiple_offers,
+  };
+}
+
+const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers'];
+
+/** A club's name and the spring-round rules it has chosen. */
+export async function getClubSettings(db: Db, clubId: number): Promise<ClubSettings> {
+  const row: ClubRow | undefined = await db('clubs').where({ id: clubId }).first(columns);
+  if (!row) throw notFound('The club');
+  return toClubSettings(row);
+}
+
+/**
+ * Changes a club's name and rules. The currency is fixed once a fee is recorded, because fees keep the
+ * currency they were charged in and the club's totals add them up as one currency.
+ */
+export async function updateClubSettings(db: Knex, clubId: number, body: ClubSettingsUpdateBody): Promise<ClubSettings> {
+  return db.transaction(async (trx) => {
+    const current: ClubRow | undefined = await trx('clubs').where({ id: clubId }).forUpdate().first(columns);
+    if (!current) throw notFound('The club');
+    if (body.currency !== undefined && body.currency !== current.currency) {
+      const fee = await trx('fees').where({ club_id: clubId }).first('id');
+      if (fee) {
+        throw new AppError('conflict', `Fees are already recorded in ${current.currency}, so the currency cannot change.`, {
+          currency: `Fees are already recorded in ${current.currency}`,
+        });
+      }
+    }
+    const changes = {
+      name: body.name,
+      currency: body.currency,
+      offer_days: body.offerDays,
+      renewal_days: body.renewalDays,
+      declined_offer_policy: body.declinedOfferPolicy,
+      allow_multiple_offers: body.allowMultipleOffers,
+    };
+    const set = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined));
+    if (Object.keys(set).length > 0) {
+      await trx('clubs').where({ id: clubId }).update({ ...set, updated_at: trx.fn.now() });
+    }
+    return getClubSettings(trx, clubId);
+  });
+}

@@ -1,0 +1,165 @@
+import type { Knex } from 'knex';
+import type {
+  Mailing,
+  MailingAudience,
+  MailingCreateBody,
+  MailingSent,
+  MailPreferences,
+} from '@shared/schemas/mailings';
+import { AppError, notFound } from '../errors';
+import type { Db } from '../db/knex';
+import type { Mailer } from '../mail/mailer';
+import { clubNewsMail } from '../mail/mailing-templates';
+
+/** The one optional topic; offers, renewals, receipts and resets are required and never look here. */
+export const CLUB_NEWS = 'club_news';
+
+interface Recipient {
+  id: number;
+  name: string;
+  email: string;
+  opted_out: boolean;
+}
+
+/** The people an audience selects in a club, each once, by name, with whether they turned club news off. */
+async function audiencePeople(db: Db, clubId: number, audience: MailingAudience): Promise<Recipient[]> {
+  const q =
+    audience.kind === 'all_members'
+      ? db('memberships as m').join('users as u', 'u.id', 'm.user_id').where('m.club_id', clubId)
+      : db('allocations as a')
+          .join('seasons as se', 'se.id', 'a.season_id')
+          .join('users as u', 'u.id', 'a.user_id')
+          .where({ 'se.club_id': clubId, 'se.year': audience.year, 'a.status': 'active' });
+  if (audience.kind === 'site') q.join('plots as p', 'p.id', 'a.plot_id').where('p.site_id', audience.siteId);
+  return q
+    .leftJoin('mail_preferences as mp', (j) =>
+      j.on('mp.user_id', 'u.id').andOn('mp.club_id', db.raw('?', [clubId])).andOn('mp.topic', db.raw('?', [CLUB_NEWS])),
+    )
+    .distinct('u.id', 'u.name', 'u.email', db.raw('coalesce(mp.is_subscribed = false, false) as opted_out'))
+    .orderBy('u.name')
+    .orderBy('u.id');
+}
+
+async function siteName(db: Db, clubId: number, siteId: number): Promise<string | null> {
+  const site = await db('sites').where({ id: siteId, club_id: clubId }).first('name');
+  return site ? site.name : null;
+}
+
+/** Says who an audience is, for the sent list; the footer says the same to each person in their own words. */
+function audienceWords(audience: MailingAudience, clubName: string, site: string | null) {
+  switch (audience.kind) {
+    case 'all_members':
+      return { label: 'Everyone in the club', because: `you are a member of ${clubName}` };
+    case 'season':
+      return { label: `Plot holders in ${audience.year}`, because: `you hold a plot at ${clubName} in ${audience.year}` };
+    case 'site':
+      return {
+        label: `Plot holders at ${site ?? 'a removed site'} in ${audience.year}`,
+        because: `you hold a plot at ${site ?? 'a site'} (${clubName}) in ${audience.year}`,
+      };
+  }
+}
+
+/**
+ * Sends a club message to each person in the audience as their own e-mail, skipping people who
+ * turned club news off, and records the mailing with how many it was for and how many went out.
+ */
+export async function sendMailing(
+  db: Knex,
+  mailer: Mailer,
+  opts: { clubId: number; userId: number; body: MailingCreateBody; publicUrl: string },
+): Promise<MailingSent> {
+  const { clubId, body } = opts;
+  const club = await db('clubs').where({ id: clubId }).first('name');
+  if (!club) throw notFound('The club');
+  let site: string | null = null;
+  if (body.audience.kind === 'site') {
+    site = await siteName(db, clubId, body.audience.siteId);
+    if (!site) {
+      throw new AppError('validation_failed', 'Some fields need attention.', { 'audience.siteId': "Choose one of the club's sites" });
+    }
+  }
+  const people = await audiencePeople(db, clubId, body.audience);
+  const recipients = people.filter((p) => !p.opted_out);
+  const { because } = audienceWords(body.audience, club.name, site);
+  const [row] = await db('mailings')
+    .insert({
+      club_id: clubId,
+      subject: body.subject,
+      body: body.body,
+      audience: JSON.stringify(body.audience),
+      recipient_count: recipients.length,
+      sent_count: 0,
+      sent_by_user_id: opts.userId,
+    })
+    .returning('id');
+  const preferencesUrl = `${opts.publicUrl}/clubs/${clubId}/email-choices`;
+  let sent = 0;
+  // One message per person: nobody sees anyone else's address, and one bad address stops nobody else's mail.
+  for (const p of recipients) {
+    try {
+      await mailer.send(
+        clubNewsMail({
+          to: p.email,
+          name: p.name,
+          clubName: club.name,
+          subject: body.subject,
+          body: body.body,
+          because,
+          preferencesUrl,
+        }),
+      );
+      sent++;
+    } catch {
+      // Counted below: the sent list shows how many of the recipients it reached.
+    }
+  }
+  await db('mailings').where({ id: row.id }).update({ sent_count: sent });
+  return { id: row.id, recipients: recipients.length, sent, skipped: people.length - recipients.length };
+}
+
+/** The club's past messages, newest first. */
+export async function listMailings(db: Db, clubId: number) {
+  const club = await db('clubs').where({ id: clubId }).first('name');
+  const rows = await db('mailings as m')
+    .leftJoin('users as u', 'u.id', 'm.sent_by_user_id')
+    .where('m.club_id', clubId)
+    .orderBy('m.created_at', 'desc')
+    .orderBy('m.id', 'desc')
+    .select('m.*', 'u.name as sent_by_name');
+  const siteIds = [...new Set(rows.map((r) => (r.audience as MailingAudience)).flatMap((a) => (a.kind === 'site' ? [a.siteId] : [])))];
+  const sites = new Map<number, string>(
+    siteIds.length ? (await db('sites').whereIn('id', siteIds).select('id', 'name')).map((s) => [s.id, s.name]) : [],
+  );
+  const items: Mailing[] = rows.map((r) => {
+    const audience = r.audience as MailingAudience;
+    const site = audience.kind === 'site' ? (sites.get(audience.siteId) ?? null) : null;
+    return {
+      id: r.id,
+      subject: r.subject,
+      body: r.body,
+      audience,
+      audienceLabel: audienceWords(audience, club?.name ?? '', site).label,
+      recipientCount: r.recipient_count,
+      sentCount: r.sent_count,
+      sentByName: r.sent_by_name,
+      createdAt: new Date(r.created_at).toISOString(),
+    };
+  });
+  return { items, page: 1, total: items.length };
+}
+
+/** A person's optional e-mail choices in a club; club news is on until they turn it off. */
+export async function getMailPreferences(db: Db, clubId: number, userId: number): Promise<MailPreferences> {
+  const row = await db('mail_preferences').where({ club_id: clubId, user_id: userId, topic: CLUB_NEWS }).first('is_subscribed');
+  return { clubNews: row ? row.is_subscribed : true };
+}
+
+/** Saves a person's optional e-mail choices in a club. */
+export async function setMailPreferences(db: Db, clubId: number, userId: number, prefs: MailPreferences): Promise<MailPreferences> {
+  await db('mail_preferences')
+    .insert({ club_id: clubId, user_id: userId, topic: CLUB_NEWS, is_subscribed: prefs.clubNews })
+    .onConflict(['user_id', 'club_id', 'topic'])
+    .merge({ is_subscribed: prefs.clubNews, updated_at: db.fn.now() });
+  return getMailPreferences(db, clubId, userId);
+}

@@ -1,0 +1,107 @@
+import { z } from 'zod';
+import { PreferredSizeSchema } from './applications';
+import { RoleSchema } from './auth';
+
+export const memberImportKinds = ['members', 'waitlist'] as const;
+export const MemberImportKindSchema = z.enum(memberImportKinds);
+export type MemberImportKind = z.infer<typeof MemberImportKindSchema>;
+
+/** Columns of a members file, in the order exports and the template use. */
+export const memberCsvColumns = ['name', 'email', 'roles', 'send_invite'] as const;
+/** Columns of a waitlist file, in the order exports and the template use. */
+export const waitlistCsvColumns = [
+  'name',
+  'email',
+  'phone',
+  'preferred_size',
+  'needs_accessible',
+  'needs_raised',
+  'preferred_site',
+  'applied_on',
+  'notes',
+] as const;
+/** Columns of the allocations export. */
+export const allocationCsvColumns = ['year', 'site', 'plot', 'holder_name', 'holder_email', 'status'] as const;
+
+/** The most rows one member or waitlist file may hold. */
+export const MAX_MEMBER_IMPORT_ROWS = 2000;
+
+export const MemberImportBodySchema = z.strictObject({
+  kind: MemberImportKindSchema,
+  csv: z.string().min(1, 'The file is empty').max(2_000_000, 'The file is larger than 2 MB'),
+  /** false: check and preview only; true: check and save all rows or none. */
+  commit: z.boolean(),
+});
+export type MemberImportBody = z.infer<typeof MemberImportBodySchema>;
+
+/** One problem in a file: the line (the header is line 1), the column, and what is wrong. */
+export const ImportProblemSchema = z.object({ row: z.number().int(), field: z.string(), message: z.string() });
+export type ImportProblem = z.infer<typeof ImportProblemSchema>;
+
+export const memberImportOutcomes = ['new_account', 'existing_account', 'member'] as const;
+export const memberImportOutcomeLabels: Record<(typeof memberImportOutcomes)[number], string> = {
+  new_account: 'New person',
+  existing_account: 'Has an account; joins the club',
+  member: 'Already a member; roles added',
+};
+
+/** A members row as the import reads it. */
+export const ImportedMemberSchema = z.object({
+  name: z.string(),
+  email: z.string(),
+  roles: z.array(RoleSchema),
+  /** An invitation goes out after the import (asked for, and the person has no password yet). */
+  sendInvite: z.boolean(),
+  /** They can already sign in, so no invitation is needed. */
+  hasPassword: z.boolean(),
+  /** What the import does with them: a new account, club roles for an existing account, or roles added to a member. */
+  outcome: z.enum(memberImportOutcomes),
+});
+export type ImportedMember = z.infer<typeof ImportedMemberSchema>;
+
+/** A waitlist row as the import reads it. */
+export const ImportedWaitlistEntrySchema = z.object({
+  name: z.string(),
+  email: z.string(),
+  phone: z.string(),
+  preferredSize: PreferredSizeSchema,
+  needsAccessible: z.boolean(),
+  needsRaised: z.boolean(),
+  preferredSiteId: z.number().int().nullable(),
+  preferredSiteName: z.string().nullable(),
+  /** YYYY-MM-DD; null means "today", after everyone already waiting. */
+  appliedOn: z.string().nullable(),
+  notes: z.string(),
+});
+export type ImportedWaitlistEntry = z.infer<typeof ImportedWaitlistEntrySchema>;
+
+export const MembersImportResultSchema = z.object({
+  kind: z.literal('members'),
+  rows: z.array(z.object({ row: z.number().int(), name: z.string(), email: z.string(), member: ImportedMemberSchema.nullable() })),
+  errors: z.array(ImportProblemSchema),
+  committed: z.boolean(),
+  counts: z.object({
+    imported: z.number().int(),
+    newAccounts: z.number().int(),
+    invitesSent: z.number().int(),
+    invitesFailed: z.number().int(),
+  }),
+});
+export type MembersImportResult = z.infer<typeof MembersImportResultSchema>;
+
+export const WaitlistImportResultSchema = z.object({
+  kind: z.literal('waitlist'),
+  rows: z.array(
+    z.object({ row: z.number().int(), name: z.string(), email: z.string(), entry: ImportedWaitlistEntrySchema.nullable() }),
+  ),
+  errors: z.array(ImportProblemSchema),
+  committed: z.boolean(),
+  counts: z.object({ imported: z.number().int() }),
+});
+export type WaitlistImportResult = z.infer<typeof WaitlistImportResultSchema>;
+
+export const MemberImportResultSchema = z.discriminatedUnion('kind', [MembersImportResultSchema, WaitlistImportResultSchema]);
+export type MemberImportResult = z.infer<typeof MemberImportResultSchema>;
+
+export const ImportTemplateQuerySchema = z.object({ kind: MemberImportKindSchema });
+export const AllocationsExportQuerySchema = z.object({ year: z.coerce.number().int().min(2000).max(2100).optional() });

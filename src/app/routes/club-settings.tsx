@@ -1,0 +1,23 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { sessionQueryOptions } from '@/features/auth/api/get-session';
+import { ClubSettingsPage } from '@/features/club-settings/components/club-settings-page';
+import { SettingsCoordinatorsOnly } from '@/features/club-settings/components/coordinators-only';
+import { FeeScheduleSection } from '@/features/fees/components/fee-schedule-section';
+import { useClubContext } from '../app-context';
+
+/** `/clubs/:clubId/settings`: the club's rules, then its fee schedule in the club currency. */
+export function ClubSettingsRoute() {
+  const { club } = useClubContext();
+  const queryClient = useQueryClient();
+  if (!club.roles.includes('coordinator')) return <SettingsCoordinatorsOnly clubId={club.clubId} />;
+  return (
+    <ClubSettingsPage
+      clubId={club.clubId}
+      clubName={club.clubName}
+      // The club's name shows in the header and switcher, which read it from the session.
+      onSaved={() => void queryClient.invalidateQueries({ queryKey: sessionQueryOptions().queryKey })}
+    >
+      {(settings) => <FeeScheduleSection clubId={club.clubId} currency={settings.currency} />}
+    </ClubSettingsPage>
+  );
+}

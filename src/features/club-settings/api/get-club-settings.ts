@@ -1,0 +1,22 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { ClubSettingsSchema } from '@shared/schemas/clubs';
+import { apiFetch } from '@/lib/api/client';
+import { clubSettingsKeys } from './keys';
+
+/** GET /api/clubs/:clubId: the club's name and spring-round rules (any member). */
+export function getClubSettings(clubId: number, signal?: AbortSignal) {
+  return apiFetch(`/api/clubs/${clubId}`, { schema: ClubSettingsSchema, signal });
+}
+
+/** Query options for one club's settings. */
+export function clubSettingsQueryOptions(clubId: number) {
+  return queryOptions({
+    queryKey: clubSettingsKeys.detail(clubId),
+    queryFn: ({ signal }) => getClubSettings(clubId, signal),
+  });
+}
+
+/** The club's settings, including the currency its money is shown in. */
+export function useClubSettings(clubId: number) {
+  return useQuery(clubSettingsQueryOptions(clubId));
+}

@@ -1,0 +1,148 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { ClubSettingsSchema, currencies, type ClubSettings, type ClubSettingsUpdateBody } from '@shared/schemas/clubs';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Checkbox } from '@/components/ui/checkbox';
+import { TextField } from '@/components/ui/field';
+import { Select } from '@/components/ui/select';
+import { applyServerErrors } from '@/lib/forms/server-errors';
+import { useUpdateClubSettings } from '../api/update-club-settings';
+
+const currencyLabels: Record<ClubSettings['currency'], string> = {
+  GBP: 'Pound sterling (£)',
+  EUR: 'Euro (€)',
+  USD: 'US dollar ($)',
+  CAD: 'Canadian dollar ($)',
+  AUD: 'Australian dollar ($)',
+  NZD: 'New Zealand dollar ($)',
+};
+
+const shape = ClubSettingsSchema.shape;
+const daysText = (days: typeof shape.offerDays) =>
+  z.string().trim().regex(/^\d+$/, 'Enter a whole number of days').transform(Number).pipe(days);
+
+/** What the inputs hold: day counts as typed text. */
+interface SettingsFormValues {
+  name: string;
+  currency: ClubSettings['currency'];
+  offerDays: string;
+  renewalDays: string;
+  declinedOfferPolicy: ClubSettings['declinedOfferPolicy'];
+  allowMultipleOffers: boolean;
+}
+
+const SettingsFormSchema = z.object({
+  name: z.string().trim().min(1, 'Enter a name').max(160, 'At most 160 characters'),
+  currency: shape.currency,
+  offerDays: daysText(shape.offerDays),
+  renewalDays: daysText(shape.renewalDays),
+  declinedOfferPolicy: shape.declinedOfferPolicy,
+  allowMultipleOffers: z.boolean(),
+});
+
+const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers'] as const;
+
+function toForm(s: ClubSettings): SettingsFormValues {
+  return {
+    name: s.name,
+    currency: s.currency,
+    offerDays: String(s.offerDays),
+    renewalDays: String(s.renewalDays),
+    declinedOfferPolicy: s.declinedOfferPolicy,
+    allowMultipleOffers: s.allowMultipleOffers,
+  };
+}
+
+export interface ClubSettingsFormProps {
+  settings: ClubSettings;
+  /** Called after a save, so the app can refresh what shows the club's name elsewhere. */
+  onSaved?: (settings: ClubSettings) => void;
+}
+
+/** The club's name, currency and spring-round rules. */
+export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
+  const update = useUpdateClubSettings(settings.id);
+  const [formError, setFormError] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    reset,
+    formState: { errors },
+  } = useForm<SettingsFormValues, unknown, ClubSettingsUpdateBody>({
+    resolver: zodResolver(SettingsFormSchema),
+    defaultValues: toForm(settings),
+  });
+
+  const onSubmit = handleSubmit((body) => {
+    setFormError(null);
+    setSaved(false);
+    update.mutate(body, {
+      onSuccess: (next) => {
+        reset(toForm(next));
+        setSaved(true);
+        onSaved?.(next);
+      },
+      onError: (error) => setFormError(applyServerErrors(error, setError, fieldNames)),
+    });
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
+      {saved && <Alert tone="success">Club settings saved.</Alert>}
+      {formError && <Alert tone="error">{formError}</Alert>}
+      <div className="grid gap-5 sm:grid-cols-2">
+        <TextField label="Club name" autoComplete="organization" error={errors.name?.message} {...register('name')} />
+        <Select
+          label="Currency"
+          hint="Fees and receipts are in this currency. It is fixed once the first fee is recorded."
+          error={errors.currency?.message}
+          {...register('currency')}
+        >
+          {currencies.map((c) => (
+            <option key={c} value={c}>
+              {currencyLabels[c]}
+            </option>
+          ))}
+        </Select>
+        <TextField
+          label="Days to answer an offer"
+          hint="From 1 to 60. After that the offer lapses and the plot can go to the next person."
+          inputMode="numeric"
+          error={errors.offerDays?.message}
+          {...register('offerDays')}
+        />
+        <TextField
+          label="Days to answer a renewal"
+          hint="From 1 to 90. Plots not kept by then are free for the waiting list."
+          inputMode="numeric"
+          error={errors.renewalDays?.message}
+          {...register('renewalDays')}
+        />
+        <Select
+          label="When someone declines an offer"
+          error={errors.declinedOfferPolicy?.message}
+          {...register('declinedOfferPolicy')}
+        >
+          <option value="end_of_list">Move them to the end of the waiting list</option>
+          <option value="remove">Take them off the waiting list</option>
+        </Select>
+      </div>
+      <Checkbox
+        label="Let one person hold more than one open offer at a time"
+        hint="Leave this off to offer each free plot to a different person."
+        {...register('allowMultipleOffers')}
+      />
+      {errors.allowMultipleOffers?.message && (
+        <p className="text-sm font-medium text-clay-700">{errors.allowMultipleOffers.message}</p>
+      )}
+      <Button type="submit" loading={update.isPending} loadingText="Saving…" className="self-start">
+        Save club settings
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,40 @@
+import { z } from 'zod';
+import { parseMoney } from '@shared/fees/money';
+import { ApiError, isApiError } from '@/lib/api/client';
+
+/** A form field holding money as typed ("45.00"); its parsed value is whole minor units, read exactly. */
+export const moneyText = z.string().transform((text, ctx) => {
+  const result = parseMoney(text);
+  if (!result.ok) {
+    ctx.addIssue({ code: 'custom', message: result.message });
+    return z.NEVER;
+  }
+  return result.minor;
+});
+
+/** The minor units typed into a money field, or null while it does not read as an amount. */
+export function moneyOrNull(text: string | undefined): number | null {
+  const result = parseMoney(text ?? '');
+  return result.ok ? result.minor : null;
+}
+
+const calendarFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+
+/** "2027-04-14" → "14 Apr 2027"; a calendar date has no zone, so it is read as UTC and never shifts a day. */
+export function formatCalendarDate(isoDate: string): string {
+  const date = new Date(`${isoDate}T00:00:00Z`);
+  return Number.isNaN(date.getTime()) ? isoDate : calendarFormat.format(date);
+}
+
+/** Today's date where the coordinator is, as YYYY-MM-DD. */
+export function todayIso(now = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}
+
+/** The same API error with its field names moved to the form's names, so applyServerErrors puts them on the inputs. */
+export function renameErrorFields(error: unknown, names: Record<string, string>): unknown {
+  if (!isApiError(error) || !error.fields) return error;
+  const fields = Object.fromEntries(Object.entries(error.fields).map(([k, v]) => [names[k] ?? k, v]));
+  return new ApiError({ status: error.status, code: error.code, message: error.message, fields, requestId: error.requestId });
+}

@@ -1,0 +1,7 @@
+/** Query keys for club messages: `['mailings', 'list', { clubId }]` and `['mailings', 'preferences', { clubId }]`. */
+export const mailingsKeys = {
+  all: ['mailings'] as const,
+  lists: () => [...mailingsKeys.all, 'list'] as const,
+  list: (filters: { clubId: number }) => [...mailingsKeys.lists(), filters] as const,
+  preferences: (filters: { clubId: number }) => [...mailingsKeys.all, 'preferences', filters] as const,
+};

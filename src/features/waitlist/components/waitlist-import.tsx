@@ -1,0 +1,70 @@
+import type { ColumnDef } from '@tanstack/react-table';
+import { waitlistCsvColumns, type WaitlistImportResult } from '@shared/schemas/member-imports';
+import { checkColumn, CsvImport, type PreviewRow } from '@/components/ui/csv-import';
+import { formatDate } from '@/lib/format';
+import { useImportWaitlist } from '../api/import-waitlist';
+import { waitlistTemplateUrl } from '../api/waitlist-files';
+import { needsOf, sizeShortLabels } from '../lib/format';
+import { NeedsBadges } from './needs-badges';
+
+type Row = WaitlistImportResult['rows'][number];
+
+const columns: ColumnDef<PreviewRow<Row>>[] = [
+  { id: 'row', header: 'Row', accessorFn: (r) => r.row, enableGlobalFilter: false },
+  {
+    id: 'name',
+    header: 'Name',
+    accessorFn: (r) => `${r.name} ${r.email}`,
+    cell: ({ row }) => (
+      <div>
+        <span className="block font-medium">{row.original.name || '(no name)'}</span>
+        <span className="block text-sm break-all text-stone">{row.original.email}</span>
+      </div>
+    ),
+  },
+  {
+    id: 'applied',
+    header: 'Applied',
+    accessorFn: (r) => r.entry?.appliedOn ?? '',
+    cell: ({ row }) => {
+      const entry = row.original.entry;
+      if (!entry) return '–';
+      return <span className="whitespace-nowrap">{entry.appliedOn ? formatDate(`${entry.appliedOn}T12:00:00Z`) : 'Today'}</span>;
+    },
+  },
+  {
+    id: 'size',
+    header: 'Size',
+    accessorFn: (r) => (r.entry ? sizeShortLabels[r.entry.preferredSize] : ''),
+  },
+  {
+    id: 'needs',
+    header: 'Needs',
+    accessorFn: (r) => (r.entry ? needsOf(r.entry).join(', ') : ''),
+    cell: ({ row }) => <NeedsBadges needs={row.original.entry ? needsOf(row.original.entry) : []} />,
+  },
+  {
+    id: 'site',
+    header: 'Site',
+    accessorFn: (r) => r.entry?.preferredSiteName ?? '',
+    cell: ({ row }) => row.original.entry?.preferredSiteName ?? '–',
+  },
+  checkColumn<Row>(),
+];
+
+/** Brings a waitlist kept elsewhere (a spreadsheet) into Tillwell, keeping everyone's original place. */
+export function WaitlistImport({ clubId }: { clubId: number }) {
+  const run = useImportWaitlist(clubId);
+  return (
+    <CsvImport
+      textLabel="Waitlist rows"
+      columnsHint={`The first line names the columns: name and email, then any of ${waitlistCsvColumns.slice(2).join(', ')}. applied_on (like 2024-03-15) keeps each person's place; rows without it join at the back in file order.`}
+      noun={{ one: 'person', many: 'people' }}
+      templateUrl={waitlistTemplateUrl(clubId)}
+      check={(csv) => run.mutateAsync({ csv, commit: false })}
+      commit={(csv) => run.mutateAsync({ csv, commit: true })}
+      columns={columns}
+      done={(result) => `Added ${result.counts.imported} ${result.counts.imported === 1 ? 'person' : 'people'} to the waitlist, in order of when they applied.`}
+    />
+  );
+}
