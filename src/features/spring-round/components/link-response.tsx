@@ -2,11 +2,11 @@ import { CircleCheck, Sprout } from 'lucide-react';
 import { formatMoney } from '@shared/fees/compute';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Card } from '@/components/ui/card';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { useAnswerLink, useLinkPreview, type LinkKind } from '../api/answer-link';
+import { formatDateTime } from '@/lib/format';
 
 const words = {
   offer: { title: 'A plot for you', yes: 'Accept the plot', no: 'Decline', yesBusy: 'Accepting…' },
@@ -32,16 +32,16 @@ export function LinkResponse({ kind, token }: { kind: LinkKind; token: string })
   const p = preview.data;
   if (answer.isSuccess) {
     return (
-      <Card className="space-y-3 p-6 text-center">
+      <div className="space-y-3 text-center">
         <CircleCheck className="mx-auto size-10 text-leaf" aria-hidden="true" />
         <h1 className="text-2xl font-bold">{answer.data.status === 'accepted' || answer.data.status === 'kept' ? 'Done — see you at the plot' : 'Thank you'}</h1>
         <p>{answer.data.message}</p>
-      </Card>
+      </div>
     );
   }
   const answered = p.status !== 'pending';
   return (
-    <Card className="space-y-4 p-6">
+    <div className="space-y-4">
       <p className="flex items-center gap-2 font-semibold text-leaf">
         <Sprout className="size-5" aria-hidden="true" /> {p.clubName}
       </p>
@@ -64,7 +64,7 @@ export function LinkResponse({ kind, token }: { kind: LinkKind; token: string })
           </>
         )}
         <dt className="text-stone">Answer by</dt>
-        <dd>{new Date(p.deadline).toLocaleString()}</dd>
+        <dd>{formatDateTime(p.deadline)}</dd>
       </dl>
       {answered ? (
         <Alert tone="info">This has already been answered ({p.status}). Nothing more to do.</Alert>
@@ -81,6 +81,6 @@ export function LinkResponse({ kind, token }: { kind: LinkKind; token: string })
           </div>
         </>
       )}
-    </Card>
+    </div>
   );
 }

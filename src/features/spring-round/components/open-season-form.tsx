@@ -21,14 +21,16 @@ type FormInput = z.input<typeof FormSchema>;
 export function OpenSeasonForm({ clubId, suggestedYear }: { clubId: number; suggestedYear: number }) {
   const open = useOpenSeason(clubId);
   const [alert, setAlert] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<FormInput, unknown, z.output<typeof FormSchema>>({
+  const { register, handleSubmit, setError, reset, formState } = useForm<FormInput, unknown, z.output<typeof FormSchema>>({
     resolver: zodResolver(FormSchema),
     defaultValues: { year: String(suggestedYear), renewalDeadline: format(addDays(new Date(), 14), 'yyyy-MM-dd') },
   });
   const submit = handleSubmit(async (body) => {
     setAlert(null);
     try {
-      await open.mutateAsync(body);
+      const opened = await open.mutateAsync(body);
+      // Ready for the season after, without losing the result shown below.
+      reset({ year: String(opened.season.year + 1), renewalDeadline: format(addDays(new Date(), 14), 'yyyy-MM-dd') });
     } catch (err) {
       setAlert(applyServerErrors(err, setError, ['year', 'renewalDeadline']));
     }

@@ -1,10 +1,11 @@
 import type { Season } from '@shared/schemas/seasons';
+import { formatDate } from '@/lib/format';
 
 /** The season's renewals and offers at a glance. */
 export function SeasonSummary({ season }: { season: Season }) {
   const c = season.counts;
   const items: Array<[string, number, string]> = [
-    ['Renewals waiting for an answer', c.renewalsPending, season.renewalDeadline ? `until ${new Date(season.renewalDeadline).toLocaleDateString()}` : ''],
+    ['Renewals waiting for an answer', c.renewalsPending, season.renewalDeadline ? `until ${formatDate(season.renewalDeadline)}` : ''],
     ['Plots kept', c.renewalsKept, ''],
     ['Plots given up', c.renewalsReleased, ''],
     ['Renewals not answered in time', c.renewalsLapsed, ''],

@@ -19,6 +19,7 @@ import { useElementWidth } from '../../hooks/use-element-width';
 import { initials } from './map-math';
 import { kindClasses } from './plot-shape';
 import { ScaleBar } from './scale-bar';
+import { formatDate, formatDateTime } from '@/lib/format';
 
 /** Someone on the waitlist, as the allocation map shows them. */
 export interface AllocationPerson extends SuggestPerson {
@@ -165,7 +166,7 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
       onDragEnd={onDragEnd}
       onDragCancel={() => setDragging(null)}
     >
-      <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[1fr_22rem]">
         <div className="min-w-0 space-y-3">
           {notice && (
             <div role={notice.tone === 'error' ? 'alert' : 'status'}>
@@ -210,14 +211,14 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
               {selectedState?.holder && <p>Held by {selectedState.holder.name}.</p>}
               {selectedState?.renewal && (
                 <p>
-                  Waiting for {selectedState.renewal.name} to keep or give it up (by {new Date(selectedState.renewal.deadline).toLocaleDateString()}).
+                  Waiting for {selectedState.renewal.name} to keep or give it up (by {formatDate(selectedState.renewal.deadline)}).
                 </p>
               )}
               {selectedState?.offer && (
                 <div className="flex flex-wrap items-center gap-3">
                   <p className="flex items-center gap-2">
                     <Hourglass className="size-4" aria-hidden="true" /> Offered to {selectedState.offer.name}, answer by{' '}
-                    {new Date(selectedState.offer.deadline).toLocaleString()}.
+                    {formatDateTime(selectedState.offer.deadline)}.
                   </p>
                   <Button variant="secondary" disabled={busy} onClick={() => void onWithdraw(selectedState.offer!.id).then(() => setNotice({ tone: 'success', text: 'Offer withdrawn.' }))}>
                     Withdraw offer
@@ -253,7 +254,7 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
             </Card>
           )}
         </div>
-        <Card className="h-fit p-4 lg:sticky lg:top-4">
+        <Card className="h-fit min-w-0 p-4 lg:sticky lg:top-4">
           <h2 className="flex items-center gap-2 text-xl font-semibold">
             <UserRound className="size-5" aria-hidden="true" /> Waitlist
           </h2>

@@ -220,7 +220,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null }: Map
   const helpId = `map-help-${site.id}`;
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[1fr_24rem]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[1fr_24rem]">
       <div className="min-w-0 space-y-3">
         <div className="flex flex-wrap items-center gap-2">
           {canEdit && (
