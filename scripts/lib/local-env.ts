@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import path from 'node:path';
 import { startFakeMail, type FakeMail } from '../../fake-mail/server';
 import { startCluster, type Cluster } from './postgres';
@@ -17,6 +18,9 @@ export interface LocalServices {
  */
 export async function startLocalServices(opts: { withMail: boolean }): Promise<LocalServices> {
   const dataRoot = process.env.TILLWELL_DATA_DIR ?? path.join(root, '.data');
+  // The data folder is ours: keep it enterable so the postgres user can reach its cluster inside.
+  fs.mkdirSync(dataRoot, { recursive: true });
+  fs.chmodSync(dataRoot, fs.statSync(dataRoot).mode | 0o711);
   let cluster: Cluster | null = null;
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {

@@ -76,7 +76,7 @@ function assertReachable(dir: string) {
     throw new Error(
       `PostgreSQL must run as the unprivileged user "${RUN_AS}", and that user cannot reach ${dir}. ` +
         'Every folder above it must be searchable by others (e.g. chmod o+x on a 0700 home folder), ' +
-        'or set PGDATA_DIR to a folder it can reach.',
+        'or set TILLWELL_PG_DIR to a folder it can reach.',
     );
   }
 }
@@ -174,7 +174,7 @@ function assertParentsSearchable(dir: string) {
     if (res.status !== 0) {
       throw new Error(
         `PostgreSQL runs as the unprivileged user "${RUN_AS}", which cannot enter ${cur}. ` +
-          `Make it searchable (chmod o+x ${cur}) or set PGDATA_DIR to a folder elsewhere, e.g. under /var/tmp.`,
+          `Make it searchable (chmod o+x ${cur}) or set TILLWELL_PG_DIR to a folder elsewhere, e.g. under /var/tmp.`,
       );
     }
     const up = path.dirname(cur);

@@ -158,6 +158,8 @@ export async function setSiteBackground(
 ): Promise<Site> {
   const image = await inspectBackground(opts.bytes);
   const folder = folderOf(opts.uploadDir);
+  // Only the innermost folder is private; parents such as .data stay as the system makes them.
+  await fs.mkdir(path.dirname(folder), { recursive: true });
   await fs.mkdir(folder, { recursive: true, mode: 0o700 });
   const name = `${crypto.randomBytes(16).toString('hex')}.${extensionFor[image.mime]}`;
   const file = path.join(folder, name);

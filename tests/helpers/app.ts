@@ -1,3 +1,5 @@
+import os from 'node:os';
+import path from 'node:path';
 import type { Knex } from 'knex';
 import request from 'supertest';
 import { inject } from 'vitest';
@@ -19,6 +21,8 @@ export function testConfig(env: Record<string, string> = {}): Config {
     AUTH_RATE_LIMIT: '1000',
     LOG_LEVEL: 'silent',
     STATIC_DIR: '/nonexistent',
+    // Uploads from tests go to the throwaway temp folder, never into the checkout's .data.
+    UPLOAD_DIR: path.join(os.tmpdir(), `tillwell-test-uploads-${process.pid}`),
     ...env,
   });
 }
