@@ -6,6 +6,8 @@ import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
 import { MapEditor } from '@/features/plots/components/map/map-editor';
 import { useSites } from '@/features/sites/api/get-sites';
+import { usePlotStates } from '@/features/spring-round/api/get-plot-states';
+import { useSeasons } from '@/features/spring-round/api/get-seasons';
 import { paths } from '@/lib/paths';
 import { useClubContext } from '../app-context';
 
@@ -15,6 +17,11 @@ export function MapRoute() {
   const sites = useSites(club.clubId);
   const [params, setParams] = useSearchParams();
   const canEdit = club.roles.includes('coordinator');
+  const seasons = useSeasons(club.clubId);
+  const newest = seasons.data?.items[0] ?? null;
+  const wantedSite = Number(params.get('site'));
+  const shownSiteId = sites.data ? (sites.data.items.find((s) => s.id === wantedSite) ?? sites.data.items[0])?.id ?? 0 : 0;
+  const states = usePlotStates(newest?.id ?? null, shownSiteId);
 
   if (sites.isPending) return <LoadingState label="Loading the sites…" />;
   if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
@@ -74,6 +81,8 @@ export function MapRoute() {
         site={site}
         canEdit={canEdit}
         initialPlotId={Number(params.get('plot')) || null}
+        seasonStates={states.data?.items}
+        seasonYear={newest?.year}
         plotHref={(plotId) => paths.plot(club.clubId, plotId)}
       />
     </div>

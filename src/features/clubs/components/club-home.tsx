@@ -4,8 +4,10 @@ import {
   CalendarRange,
   ChartNoAxesColumn,
   Clock,
+  Coins,
   Droplets,
   HandHelping,
+  ListOrdered,
   Map as MapIcon,
   Shovel,
   Users,
@@ -29,8 +31,15 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
   switch (role) {
     case 'coordinator':
       return [
-        { title: 'Map', body: 'Draw the beds and paths, and see who holds each plot.', icon: MapIcon },
-        { title: 'Spring round', body: 'Offer free plots to the waiting list, one round at a time.', icon: CalendarRange },
+        { title: 'Map', body: 'Draw the plots and paths to scale, and see each plot’s neighbours.', icon: MapIcon, href: paths.map(clubId) },
+        {
+          title: 'Spring round',
+          body: 'Renew last season’s holders, then offer free plots to the waitlist in fair order.',
+          icon: CalendarRange,
+          href: paths.springRound(clubId),
+        },
+        { title: 'Waitlist', body: 'Everyone waiting for a plot, in the order they applied.', icon: ListOrdered, href: paths.waitlist(clubId) },
+        { title: 'Fees', body: 'What each holder owes, what has come in, and deposits held.', icon: Coins, href: paths.fees(clubId) },
         { title: 'Season at a glance', body: 'Plots taken, shifts covered and hours given this season.', icon: ChartNoAxesColumn },
         {
           title: 'Members',

@@ -19,7 +19,7 @@ export function plotStatesQueryOptions(seasonId: number, siteId: number) {
   });
 }
 
-/** Free, offered, renewing and taken plots of one site in one season. */
-export function usePlotStates(seasonId: number, siteId: number) {
-  return useQuery(plotStatesQueryOptions(seasonId, siteId));
+/** Free, offered, renewing and taken plots of one site in one season (waits while there is no season). */
+export function usePlotStates(seasonId: number | null, siteId: number) {
+  return useQuery({ ...plotStatesQueryOptions(seasonId ?? 0, siteId), enabled: seasonId !== null });
 }

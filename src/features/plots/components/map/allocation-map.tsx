@@ -16,8 +16,8 @@ import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { useSitePlots } from '../../api/get-site-plots';
 import { useElementWidth } from '../../hooks/use-element-width';
-import { initials } from './map-math';
 import { kindClasses } from './plot-shape';
+import { statusClasses, statusWord } from './season-status';
 import { ScaleBar } from './scale-bar';
 import { formatDate, formatDateTime } from '@/lib/format';
 
@@ -37,13 +37,6 @@ export interface AllocationMapProps {
   onWithdraw(offerId: number): Promise<unknown>;
 }
 
-// Fill and a word say the status, so it reads without colour too.
-const statusClasses: Record<PlotSeasonStatus, string> = {
-  free: 'bg-white',
-  renewal_pending: 'bg-paper-200',
-  offered: 'bg-straw',
-  taken: 'bg-shoot-100',
-};
 
 function fits(person: AllocationPerson, plot: Plot, siteId: number) {
   return meetsNeeds(person, { ...plot, siteId });
@@ -73,7 +66,7 @@ function PlotTile({ plot, state, scale, selected, onSelect }: { plot: Plot; stat
       <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>
       {Math.min(w, h) >= 30 && (
         <span className="max-w-full truncate px-0.5 text-[0.85em] leading-tight">
-          {status === 'free' ? 'free' : status === 'taken' ? initials(who ?? '') : status === 'offered' ? 'offered' : 'renewal?'}
+          {statusWord(status, who)}
         </span>
       )}
     </button>

@@ -3,6 +3,7 @@ import { Minus, Plus, SquarePlus } from 'lucide-react';
 import { useCallback, useMemo, useState, type KeyboardEvent } from 'react';
 import { footprint, overlaps, snap, type Rect } from '@shared/geometry';
 import type { Plot, PlotCreateBody } from '@shared/schemas/plots';
+import type { PlotSeasonState } from '@shared/schemas/seasons';
 import type { Site } from '@shared/schemas/sites';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -28,6 +29,9 @@ export interface MapEditorProps {
   plotHref(plotId: number): string;
   /** A plot to select when the map opens (from a plot page's "Edit on the map"). */
   initialPlotId?: number | null;
+  /** The newest season's status of each plot, to show who holds what. */
+  seasonStates?: PlotSeasonState[];
+  seasonYear?: number;
 }
 
 interface DragState {
@@ -47,7 +51,7 @@ function rectOf(p: Plot): Rect {
 }
 
 /** The site map: plots to scale on the site's grid, moved and resized by pointer or keyboard, each change saved at once. */
-export function MapEditor({ site, canEdit, plotHref, initialPlotId = null }: MapEditorProps) {
+export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seasonStates, seasonYear }: MapEditorProps) {
   const plotsQuery = useSitePlots(site.id);
   const neighboursQuery = useSiteNeighbours(site.id);
   const updatePlot = useUpdatePlot(site.id);
@@ -68,6 +72,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null }: Map
   const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 4 } }));
 
   const plots = useMemo(() => plotsQuery.data?.items ?? [], [plotsQuery.data]);
+  const seasonOf = useMemo(() => new Map((seasonStates ?? []).map((s) => [s.plotId, s])), [seasonStates]);
   const selected = plots.find((p) => p.id === selectedId) ?? null;
 
   /** Where the plot would go if the current drag ended now: snapped to the grid and kept on the site. */
@@ -290,6 +295,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null }: Map
                     mark={mark}
                     canEdit={canEdit}
                     describedBy={helpId}
+                    season={seasonOf.get(p.id)}
                     onSelect={() => setSelectedId(p.id)}
                     onBlur={() => {
                       if (drag?.byKeyboard && drag.plotId === p.id) setDrag(null);
@@ -311,7 +317,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null }: Map
             {plots.length} plots · path width {site.units === 'us' ? `${Math.round((site.pathWidth / 0.3048) * 10) / 10} ft` : `${site.pathWidth} m`}
           </span>
         </div>
-        <MapLegend />
+        <MapLegend seasonYear={seasonStates ? seasonYear : undefined} />
       </div>
       <Card className="h-fit p-4 lg:sticky lg:top-4">
         {selected ? (

@@ -3,6 +3,8 @@ import { Accessibility, Droplet } from 'lucide-react';
 import type { KeyboardEvent } from 'react';
 import { footprint, type Rect } from '@shared/geometry';
 import type { Plot } from '@shared/schemas/plots';
+import { plotSeasonStatusLabels, type PlotSeasonState } from '@shared/schemas/seasons';
+import { statusClasses, statusWord } from './season-status';
 
 export type PlotMark = 'selected' | 'neighbour' | 'blocked' | null;
 
@@ -17,6 +19,8 @@ export interface PlotShapeProps {
   onBlur(): void;
   onKeyCommand(e: KeyboardEvent<HTMLElement>): boolean;
   describedBy: string;
+  /** This season's status and holder, when a season is open. */
+  season?: PlotSeasonState;
 }
 
 // Kind is told by outline shape, never by colour alone.
@@ -34,13 +38,14 @@ const markClasses: Record<Exclude<PlotMark, null>, string> = {
 };
 
 /** One plot on the map, drawn to scale; drag it to move it (pointer or keyboard). */
-export function PlotShape({ plot, rect, scale, mark, canEdit, onSelect, onBlur, onKeyCommand, describedBy }: PlotShapeProps) {
+export function PlotShape({ plot, rect, scale, mark, canEdit, onSelect, onBlur, onKeyCommand, describedBy, season }: PlotShapeProps) {
   const { attributes, listeners, setNodeRef, isDragging } = useDraggable({ id: `move:${plot.id}`, disabled: !canEdit });
   const fp = footprint(rect);
   const w = (fp.maxX - fp.minX) * scale;
   const h = (fp.maxY - fp.minY) * scale;
   const small = Math.min(w, h) < 34;
   const fontPx = Math.max(10, Math.min(15, Math.min(w, h) / 3));
+  const who = season?.holder?.name ?? season?.offer?.name ?? season?.renewal?.name ?? null;
   return (
     <div
       ref={setNodeRef}
@@ -50,6 +55,7 @@ export function PlotShape({ plot, rect, scale, mark, canEdit, onSelect, onBlur, 
       aria-roledescription={canEdit ? 'movable plot' : 'plot'}
       aria-describedby={describedBy}
       aria-label={`Plot ${plot.label}`}
+      aria-description={season ? `${plotSeasonStatusLabels[season.status]}${who ? `, ${who}` : ''}` : undefined}
       aria-pressed={mark === 'selected'}
       data-plot-label={plot.label}
       tabIndex={0}
@@ -59,13 +65,14 @@ export function PlotShape({ plot, rect, scale, mark, canEdit, onSelect, onBlur, 
       onKeyDown={(e) => {
         onKeyCommand(e);
       }}
-      className={`absolute flex flex-col items-center justify-center overflow-hidden bg-white/85 text-soil select-none ${
+      className={`absolute flex flex-col items-center justify-center overflow-hidden text-soil select-none ${season ? statusClasses[season.status] : 'bg-white/85'} ${
         kindClasses[plot.kind]
       } ${mark ? markClasses[mark] : ''} ${canEdit ? 'cursor-grab touch-none' : 'cursor-pointer'} ${isDragging ? 'cursor-grabbing opacity-90 shadow-lg' : ''}`}
       style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: fontPx }}
       title={plot.label}
     >
       <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>
+      {season && !small && <span className="max-w-full truncate px-0.5 text-[0.85em] leading-tight">{statusWord(season.status, who)}</span>}
       {!small && (plot.isAccessible || plot.hasWaterTap) && (
         <span className="mt-0.5 flex gap-0.5 text-water-700" aria-hidden="true">
           {plot.isAccessible && <Accessibility className="size-3.5" />}
