@@ -9,7 +9,7 @@ import {
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
-import { publicFormRateLimit } from '../middleware/form-rate-limit';
+import { publicFormRateLimit } from '../middleware/rate-limit';
 import {
   applicationHistory,
   applyInfo,

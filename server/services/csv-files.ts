@@ -2,8 +2,9 @@ import Papa from 'papaparse';
 import type { ImportProblem } from '@shared/schemas/member-imports';
 import { AppError } from '../errors';
 
-// The same file rules as the plot import: the header is line 1 and names ignore case (spaces and
-// dashes read as underscores); comma, semicolon or tab separate cells; problems name the line.
+// One set of file rules for every import (plots, members, waitlist): the header is line 1 and names
+// ignore case (spaces and dashes read as underscores); comma, semicolon or tab separate cells;
+// problems name the line.
 
 // Exports put a quote before a cell a spreadsheet would run as a formula (OWASP "CSV injection");
 // reading one back takes the quote off again.
@@ -75,6 +76,8 @@ export function readCsvTable<C extends string>(
     maxRows: number;
     /** Other header names people write for a column, normalised ("e_mail" for email). */
     aliases?: Record<string, C>;
+    /** The problem for a file over maxRows, when the import words it its own way. */
+    tooManyRows?: (count: number, max: number) => string;
   },
 ): CsvTable<C> {
   const { records, errors } = readCsvRecords(csv);
@@ -97,7 +100,8 @@ export function readCsvTable<C extends string>(
   for (const c of missing) errors.push({ row: 1, field: c, message: `The required column "${c}" is missing` });
   if (data.length === 0) errors.push({ row: 1, field: '', message: `The file has no ${opts.noun} rows under the header` });
   if (data.length > opts.maxRows) {
-    errors.push({ row: 1, field: '', message: `The file has ${data.length} rows; import at most ${opts.maxRows} at a time` });
+    const message = opts.tooManyRows?.(data.length, opts.maxRows) ?? `The file has ${data.length} rows; import at most ${opts.maxRows} at a time`;
+    errors.push({ row: 1, field: '', message });
     return { rows: [], errors, unreadable: true };
   }
   const rows = data.map((record) => ({
@@ -146,7 +150,7 @@ export function sortProblems(problems: ImportProblem[], columns: readonly string
   return [...problems].sort(byPosition(columns));
 }
 
-/** The 400 a refused commit answers: fields keyed "row N.column" (or "row N"), as the plot import does. */
+/** The 400 a refused commit answers: fields keyed "row N.column" (or "row N" for the whole row or file). */
 export function importRefusal(errors: ImportProblem[]): AppError {
   const fields: Record<string, string> = {};
   for (const e of errors) {

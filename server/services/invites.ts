@@ -53,32 +53,57 @@ export async function createInvite(
       });
     }
   }
-  const now = opts.now ?? new Date();
+  const row = await issueInvite(db, mailer, {
+    clubId,
+    clubName: club.name,
+    invitedBy: opts.invitedBy,
+    name: body.name,
+    email: body.email,
+    roles: body.roles,
+    publicUrl: opts.publicUrl,
+    now: opts.now,
+  });
+  return toInvite(row);
+}
+
+export interface InviteToIssue {
+  clubId: number;
+  clubName: string;
+  invitedBy: number;
+  name: string;
+  email: string;
+  roles: Role[];
+  publicUrl: string;
+  now?: Date;
+}
+
+/** Records an invitation and e-mails its link; the members page and a members import both invite this way. */
+export async function issueInvite(db: Knex, mailer: Mailer, p: InviteToIssue): Promise<InviteRow> {
+  const now = p.now ?? new Date();
   const { token, hash } = newToken();
   const expiresAt = new Date(now.getTime() + INVITE_TTL_MS);
   const [row] = await db('invites')
     .insert({
-      club_id: clubId,
-      email: body.email,
-      name: body.name,
-      roles: body.roles,
+      club_id: p.clubId,
+      email: p.email,
+      name: p.name,
+      roles: p.roles,
       token_hash: hash,
       expires_at: expiresAt,
-      invited_by_user_id: opts.invitedBy,
+      invited_by_user_id: p.invitedBy,
     })
     .returning('*');
-  const url = `${opts.publicUrl}/invite?token=${encodeURIComponent(token)}`;
   await mailer.send(
     inviteMail({
-      to: body.email,
-      name: body.name,
-      clubName: club.name,
-      roles: body.roles.map((r) => roleLabels[r]),
-      url,
+      to: p.email,
+      name: p.name,
+      clubName: p.clubName,
+      roles: p.roles.map((r) => roleLabels[r]),
+      url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
       expiresAt,
     }),
   );
-  return toInvite(row);
+  return row;
 }
 
 /** The club's invitations that are neither accepted nor expired, newest first. */

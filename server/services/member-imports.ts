@@ -15,13 +15,10 @@ import {
 import { notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
-import { inviteMail } from '../mail/templates';
+import { issueInvite } from './invites';
 import { grantRoles } from './memberships';
-import { newToken } from './tokens';
 import { csvText, importRefusal, readCsvTable, readYesNo, sortProblems, squash, unguard } from './csv-files';
 
-// Same as an invitation made on the members page.
-const INVITE_TTL_MS = 14 * 24 * 60 * 60 * 1000;
 const DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
 
 type MemberColumn = (typeof memberCsvColumns)[number];
@@ -135,35 +132,6 @@ async function accountsByEmail(db: Db, clubId: number, emails: string[]) {
   return found;
 }
 
-/** Records an invitation for an imported person and e-mails its link, like the members page does. */
-async function sendImportInvite(
-  db: Knex,
-  mailer: Mailer,
-  p: { clubId: number; clubName: string; invitedBy: number; name: string; email: string; roles: Role[]; publicUrl: string },
-) {
-  const { token, hash } = newToken();
-  const expiresAt = new Date(Date.now() + INVITE_TTL_MS);
-  await db('invites').insert({
-    club_id: p.clubId,
-    email: p.email,
-    name: p.name,
-    roles: p.roles,
-    token_hash: hash,
-    expires_at: expiresAt,
-    invited_by_user_id: p.invitedBy,
-  });
-  await mailer.send(
-    inviteMail({
-      to: p.email,
-      name: p.name,
-      clubName: p.clubName,
-      roles: p.roles.map((r) => roleLabels[r]),
-      url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
-      expiresAt,
-    }),
-  );
-}
-
 /**
  * Checks a members CSV and, with commit, adds every row or none: new people get an account without a
  * password, everyone gets their roles, and rows asking for it get an invitation to choose a password.
@@ -222,7 +190,7 @@ export async function importMembers(
     const m = r.member!;
     if (!m.sendInvite) continue;
     try {
-      await sendImportInvite(db, mailer, {
+      await issueInvite(db, mailer, {
         clubId: opts.clubId,
         clubName: club.name,
         invitedBy: opts.userId,

@@ -1,5 +1,4 @@
 import type { Knex } from 'knex';
-import Papa from 'papaparse';
 import {
   DEFAULT_EPS,
   feetToMetres,
@@ -21,9 +20,10 @@ import {
   type PlotCreateBody,
   type PlotImportResult,
 } from '@shared/schemas/plots';
-import { AppError, notFound } from '../errors';
+import { notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { plotColumns, STORED_LENGTH_EPS, type PlotRow } from '../db/mappers';
+import { csvText, importRefusal, readCsvTable, readYesNo, sortProblems, squash, unguard } from './csv-files';
 import { recordPlotEvent } from './plot-events';
 
 // File rules, kept in one place so the template, the export and the README agree:
@@ -63,9 +63,6 @@ const bodyKeyOf: Record<Column, BodyKey> = {
 };
 const columnOf = Object.fromEntries(Object.entries(bodyKeyOf).map(([c, k]) => [k, c])) as Record<BodyKey, Column>;
 
-/** Lower-case letters and digits only, so "Raised bed", "raised-bed" and "RAISED_BED" all match. */
-const squash = (s: string) => s.toLowerCase().replace(/[^a-z0-9]/g, '');
-
 function lookup<T extends string>(values: readonly T[], labels: Record<T, string>, extra: Record<string, T> = {}) {
   const map = new Map<string, T>(Object.entries(extra).map(([k, v]) => [squash(k), v]));
   for (const v of values) {
@@ -84,60 +81,7 @@ const kindWords = lookup(plotKinds, plotKindLabels, {
   pot: 'container',
 });
 const sunWords = lookup(sunValues, sunLabels, { 'part sun': 'part', partial: 'part', 'full shade': 'shade' });
-const yesWords = new Set(['yes', 'true', '1', 'y']);
-const noWords = new Set(['no', 'false', '0', 'n']);
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
-// Exports put a quote before a cell that a spreadsheet would run as a formula (OWASP "CSV injection");
-// reading one back takes the quote off again.
-const FORMULA_START = /^[=+\-@\t\r]/;
-
-/** Normalises a header cell the way the import matches it. */
-export function normaliseHeader(h: string): string {
-  return h
-    .replace(/^\uFEFF/, '')
-    .trim()
-    .toLowerCase()
-    .replace(/[\s-]+/g, '_');
-}
-
-interface CsvLine {
-  line: number;
-  cells: string[];
-}
-
-/** Splits the text into records, each with the line it starts on, dropping lines with no content. */
-function readRecords(csv: string): { records: CsvLine[]; errors: ImportError[] } {
-  const text = csv.replace(/^\uFEFF/, '');
-  const records: CsvLine[] = [];
-  const errors: ImportError[] = [];
-  let start = 0;
-  let scanned = 0;
-  let line = 1;
-  const lineAt = (offset: number) => {
-    for (; scanned < offset; scanned++) {
-      const ch = text.charCodeAt(scanned);
-      // \r\n and \n each end a line, and so does a lone \r (old spreadsheet exports).
-      if (ch === 10 || (ch === 13 && text.charCodeAt(scanned + 1) !== 10)) line++;
-    }
-    return line;
-  };
-  Papa.parse<string[]>(text, {
-    delimitersToGuess: [',', ';', '\t'],
-    skipEmptyLines: false,
-    step: (result) => {
-      const at = lineAt(start);
-      start = result.meta.cursor;
-      const cells = result.data;
-      for (const e of result.errors) {
-        if (e.type === 'Quotes') {
-          errors.push({ row: at, field: '', message: 'A quoted cell is not closed, or a quote sits inside an unquoted cell' });
-        }
-      }
-      if (cells.some((c) => c.trim() !== '')) records.push({ line: at, cells });
-    },
-  });
-  return { records, errors };
-}
 
 function parseNumber(text: string): number | string {
   return NUMBER.test(text) ? Number(text) : 'Enter a number, like 2.5 (with a dot for decimals)';
@@ -193,17 +137,16 @@ function convertRecord(get: (c: Column) => string, units: UnitSystem, row: numbe
       }
       case 'accessible':
       case 'water_tap': {
-        const word = text.toLowerCase();
-        if (yesWords.has(word)) input[key] = true;
-        else if (noWords.has(word)) input[key] = false;
-        else bad(column, 'Use yes or no');
+        const value = readYesNo(text);
+        if (value === null) bad(column, 'Use yes or no');
+        else input[key] = value;
         break;
       }
       case 'soil_tested_on':
         input.soilTestedOn = text;
         break;
       case 'notes':
-        input.notes = text.startsWith("'") && FORMULA_START.test(text.slice(1)) ? text.slice(1) : text;
+        input.notes = unguard(text);
         break;
     }
   }
@@ -222,47 +165,26 @@ function convertRecord(get: (c: Column) => string, units: UnitSystem, row: numbe
 
 /** Reads a plot CSV into plot bodies in metres, with every problem that needs no database to find. */
 export function parsePlotCsv(csv: string, units: UnitSystem): { rows: ParsedRow[]; errors: ImportError[] } {
-  const { records, errors } = readRecords(csv);
-  const [header, ...data] = records;
-  if (!header) return { rows: [], errors: [{ row: 1, field: '', message: 'The file has no header line' }] };
-
-  const index = new Map<Column, number>();
-  const unnamed = new Set<number>();
-  header.cells.forEach((cell, i) => {
-    const name = normaliseHeader(cell);
-    if (name === '') unnamed.add(i);
-    else if (!(plotCsvColumns as readonly string[]).includes(name)) {
-      errors.push({ row: 1, field: cell.trim(), message: `Unknown column "${cell.trim()}"; the columns are ${plotCsvColumns.join(', ')}` });
-    } else if (index.has(name as Column)) {
-      errors.push({ row: 1, field: name, message: `The column "${name}" appears more than once` });
-    } else index.set(name as Column, i);
+  const table = readCsvTable<Column>(csv, {
+    columns: plotCsvColumns,
+    required: REQUIRED,
+    noun: 'plot',
+    maxRows: MAX_IMPORT_ROWS,
+    tooManyRows: (count, max) => `The file has ${count} plot rows; import at most ${max} at a time`,
   });
-  const missing = REQUIRED.filter((c) => !index.has(c));
-  for (const c of missing) errors.push({ row: 1, field: c, message: `The required column "${c}" is missing` });
-
-  if (data.length === 0) errors.push({ row: 1, field: '', message: 'The file has no plot rows under the header' });
-  if (data.length > MAX_IMPORT_ROWS) {
-    errors.push({ row: 1, field: '', message: `The file has ${data.length} plot rows; import at most ${MAX_IMPORT_ROWS} at a time` });
-    return { rows: [], errors };
-  }
-
+  const errors = [...table.errors];
   const rows: ParsedRow[] = [];
-  for (const record of data) {
-    const get = (c: Column) => {
-      const i = index.get(c);
-      return i === undefined ? '' : (record.cells[i] ?? '').trim();
-    };
-    const label = get('label');
+  for (const record of table.rows) {
+    const label = record.get('label');
     // A file without its required columns gets one message per column, not one per row.
-    if (missing.length > 0) {
+    if (table.unreadable) {
       rows.push({ row: record.line, label, plot: null });
       continue;
     }
-    const strays = record.cells.some((c, i) => c.trim() !== '' && (i >= header.cells.length || unnamed.has(i)));
-    const converted = convertRecord(get, units, record.line);
-    if (strays) converted.errors.push({ row: record.line, field: '', message: 'This row has a value in a column without a name' });
+    const converted = convertRecord(record.get, units, record.line);
+    if (record.strays) converted.errors.push({ row: record.line, field: '', message: 'This row has a value in a column without a name' });
     errors.push(...converted.errors);
-    rows.push({ row: record.line, label, plot: strays ? null : converted.plot });
+    rows.push({ row: record.line, label, plot: record.strays ? null : converted.plot });
   }
   return { rows, errors };
 }
@@ -328,29 +250,6 @@ function placementErrors(rows: ParsedRow[], site: SiteBounds, existing: PlotRow[
   return errors;
 }
 
-const columnOrder = new Map<string, number>(plotCsvColumns.map((c, i) => [c, i + 1]));
-const byPosition = (p: ImportError, q: ImportError) =>
-  p.row - q.row || (columnOrder.get(p.field) ?? 0) - (columnOrder.get(q.field) ?? 0);
-
-/** The standard error fields for a refused import, keyed "row N.column" (or "row N" for the whole row or file). */
-export function importErrorFields(errors: ImportError[]): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const e of errors) {
-    const key = e.field ? `row ${e.row}.${e.field}` : `row ${e.row}`;
-    fields[key] = fields[key] ? `${fields[key]}; ${e.message}` : e.message;
-  }
-  return fields;
-}
-
-function refusal(errors: ImportError[]): AppError {
-  const badRows = new Set(errors.filter((e) => e.row > 1).map((e) => e.row)).size;
-  const message =
-    badRows === 0
-      ? 'The file has problems; nothing was imported.'
-      : `${badRows} ${badRows === 1 ? 'row has' : 'rows have'} problems; nothing was imported.`;
-  return new AppError('validation_failed', message, importErrorFields(errors));
-}
-
 const livePlots = (db: Db, siteId: number): Promise<PlotRow[]> =>
   db('plots').where({ site_id: siteId }).whereNull('deleted_at').orderByRaw('lower(label)').orderBy('id');
 
@@ -368,7 +267,7 @@ export async function importPlots(
     const site: SiteBounds | undefined = await (lock ? q.forUpdate() : q).first('id', 'width_m', 'length_m');
     if (!site) throw notFound('The site');
     const existing = await livePlots(trx, opts.siteId);
-    return [...parsed.errors, ...placementErrors(parsed.rows, site, existing, opts.units)].sort(byPosition);
+    return sortProblems([...parsed.errors, ...placementErrors(parsed.rows, site, existing, opts.units)], plotCsvColumns);
   };
 
   if (!opts.commit) {
@@ -377,7 +276,7 @@ export async function importPlots(
   return db.transaction(async (trx) => {
     // With the site locked, no plot drawn on the map meanwhile can slip between the check and the insert.
     const errors = await check(trx, true);
-    if (errors.length > 0) throw refusal(errors);
+    if (errors.length > 0) throw importRefusal(errors);
     const bodies = parsed.rows.map((r) => r.plot!);
     const created: Array<{ id: number; label: string }> = [];
     for (let i = 0; i < bodies.length; i += 500) {
@@ -393,10 +292,6 @@ export async function importPlots(
 
 const yesNo = (v: boolean) => (v ? 'yes' : 'no');
 
-function csvText(rows: Array<Array<string | number>>): string {
-  return Papa.unparse({ fields: [...plotCsvColumns], data: rows }, { newline: '\r\n', escapeFormulae: FORMULA_START });
-}
-
 /** A site's live plots as CSV in the import's own columns, lengths in the given units, so the file imports back unchanged. */
 export async function exportPlotsCsv(db: Db, siteId: number, units: UnitSystem): Promise<string> {
   const site = await db('sites').where({ id: siteId }).first('id');
@@ -405,6 +300,7 @@ export async function exportPlotsCsv(db: Db, siteId: number, units: UnitSystem):
   const depth = (m: number | null) => (m === null ? '' : units === 'us' ? roundTo(m / METRES_PER_INCH, 3) : roundTo(m, 2));
   const plots = await livePlots(db, siteId);
   return csvText(
+    plotCsvColumns,
     plots.map((p) => [
       p.label,
       length(p.x_m),
@@ -436,5 +332,5 @@ export function plotImportTemplateCsv(units: UnitSystem): string {
           ['A-1', 0, 0, 3, 6, 0, 'in_ground', '', 6.5, '2026-03-14', 'full', 'no', 'yes', 'Tap at the north end'],
           ['B-1', 4, 0, 1.2, 2.4, 90, 'raised_bed', 0.3, '', '', 'part', 'yes', 'no', 'Wheelchair height, 30 cm of soil'],
         ];
-  return csvText(rows);
+  return csvText(plotCsvColumns, rows);
 }

@@ -1,7 +1,8 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/schemas/auth';
 import type { WaitlistEntry } from '@shared/schemas/applications';
-import { buildApplication, buildClub, buildMember } from '../factories';
+import { buildApplication, buildClub } from '../factories';
+import { addSite, signedInMember, type Agent } from '../helpers/api';
 import { browserLikeAgent, mailUrl, setupTestApp, truncateAll } from '../helpers/app';
 import { listMail, waitForMail } from '../helpers/inbox';
 
@@ -11,27 +12,8 @@ afterAll(() => t.close());
 beforeEach(() => truncateAll(t.db));
 
 const DAY = 24 * 60 * 60 * 1000;
-type Agent = Awaited<ReturnType<typeof browserLikeAgent>>;
 
-async function signedIn(clubId: number, roles: Role[]) {
-  const person = await buildMember(t.db, { clubId, roles });
-  const c = await browserLikeAgent(t.app);
-  expect((await c.signIn(person.email, person.password!)).status).toBe(200);
-  return Object.assign(c, { person });
-}
-
-async function addSite(c: Agent, clubId: number, name: string) {
-  const res = await c.post(`/api/clubs/${clubId}/sites`, {
-    name,
-    latitude: 51.5,
-    longitude: -0.1,
-    timeZone: 'Europe/London',
-    width: 40,
-    length: 30,
-  });
-  expect(res.status).toBe(201);
-  return res.body as { id: number; name: string };
-}
+const signedIn = (clubId: number, roles: Role[]) => signedInMember(t, clubId, roles);
 
 const application = (overrides: Record<string, unknown> = {}) => ({
   name: 'Hana Okoro',

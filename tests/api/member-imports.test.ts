@@ -4,6 +4,7 @@ import type { Role } from '@shared/schemas/auth';
 import type { WaitlistEntry } from '@shared/schemas/applications';
 import { memberCsvColumns, waitlistCsvColumns } from '@shared/schemas/member-imports';
 import { buildApplication, buildClub, buildMember, buildUser } from '../factories';
+import { addSite, signedInMember, type Agent } from '../helpers/api';
 import { browserLikeAgent, mailUrl, setupTestApp, truncateAll } from '../helpers/app';
 import { extractLink, listMail, waitForMail } from '../helpers/inbox';
 
@@ -11,28 +12,9 @@ const t = setupTestApp();
 afterAll(() => t.close());
 beforeEach(() => truncateAll(t.db));
 
-type Agent = Awaited<ReturnType<typeof browserLikeAgent>>;
 const WAITLIST_HEADER = waitlistCsvColumns.join(',');
 
-async function signedIn(clubId: number, roles: Role[]) {
-  const person = await buildMember(t.db, { clubId, roles });
-  const c = await browserLikeAgent(t.app);
-  expect((await c.signIn(person.email, person.password!)).status).toBe(200);
-  return Object.assign(c, { person });
-}
-
-async function addSite(c: Agent, clubId: number, name: string) {
-  const res = await c.post(`/api/clubs/${clubId}/sites`, {
-    name,
-    latitude: 51.5,
-    longitude: -0.1,
-    timeZone: 'Europe/London',
-    width: 40,
-    length: 30,
-  });
-  expect(res.status).toBe(201);
-  return res.body as { id: number; name: string };
-}
+const signedIn = (clubId: number, roles: Role[]) => signedInMember(t, clubId, roles);
 
 const importCsv = (c: Agent, clubId: number, kind: 'members' | 'waitlist', csv: string, commit = false) =>
   c.post(`/api/clubs/${clubId}/member-imports`, { kind, csv, commit });

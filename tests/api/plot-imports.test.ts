@@ -1,7 +1,8 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { plotCsvColumns, type Plot } from '@shared/schemas/plots';
 import type { Role } from '@shared/schemas/auth';
-import { buildClub, buildMember } from '../factories';
+import { buildClub } from '../factories';
+import { addSite as addSiteWithDefaults, signedInMember, type Agent } from '../helpers/api';
 import { browserLikeAgent, setupTestApp, truncateAll } from '../helpers/app';
 
 const t = setupTestApp();
@@ -9,14 +10,9 @@ afterAll(() => t.close());
 beforeEach(() => truncateAll(t.db));
 
 const HEADER = plotCsvColumns.join(',');
-type Agent = Awaited<ReturnType<typeof browserLikeAgent>>;
-
-async function signedIn(clubId: number, roles: Role[]) {
-  const person = await buildMember(t.db, { clubId, roles });
-  const c = await browserLikeAgent(t.app);
-  expect((await c.signIn(person.email, person.password!)).status).toBe(200);
-  return c;
-}
+const signedIn = (clubId: number, roles: Role[]) => signedInMember(t, clubId, roles);
+// The sites here also set a path width (0.9 m), as the plot tests expect.
+const addSite = (c: Agent, clubId: number, name: string) => addSiteWithDefaults(c, clubId, name, { pathWidth: 0.9 });
 
 /** A club, its coordinator signed in, and a 40 m × 30 m site made through the API. */
 async function coordinatorWithSite(name = 'North field') {
@@ -24,20 +20,6 @@ async function coordinatorWithSite(name = 'North field') {
   const c = await signedIn(club.id, ['coordinator']);
   const site = await addSite(c, club.id, name);
   return { club, c, site };
-}
-
-async function addSite(c: Agent, clubId: number, name: string) {
-  const res = await c.post(`/api/clubs/${clubId}/sites`, {
-    name,
-    latitude: 51.5,
-    longitude: -0.1,
-    timeZone: 'Europe/London',
-    width: 40,
-    length: 30,
-    pathWidth: 0.9,
-  });
-  expect(res.status).toBe(201);
-  return res.body as { id: number; name: string };
 }
 
 async function addPlot(c: Agent, siteId: number, body: Record<string, unknown>) {

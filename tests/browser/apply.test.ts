@@ -1,30 +1,19 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { afterAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { createDb } from '../../server/db/knex';
-import type { RunningServer } from '../../server/start-server';
-import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
 import { mailUrl, testConfig } from '../helpers/app';
-import { launchBrowser, openPage } from '../helpers/browser';
+import { openPage } from '../helpers/browser';
 import { waitForMail } from '../helpers/inbox';
-import { startSeededServer } from '../helpers/server';
+import { mainNav, seededServerAndBrowser, signInAs, signInAsCoordinator, switchClub } from '../helpers/session';
 
-let server: RunningServer;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const suite = seededServerAndBrowser();
 const db = createDb(testConfig().databaseUrl);
-
-beforeAll(async () => {
-  server = await startSeededServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
 afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
   await db.destroy();
 });
 
 async function fillApplication(page: Page, p: { name: string; email: string; raised?: boolean; accessible?: boolean }) {
-  await page.goto(`${server.url}/apply/mossgate`);
+  await page.goto(`${suite.server.url}/apply/mossgate`);
   await page.getByRole('heading', { name: 'Apply for a plot' }).waitFor();
   await page.getByLabel('Your name').fill(p.name);
   await page.getByLabel('E-mail').fill(p.email);
@@ -34,25 +23,18 @@ async function fillApplication(page: Page, p: { name: string; email: string; rai
   if (p.accessible) await page.getByLabel('A wheelchair-accessible bed').check();
 }
 
-async function signInAsCoordinator(width: number) {
-  const w = await openPage(browser, width);
-  await w.page.goto(`${server.url}/sign-in`);
-  await w.page.getByLabel('E-mail').fill('maren@example.org');
-  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await w.page.getByRole('button', { name: 'Sign in' }).click();
-  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
-  return w;
-}
+const coordinator = (width: number) => signInAsCoordinator(suite.browser, suite.server.url, width);
 
-async function openNav(page: Page) {
-  const menu = page.getByRole('button', { name: /menu/i });
-  if (await menu.isVisible()) await menu.click();
-  return page.getByRole('navigation', { name: 'Main' });
+/** A plot holder of the demo club, signed in and on its home page. */
+async function teodorOn(width: number) {
+  const w = await signInAs(suite.browser, suite.server.url, 'teodor@example.org', width);
+  await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+  return w;
 }
 
 describe('applying for a plot and the waitlist', () => {
   it('a person fills the public form on a phone and sees their place on the waitlist', async () => {
-    const w = await openPage(browser, 390);
+    const w = await openPage(suite.browser, 390);
     await fillApplication(w.page, { name: 'Pat Newcomer', email: 'pat.newcomer@example.org', raised: true });
     await w.page.getByLabel('Preferred site (optional)').selectOption({ index: 1 });
     // The honeypot is out of sight and out of the tab order.
@@ -86,7 +68,7 @@ describe('applying for a plot and the waitlist', () => {
   });
 
   it('shows the same form on a wide screen', async () => {
-    const w = await openPage(browser, 1280);
+    const w = await openPage(suite.browser, 1280);
     await fillApplication(w.page, { name: 'Robin Second', email: 'robin.second@example.org', accessible: true });
     await w.shot('apply-form-desktop');
     await w.page.getByRole('button', { name: 'Join the waitlist' }).click();
@@ -95,15 +77,14 @@ describe('applying for a plot and the waitlist', () => {
   });
 
   it('the coordinator sees them on the waitlist and moves one up with a reason', async () => {
-    const w = await signInAsCoordinator(1280);
-    await w.page.getByLabel('Club').selectOption({ label: 'Mossgate Community Garden Club' });
-    await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
-    await (await openNav(w.page)).getByRole('link', { name: 'Waitlist' }).click();
+    const w = await coordinator(1280);
+    await switchClub(w.page);
+    await (await mainNav(w.page)).getByRole('link', { name: 'Waitlist' }).click();
     await w.page.getByRole('heading', { name: 'Waitlist', exact: true }).waitFor();
     await w.page.getByRole('cell', { name: /^Pat Newcomer/ }).waitFor();
     await w.page.getByRole('cell', { name: /^Robin Second/ }).waitFor();
     const link = await w.page.getByLabel('Application form for people who want a plot').inputValue();
-    expect(link).toBe(`${server.url}/apply/mossgate`);
+    expect(link).toBe(`${suite.server.url}/apply/mossgate`);
     await w.shot('waitlist-desktop');
 
     const robinRow = w.page.getByRole('row', { name: /Robin Second/ });
@@ -129,14 +110,14 @@ describe('applying for a plot and the waitlist', () => {
   });
 
   it('the waitlist and messages pages work on a phone, and a message goes out to the club', async () => {
-    const w = await signInAsCoordinator(390);
+    const w = await coordinator(390);
     const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
-    await w.page.goto(`${server.url}/clubs/${club.id}/waitlist`);
+    await w.page.goto(`${suite.server.url}/clubs/${club.id}/waitlist`);
     await w.page.getByRole('cell', { name: /^Pat Newcomer/ }).waitFor();
     await w.shot('waitlist-phone');
     expect(await w.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 
-    await (await openNav(w.page)).getByRole('link', { name: 'Messages' }).click();
+    await (await mainNav(w.page)).getByRole('link', { name: 'Messages' }).click();
     await w.page.getByRole('heading', { name: 'Messages', exact: true }).waitFor();
     await w.page.getByLabel('Subject').fill('Work morning on Saturday');
     await w.page.getByLabel('Message', { exact: true }).fill('Bring gloves.\n\nTea from ten.');
@@ -158,9 +139,9 @@ describe('applying for a plot and the waitlist', () => {
 
   it('the coordinator checks a members file, sees the bad row, fixes it and imports', async () => {
     for (const width of [390, 1280]) {
-      const w = await signInAsCoordinator(width);
+      const w = await coordinator(width);
       const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
-      await w.page.goto(`${server.url}/clubs/${club.id}/members`);
+      await w.page.goto(`${suite.server.url}/clubs/${club.id}/members`);
       await w.page.getByRole('heading', { name: 'Import and download' }).waitFor();
       const suffix = width === 390 ? 'phone' : 'desktop';
       const bad = ['name,email,roles', `Wren ${suffix},wren.${suffix}@example.org,plot_holder`, `Ash ${suffix},not-an-address,volunteer`].join('\n');
@@ -183,12 +164,7 @@ describe('applying for a plot and the waitlist', () => {
   });
 
   it('a plot holder turns club news off from the link beside their name', async () => {
-    const w = await openPage(browser, 1280);
-    await w.page.goto(`${server.url}/sign-in`);
-    await w.page.getByLabel('E-mail').fill('teodor@example.org');
-    await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await w.page.getByRole('button', { name: 'Sign in' }).click();
-    await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+    const w = await teodorOn(1280);
     await w.page.getByRole('link', { name: 'E-mail choices' }).click();
     await w.page.getByRole('heading', { name: 'E-mail choices' }).waitFor();
     const box = w.page.getByLabel('Club news from the coordinator');
@@ -203,12 +179,7 @@ describe('applying for a plot and the waitlist', () => {
     await w.shot('email-choices-desktop');
     expect(w.errors).toEqual([]);
 
-    const phone = await openPage(browser, 390);
-    await phone.page.goto(`${server.url}/sign-in`);
-    await phone.page.getByLabel('E-mail').fill('teodor@example.org');
-    await phone.page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await phone.page.getByRole('button', { name: 'Sign in' }).click();
-    await phone.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+    const phone = await teodorOn(390);
     await phone.page.getByRole('button', { name: /menu/i }).click();
     await phone.page.getByRole('link', { name: 'E-mail choices' }).click();
     await expect(phone.page.getByLabel('Club news from the coordinator').isChecked()).resolves.toBe(false);

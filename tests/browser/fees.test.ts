@@ -1,15 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
 import { createDb } from '../../server/db/knex';
-import type { RunningServer } from '../../server/start-server';
-import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
 import { testConfig } from '../helpers/app';
-import { launchBrowser, openPage } from '../helpers/browser';
-import { startSeededServer } from '../helpers/server';
+import type { WatchedPage } from '../helpers/browser';
+import { mainNav, seededServerAndBrowser, signInAs, signInAsCoordinator, switchClub } from '../helpers/session';
 
-let server: RunningServer;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const suite = seededServerAndBrowser();
 const db = createDb(testConfig().databaseUrl);
 let clubId: number;
 
@@ -25,39 +20,20 @@ async function feeOf(email: string, year = 2026) {
 }
 
 beforeAll(async () => {
-  server = await startSeededServer();
   clubId = (await db('clubs').where({ slug: 'mossgate' }).first('id')).id;
-  ({ browser, close: closeBrowser } = await launchBrowser());
 });
 afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
   await db.destroy();
 });
 
-async function signIn(width: number, email: string) {
-  const w = await openPage(browser, width);
-  await w.page.goto(`${server.url}/sign-in`);
-  await w.page.getByLabel('E-mail').fill(email);
-  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await w.page.getByRole('button', { name: 'Sign in' }).click();
-  return w;
-}
-
 async function coordinatorAtMossgate(width: number) {
-  const w = await signIn(width, 'maren@example.org');
-  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
-  if (width < 768) await w.page.getByRole('button', { name: /menu/i }).click();
-  // On a phone the switcher sits in the open menu; the header's copy is hidden.
-  await w.page.getByLabel('Club').filter({ visible: true }).selectOption({ label: 'Mossgate Community Garden Club' });
-  await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+  const w = await signInAsCoordinator(suite.browser, suite.server.url, width);
+  await switchClub(w.page);
   return w;
 }
 
-async function openNav(w: Awaited<ReturnType<typeof signIn>>, name: string) {
-  const menu = w.page.getByRole('button', { name: /menu/i });
-  if ((await menu.isVisible()) && (await menu.getAttribute('aria-expanded')) !== 'true') await menu.click();
-  await w.page.getByRole('navigation', { name: 'Main' }).filter({ visible: true }).getByRole('link', { name }).click();
+async function openNav(w: WatchedPage, name: string) {
+  await (await mainNav(w.page)).getByRole('link', { name }).click();
 }
 
 describe('fees', () => {
@@ -157,14 +133,14 @@ describe('fees', () => {
     await w.shot('settings-390');
     expect(w.errors).toEqual([]);
 
-    const h = await signIn(390, 'samir@example.org');
+    const h = await signInAs(suite.browser, suite.server.url, 'samir@example.org', 390);
     await h.page.getByRole('heading', { name: 'Your fees' }).waitFor();
     const card = h.page.getByRole('listitem').filter({ hasText: 'Plot R-1, 2026 season' });
     // 2.88 m² × 2.50 = 7.20, plus the 15.00 deposit, nothing paid: 22.20 to pay (computed).
     await card.getByText('£22.20').last().waitFor();
     await expect(card.getByText('Due by 1 Apr 2026').isVisible()).resolves.toBe(true);
     await h.shot('club-home-fees-390');
-    await h.page.goto(`${server.url}/clubs/${clubId}/fees`);
+    await h.page.goto(`${suite.server.url}/clubs/${clubId}/fees`);
     await h.page.getByRole('heading', { name: 'This page is for coordinators' }).waitFor();
     expect(h.errors).toEqual([]);
   });

@@ -1,36 +1,19 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { afterAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { createDb } from '../../server/db/knex';
-import type { RunningServer } from '../../server/start-server';
-import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
 import { testConfig } from '../helpers/app';
-import { launchBrowser, openPage } from '../helpers/browser';
-import { startSeededServer } from '../helpers/server';
+import { seededServerAndBrowser, signInAsCoordinator } from '../helpers/session';
 
-let server: RunningServer;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const suite = seededServerAndBrowser();
 const db = createDb(testConfig().databaseUrl);
-
-beforeAll(async () => {
-  server = await startSeededServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
 afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
   await db.destroy();
 });
 
 async function openMap(width: number) {
-  const w = await openPage(browser, width);
-  await w.page.goto(`${server.url}/sign-in`);
-  await w.page.getByLabel('E-mail').fill('maren@example.org');
-  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await w.page.getByRole('button', { name: 'Sign in' }).click();
-  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
+  const w = await signInAsCoordinator(suite.browser, suite.server.url, width);
   const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
-  await w.page.goto(`${server.url}/clubs/${club.id}/map`);
+  await w.page.goto(`${suite.server.url}/clubs/${club.id}/map`);
   await w.page.getByRole('heading', { name: 'Map of Mossgate Lane' }).waitFor();
   return w;
 }
@@ -40,6 +23,17 @@ const plotRow = (label: string) =>
 
 function plot(page: Page, label: string) {
   return page.getByRole('button', { name: `Plot ${label}`, exact: true });
+}
+
+/** Presses the middle of the box and drags it by (dx, dy) in two legs of `steps` moves each, then lets go. */
+async function dragFromCentre(page: Page, box: { x: number; y: number; width: number; height: number }, dx: number, dy: number, steps: number) {
+  const x = box.x + box.width / 2;
+  const y = box.y + box.height / 2;
+  await page.mouse.move(x, y);
+  await page.mouse.down();
+  await page.mouse.move(x + dx / 2, y + dy / 2, { steps });
+  await page.mouse.move(x + dx, y + dy, { steps });
+  await page.mouse.up();
 }
 
 async function savedAfter(page: Page, action: () => Promise<void>) {
@@ -55,13 +49,7 @@ describe('the map editor', () => {
     await w.shot('map-desktop');
     const before = await plotRow('A-1');
     const box = (await plot(w.page, 'A-1').boundingBox())!;
-    await savedAfter(w.page, async () => {
-      await w.page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-      await w.page.mouse.down();
-      await w.page.mouse.move(box.x + box.width / 2 - 6, box.y + box.height / 2 - 5, { steps: 4 });
-      await w.page.mouse.move(box.x + box.width / 2 - 12, box.y + box.height / 2 - 10, { steps: 4 });
-      await w.page.mouse.up();
-    });
+    await savedAfter(w.page, () => dragFromCentre(w.page, box, -12, -10, 4));
     const after = await plotRow('A-1');
     expect(after.x_m).toBeLessThan(before.x_m);
     expect(after.y_m).toBeLessThan(before.y_m);
@@ -84,13 +72,7 @@ describe('the map editor', () => {
     const before = await plotRow('A-5');
     await plot(w.page, 'A-5').click();
     const grip = (await w.page.getByRole('button', { name: 'Resize plot A-5' }).boundingBox())!;
-    await savedAfter(w.page, async () => {
-      await w.page.mouse.move(grip.x + grip.width / 2, grip.y + grip.height / 2);
-      await w.page.mouse.down();
-      await w.page.mouse.move(grip.x + grip.width / 2 - 5, grip.y + grip.height / 2 - 10, { steps: 3 });
-      await w.page.mouse.move(grip.x + grip.width / 2 - 10, grip.y + grip.height / 2 - 20, { steps: 3 });
-      await w.page.mouse.up();
-    });
+    await savedAfter(w.page, () => dragFromCentre(w.page, grip, -10, -20, 3));
     const after = await plotRow('A-5');
     expect(after.width_m).toBeLessThan(before.width_m);
     expect(after.length_m).toBeLessThan(before.length_m);

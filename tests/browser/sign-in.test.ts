@@ -1,31 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
-import { launchBrowser, openPage } from '../helpers/browser';
-import { startSeededServer } from '../helpers/server';
-import type { RunningServer } from '../../server/start-server';
+import { describe, expect, it } from 'vitest';
+import { openPage } from '../helpers/browser';
+import { seededServerAndBrowser, signInAs } from '../helpers/session';
 
-let server: RunningServer;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const suite = seededServerAndBrowser();
 
-beforeAll(async () => {
-  server = await startSeededServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
-
-async function signIn(width: number, email: string) {
-  const w = await openPage(browser, width);
-  await w.page.goto(`${server.url}/`);
-  await w.page.getByLabel('E-mail').fill(email);
-  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await w.page.getByRole('button', { name: 'Sign in' }).click();
-  return w;
-}
+// From the front page: someone signed out is sent to the sign-in form.
+const signIn = (width: number, email: string) => signInAs(suite.browser, suite.server.url, email, width, '/');
 
 describe('signing in', () => {
   it('the demo coordinator sees the club home and the coordinator navigation', async () => {
@@ -57,8 +37,8 @@ describe('signing in', () => {
   });
 
   it('a wrong password shows a message on the form', async () => {
-    const w = await openPage(browser, 390);
-    await w.page.goto(`${server.url}/sign-in`);
+    const w = await openPage(suite.browser, 390);
+    await w.page.goto(`${suite.server.url}/sign-in`);
     await w.page.getByLabel('E-mail').fill('maren@example.org');
     await w.page.getByLabel('Password').fill('not-the-password');
     await w.page.getByRole('button', { name: 'Sign in' }).click();

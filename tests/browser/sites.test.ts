@@ -1,47 +1,21 @@
 import zlib from 'node:zlib';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
-import { launchBrowser, openPage, type WatchedPage } from '../helpers/browser';
-import { startSeededServer } from '../helpers/server';
-import type { RunningServer } from '../../server/start-server';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import type { WatchedPage } from '../helpers/browser';
+import { mainNav, seededServerAndBrowser, signInAs, signInAsCoordinator, switchClub } from '../helpers/session';
 
-let server: RunningServer;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
-
-beforeAll(async () => {
-  server = await startSeededServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
-afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
-});
+const suite = seededServerAndBrowser();
 
 /** Signs the demo coordinator in and switches to the club that has the demo sites. */
 async function signInToMossgate(width: number): Promise<WatchedPage> {
-  const w = await openPage(browser, width);
-  await w.page.goto(`${server.url}/`);
-  await w.page.getByLabel('E-mail').fill('maren@example.org');
-  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await w.page.getByRole('button', { name: 'Sign in' }).click();
   // Maren's first club is Cinder Lane; the demo sites belong to Mossgate.
-  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
-  await openMenuIfPhone(w.page);
-  await w.page.getByLabel('Club').filter({ visible: true }).selectOption({ label: 'Mossgate Community Garden Club' });
-  await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+  const w = await signInAsCoordinator(suite.browser, suite.server.url, width, '/');
+  await switchClub(w.page);
   return w;
 }
 
-async function openMenuIfPhone(page: Page) {
-  const menu = page.getByRole('button', { name: 'Menu' });
-  if ((await menu.isVisible()) && (await menu.getAttribute('aria-expanded')) !== 'true') await menu.click();
-}
-
 async function openSites(w: WatchedPage) {
-  await openMenuIfPhone(w.page);
-  await w.page.getByRole('navigation', { name: 'Main' }).filter({ visible: true }).getByRole('link', { name: 'Sites' }).click();
+  await (await mainNav(w.page)).getByRole('link', { name: 'Sites' }).click();
   await w.page.getByRole('heading', { name: 'Sites', level: 1 }).waitFor();
 }
 
@@ -101,7 +75,7 @@ describe('sites and plots', () => {
 
     const csvHref = await w.page.getByRole('link', { name: 'Download CSV' }).getAttribute('href');
     expect(csvHref).toMatch(/^\/api\/sites\/\d+\/plots\.csv\?units=us$/);
-    const csv = await w.page.request.get(`${server.url}${csvHref}`);
+    const csv = await w.page.request.get(`${suite.server.url}${csvHref}`);
     expect(csv.status()).toBe(200);
     expect(csv.headers()['content-type']).toContain('text/csv');
     const text = await csv.text();
@@ -242,19 +216,15 @@ describe('sites and plots', () => {
   });
 
   it('a plot holder can read a plot page but not manage sites', async () => {
-    const w = await openPage(browser, 390);
-    await w.page.goto(`${server.url}/`);
-    await w.page.getByLabel('E-mail').fill('teodor@example.org');
-    await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-    await w.page.getByRole('button', { name: 'Sign in' }).click();
+    const w = await signInAs(suite.browser, suite.server.url, 'teodor@example.org', 390, '/');
     await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
     const clubPath = new URL(w.page.url()).pathname;
-    const sites = await (await w.page.request.get(`${server.url}/api${clubPath}/sites`)).json();
+    const sites = await (await w.page.request.get(`${suite.server.url}/api${clubPath}/sites`)).json();
     const lane = sites.items.find((site: { name: string }) => site.name === 'Mossgate Lane');
-    const plots = await (await w.page.request.get(`${server.url}/api/sites/${lane.id}/plots`)).json();
+    const plots = await (await w.page.request.get(`${suite.server.url}/api/sites/${lane.id}/plots`)).json();
     const b4 = plots.items.find((plot: { label: string }) => plot.label === 'B-4');
 
-    await w.page.goto(`${server.url}${clubPath}/plots/${b4.id}`);
+    await w.page.goto(`${suite.server.url}${clubPath}/plots/${b4.id}`);
     await w.page.getByRole('heading', { name: 'Plot B-4' }).waitFor();
     // B-4 is the seeded plot with the water tap; A-4 lies 0.9 m north across the path.
     await expect(w.page.getByRole('region', { name: 'About this plot' }).textContent()).resolves.toContain('Yes, at the plot');
@@ -264,7 +234,7 @@ describe('sites and plots', () => {
     );
     await expect(w.page.getByRole('link', { name: 'Edit on the map' }).count()).resolves.toBe(0);
 
-    await w.page.goto(`${server.url}${clubPath}/sites`);
+    await w.page.goto(`${suite.server.url}${clubPath}/sites`);
     await w.page.getByRole('heading', { name: 'This page is for coordinators' }).waitFor();
     expect(w.errors).toEqual([]);
   });
@@ -277,9 +247,9 @@ describe('sites and plots', () => {
     const siteId = Number(/\/sites\/(\d+)\/edit/.exec(w.page.url())![1]);
 
     // Another coordinator's tab changes the soil notes while this form is open.
-    const session = await (await w.page.request.get(`${server.url}/api/session`)).json();
-    const current = await (await w.page.request.get(`${server.url}/api/sites/${siteId}`)).json();
-    const elsewhere = await w.page.request.patch(`${server.url}/api/sites/${siteId}`, {
+    const session = await (await w.page.request.get(`${suite.server.url}/api/session`)).json();
+    const current = await (await w.page.request.get(`${suite.server.url}/api/sites/${siteId}`)).json();
+    const elsewhere = await w.page.request.patch(`${suite.server.url}/api/sites/${siteId}`, {
       headers: { 'X-CSRF-Token': session.csrfToken },
       data: { version: current.version, soilNotes: 'Mulched in November.' },
     });

@@ -1,37 +1,20 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { afterAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../server/db/knex';
-import type { RunningServer } from '../../server/start-server';
-import { DEMO_PASSWORD } from '../../seeds/01-demo-club';
 import { mailUrl, testConfig } from '../helpers/app';
-import { launchBrowser, openPage, type WatchedPage } from '../helpers/browser';
+import { openPage, type WatchedPage } from '../helpers/browser';
 import { extractLink, waitForMail } from '../helpers/inbox';
-import { startSeededServer } from '../helpers/server';
+import { seededServerAndBrowser, signInAsCoordinator } from '../helpers/session';
 
-let server: RunningServer;
-let browser: Browser;
-let closeBrowser: () => Promise<void>;
+const suite = seededServerAndBrowser();
 const db = createDb(testConfig().databaseUrl);
-
-beforeAll(async () => {
-  server = await startSeededServer();
-  ({ browser, close: closeBrowser } = await launchBrowser());
-});
 afterAll(async () => {
-  await closeBrowser?.();
-  await server?.stop();
   await db.destroy();
 });
 
 async function coordinatorOn(width: number): Promise<WatchedPage> {
-  const w = await openPage(browser, width);
-  await w.page.goto(`${server.url}/sign-in`);
-  await w.page.getByLabel('E-mail').fill('maren@example.org');
-  await w.page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await w.page.getByRole('button', { name: 'Sign in' }).click();
-  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
+  const w = await signInAsCoordinator(suite.browser, suite.server.url, width);
   const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
-  await w.page.goto(`${server.url}/clubs/${club.id}/spring-round`);
+  await w.page.goto(`${suite.server.url}/clubs/${club.id}/spring-round`);
   return w;
 }
 
@@ -71,8 +54,8 @@ describe('the spring round in the browser', () => {
     const mail = await waitForMail(mailUrl(), { to: 'ines@example.org', after: since });
     expect(mail.subject).toMatch(/^A plot for you at Mossgate Community Garden Club: B-1/);
     const link = extractLink(mail, '/respond/offer');
-    const applicant = await openPage(browser, 390);
-    await applicant.page.goto(link.replace(/^http:\/\/127\.0\.0\.1:\d+/, server.url));
+    const applicant = await openPage(suite.browser, 390);
+    await applicant.page.goto(link.replace(/^http:\/\/127\.0\.0\.1:\d+/, suite.server.url));
     await applicant.page.getByRole('heading', { name: 'A plot for you' }).waitFor();
     await applicant.page.getByText('£45.00 plus a refundable deposit of £15.00').waitFor();
     await applicant.shot('offer-link-phone');

@@ -3,7 +3,7 @@ import type { ColumnDef } from '@tanstack/react-table';
 import { Download } from 'lucide-react';
 import { memberImportOutcomeLabels, type MembersImportResult } from '@shared/schemas/member-imports';
 import { buttonClasses } from '@/components/ui/button';
-import { checkColumn, CsvImport, type PreviewRow } from '@/components/ui/csv-import';
+import { checkColumn, CsvImport, nameEmailColumn, rowColumn, type PreviewRow } from '@/components/ui/csv-import';
 import { inputClasses } from '@/components/ui/field';
 import { useImportMembers } from '../api/import-members';
 import { allocationsCsvUrl, membersCsvUrl, membersTemplateUrl } from '../api/member-files';
@@ -12,18 +12,8 @@ import { RoleBadges } from './role-badges';
 type Row = MembersImportResult['rows'][number];
 
 const columns: ColumnDef<PreviewRow<Row>>[] = [
-  { id: 'row', header: 'Row', accessorFn: (r) => r.row, enableGlobalFilter: false },
-  {
-    id: 'name',
-    header: 'Name',
-    accessorFn: (r) => `${r.name} ${r.email}`,
-    cell: ({ row }) => (
-      <div>
-        <span className="block font-medium">{row.original.name || '(no name)'}</span>
-        <span className="block text-sm break-all text-stone">{row.original.email}</span>
-      </div>
-    ),
-  },
+  rowColumn<Row>(),
+  nameEmailColumn<Row>(),
   {
     id: 'roles',
     header: 'Roles',

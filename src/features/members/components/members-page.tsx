@@ -1,9 +1,9 @@
-import type { ReactNode } from 'react';
 import { UserPlus } from 'lucide-react';
 import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
+import { PageSection } from '@/components/ui/page-section';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { useInvites } from '../api/get-invites';
@@ -12,18 +12,7 @@ import { InviteForm } from './invite-form';
 import { InvitesTable } from './invites-table';
 import { MembersImport } from './members-import';
 import { MembersTable } from './members-table';
-import { NotAllowed } from './not-allowed';
-
-function Section({ id, title, children }: { id: string; title: string; children: ReactNode }) {
-  return (
-    <section aria-labelledby={id} className="min-w-0">
-      <h2 id={id} className="mb-4 scroll-mt-6 text-xl font-semibold">
-        {title}
-      </h2>
-      {children}
-    </section>
-  );
-}
+import { MembersNotAllowed } from './not-allowed';
 
 function PartialNote({ shown, total, noun }: { shown: number; total: number; noun: string }) {
   if (total <= shown) return null;
@@ -43,7 +32,7 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
     return (
       <>
         <title>{`Not allowed · ${clubName} · Tillwell`}</title>
-        <NotAllowed clubId={clubId} />
+        <MembersNotAllowed clubId={clubId} />
       </>
     );
   }
@@ -63,7 +52,7 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
         }
       />
       <div className="flex flex-col gap-10">
-        <Section id="club-members" title="Club members">
+        <PageSection id="club-members" title="Club members">
           {members.isPending ? (
             <LoadingState label="Loading members…" />
           ) : members.isError ? (
@@ -79,15 +68,15 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
               <MembersTable members={members.data.items} />
             </>
           )}
-        </Section>
+        </PageSection>
 
         <div className="grid gap-10 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-          <Section id="invite-someone" title="Invite someone">
+          <PageSection id="invite-someone" title="Invite someone">
             <Card>
               <InviteForm clubId={clubId} />
             </Card>
-          </Section>
-          <Section id="pending-invites" title="Pending invites">
+          </PageSection>
+          <PageSection id="pending-invites" title="Pending invites">
             {invites.isPending ? (
               <LoadingState label="Loading invites…" />
             ) : invites.isError ? (
@@ -103,14 +92,14 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
                 <InvitesTable invites={invites.data.items} />
               </>
             )}
-          </Section>
+          </PageSection>
         </div>
 
-        <Section id="import-export" title="Import and download">
+        <PageSection id="import-export" title="Import and download">
           <Card>
             <MembersImport clubId={clubId} />
           </Card>
-        </Section>
+        </PageSection>
       </div>
     </>
   );

@@ -6,7 +6,7 @@ import { formatLength } from '@shared/geometry';
 import { plotKindLabels, sunLabels, type PlotDetail, type PlotKind } from '@shared/schemas/plots';
 import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { EmptyState } from '@/components/ui/empty-state';
+import { DeadEnd } from '@/components/ui/dead-end';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
@@ -128,18 +128,9 @@ export interface PlotPageProps {
 
 function PlotNotFound({ clubId }: { clubId: number }) {
   return (
-    <EmptyState
-      icon={SearchX}
-      title="We can't find that plot"
-      headingLevel="h1"
-      action={
-        <Link to={paths.club(clubId)} className={buttonClasses('secondary')}>
-          Back to club home
-        </Link>
-      }
-    >
+    <DeadEnd clubId={clubId} icon={SearchX} title="We can't find that plot">
       <p>It may have been taken off the map, or the link belongs to another club.</p>
-    </EmptyState>
+    </DeadEnd>
   );
 }
 

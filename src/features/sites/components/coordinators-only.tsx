@@ -1,23 +1,6 @@
-import { Link } from 'react-router-dom';
-import { ShieldBan } from 'lucide-react';
-import { buttonClasses } from '@/components/ui/button';
-import { EmptyState } from '@/components/ui/empty-state';
-import { paths } from '@/lib/paths';
+import { NotAllowed } from '@/components/ui/not-allowed';
 
 /** Shown instead of a site-management page to someone who is not a coordinator of the club. */
 export function CoordinatorsOnly({ clubId }: { clubId: number }) {
-  return (
-    <EmptyState
-      icon={ShieldBan}
-      title="This page is for coordinators"
-      headingLevel="h1"
-      action={
-        <Link to={paths.club(clubId)} className={buttonClasses('secondary')}>
-          Back to club home
-        </Link>
-      }
-    >
-      <p>Only the club's coordinators add and change sites. If a site's details look wrong, tell one of them.</p>
-    </EmptyState>
-  );
+  return <NotAllowed clubId={clubId} message="Only the club's coordinators add and change sites. If a site's details look wrong, tell one of them." />;
 }

@@ -1,13 +1,10 @@
 import type { ReactNode } from 'react';
-import { Link } from 'react-router-dom';
 import { SearchX } from 'lucide-react';
 import type { Site } from '@shared/schemas/sites';
-import { buttonClasses } from '@/components/ui/button';
-import { EmptyState } from '@/components/ui/empty-state';
+import { DeadEnd } from '@/components/ui/dead-end';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
-import { paths } from '@/lib/paths';
 import { useSite } from '../api/get-site';
 
 export interface SiteGateProps {
@@ -19,18 +16,9 @@ export interface SiteGateProps {
 
 function SiteNotFound({ clubId }: { clubId: number }) {
   return (
-    <EmptyState
-      icon={SearchX}
-      title="We can't find that site"
-      headingLevel="h1"
-      action={
-        <Link to={paths.club(clubId)} className={buttonClasses('secondary')}>
-          Back to club home
-        </Link>
-      }
-    >
+    <DeadEnd clubId={clubId} icon={SearchX} title="We can't find that site">
       <p>It may have been removed, or the link belongs to another club.</p>
-    </EmptyState>
+    </DeadEnd>
   );
 }
 

@@ -1,6 +1,6 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import { waitlistCsvColumns, type WaitlistImportResult } from '@shared/schemas/member-imports';
-import { checkColumn, CsvImport, type PreviewRow } from '@/components/ui/csv-import';
+import { checkColumn, CsvImport, nameEmailColumn, rowColumn, type PreviewRow } from '@/components/ui/csv-import';
 import { formatDate } from '@/lib/format';
 import { useImportWaitlist } from '../api/import-waitlist';
 import { waitlistTemplateUrl } from '../api/waitlist-files';
@@ -10,18 +10,8 @@ import { NeedsBadges } from './needs-badges';
 type Row = WaitlistImportResult['rows'][number];
 
 const columns: ColumnDef<PreviewRow<Row>>[] = [
-  { id: 'row', header: 'Row', accessorFn: (r) => r.row, enableGlobalFilter: false },
-  {
-    id: 'name',
-    header: 'Name',
-    accessorFn: (r) => `${r.name} ${r.email}`,
-    cell: ({ row }) => (
-      <div>
-        <span className="block font-medium">{row.original.name || '(no name)'}</span>
-        <span className="block text-sm break-all text-stone">{row.original.email}</span>
-      </div>
-    ),
-  },
+  rowColumn<Row>(),
+  nameEmailColumn<Row>(),
   {
     id: 'applied',
     header: 'Applied',

@@ -1,4 +1,4 @@
-import { useCallback, useState, type ReactNode } from 'react';
+import { useCallback, useState } from 'react';
 import { Download, Upload } from 'lucide-react';
 import type { WaitlistEntry } from '@shared/schemas/applications';
 import { Alert } from '@/components/ui/alert';
@@ -6,6 +6,7 @@ import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
+import { PageSection } from '@/components/ui/page-section';
 import { Select } from '@/components/ui/select';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
@@ -19,17 +20,6 @@ import { RemoveDialog } from './remove-dialog';
 import { ShareFormLink } from './share-form-link';
 import { WaitlistImport } from './waitlist-import';
 import { WaitlistTable, type WaitlistAction } from './waitlist-table';
-
-function Section({ id, title, children }: { id: string; title: string; children: ReactNode }) {
-  return (
-    <section aria-labelledby={id} className="min-w-0">
-      <h2 id={id} className="mb-4 scroll-mt-6 text-xl font-semibold">
-        {title}
-      </h2>
-      {children}
-    </section>
-  );
-}
 
 type Status = NonNullable<WaitlistFilters['status']>;
 type Needs = NonNullable<WaitlistFilters['needs']> | '';
@@ -100,7 +90,7 @@ export function WaitlistPage({ clubId, clubName, applyUrl, sites }: WaitlistPage
           <ShareFormLink url={applyUrl} />
         </Card>
 
-        <Section id="the-queue" title={everyone.data ? `The queue (${waiting} waiting)` : 'The queue'}>
+        <PageSection id="the-queue" title={everyone.data ? `The queue (${waiting} waiting)` : 'The queue'}>
           <div className="mb-4 grid gap-4 sm:grid-cols-3">
             <Select label="Show" value={status} onChange={(e) => setStatus(e.target.value as Status)}>
               <option value="waiting">Waiting</option>
@@ -142,9 +132,9 @@ export function WaitlistPage({ clubId, clubName, applyUrl, sites }: WaitlistPage
           ) : (
             <WaitlistTable entries={list.data.items} onAction={onAction} />
           )}
-        </Section>
+        </PageSection>
 
-        <Section id="import-waitlist" title="Import a waitlist">
+        <PageSection id="import-waitlist" title="Import a waitlist">
           <Card>
             <p className="mb-5 text-stone">
               Moving from a spreadsheet? Bring your list in once, with the date each person applied, and the queue keeps
@@ -152,7 +142,7 @@ export function WaitlistPage({ clubId, clubName, applyUrl, sites }: WaitlistPage
             </p>
             <WaitlistImport clubId={clubId} />
           </Card>
-        </Section>
+        </PageSection>
       </div>
 
       <MoveDialog entry={open?.action === 'move' ? open.entry : null} waiting={waiting} onClose={close} onDone={done} />
