@@ -53,9 +53,14 @@ export async function createOffer(
         .where('p.id', opts.plotId)
         .whereNull('p.deleted_at')
         .forUpdate('p')
-        .first('p.id', 'p.label', 'st.club_id');
+        .first('p.id', 'p.label', 'p.kind', 'st.club_id');
       if (!plot || plot.club_id !== season.club_id) {
         throw new AppError('validation_failed', 'That plot is not on one of this club’s sites.', { plotId: 'Unknown plot' });
+      }
+      if (plot.kind === 'shared_bed') {
+        throw new AppError('validation_failed', `${plot.label} is a shared bed: the club tends it together, so it is not offered to one person.`, {
+          plotId: 'Shared beds are not offered',
+        });
       }
       const blocker = await plotBlocker(trx, opts.seasonId, opts.plotId);
       if (blocker) throw new AppError('conflict', `Plot ${plot.label} cannot be offered: ${blocker}.`);

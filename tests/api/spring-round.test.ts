@@ -287,6 +287,10 @@ describe('guarantees and guards', () => {
     await s.signIn(stranger.email, stranger.password!);
     expect((await s.post(`/api/seasons/${season.id}/offers`, { plotId: plots[0].id, applicationId: app })).status).toBe(404);
     expect((await s.get(`/api/seasons/${season.id}`)).status).toBe(404);
+    const [shared] = await t.db('plots').insert({ site_id: (await t.db('plots').where({ id: plots[0].id }).first()).site_id, label: 'Herbs', x_m: 0, y_m: 10, width_m: 6, length_m: 2, kind: 'shared_bed' }).returning('id');
+    const sharedOffer = await agent.post(`/api/seasons/${season.id}/offers`, { plotId: shared.id, applicationId: app });
+    expect(sharedOffer.status).toBe(400);
+    expect(sharedOffer.body.error.fields).toEqual({ plotId: 'Shared beds are not offered' });
     const bad = await agent.post(`/api/seasons/${season.id}/offers`, { plotId: 'A-1', applicationId: app });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields.plotId).toBeDefined();

@@ -22,7 +22,8 @@ const plotRow = (label: string) =>
   db('plots as p').join('sites as s', 's.id', 'p.site_id').where({ 's.name': 'Mossgate Lane', 'p.label': label }).first('p.*');
 
 function plot(page: Page, label: string) {
-  return page.getByRole('button', { name: `Plot ${label}`, exact: true });
+  // The name starts with what the plot shows: its label, then (with a season open) who holds it.
+  return page.getByRole('button', { name: new RegExp(`^Plot ${label}( |$)`) });
 }
 
 /** Presses the middle of the box and drags it by (dx, dy) in two legs of `steps` moves each, then lets go. */
@@ -107,7 +108,7 @@ describe('the map editor', () => {
   it('refuses a move onto another plot with a clear message and puts the plot back', async () => {
     const w = await openMap(1280);
     const before = await plotRow('A-7');
-    await w.page.getByRole('button', { name: 'Plot A-7', exact: true }).click();
+    await plot(w.page, 'A-7').click();
     await w.page.getByLabel('From west edge (m)').fill(String(before.x_m + 2));
     const refused = w.page.waitForResponse((r) => r.url().includes('/api/plots/') && r.request().method() === 'PATCH');
     await w.page.getByRole('button', { name: 'Save plot' }).click();

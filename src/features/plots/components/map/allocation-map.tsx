@@ -17,7 +17,7 @@ import { isApiError } from '@/lib/api/client';
 import { useSitePlots } from '../../api/get-site-plots';
 import { useElementWidth } from '../../hooks/use-element-width';
 import { kindClasses } from './plot-shape';
-import { statusClasses, statusWord } from './season-status';
+import { plotName, statusClasses, statusWord } from './season-status';
 import { ScaleBar } from './scale-bar';
 import { formatDate, formatDateTime } from '@/lib/format';
 
@@ -44,7 +44,7 @@ function fits(person: AllocationPerson, plot: Plot, siteId: number) {
 
 function PlotTile({ plot, state, scale, selected, onSelect }: { plot: Plot; state: PlotSeasonState | undefined; scale: number; selected: boolean; onSelect(): void }) {
   const status = state?.status ?? 'free';
-  const { setNodeRef, isOver } = useDroppable({ id: `plot:${plot.id}`, disabled: status !== 'free' });
+  const { setNodeRef, isOver } = useDroppable({ id: `plot:${plot.id}`, disabled: status !== 'free' || plot.kind === 'shared_bed' });
   const fp = footprint(plot);
   const w = (fp.maxX - fp.minX) * scale;
   const h = (fp.maxY - fp.minY) * scale;
@@ -56,46 +56,50 @@ function PlotTile({ plot, state, scale, selected, onSelect }: { plot: Plot; stat
       type="button"
       onClick={onSelect}
       aria-pressed={selected}
-      aria-label={`Plot ${plot.label}: ${plotSeasonStatusLabels[status]}${who ? `, ${who}` : ''}`}
+      aria-label={plotName(plot.label, status, who, plot.kind)}
       data-plot-label={plot.label}
       className={`absolute flex flex-col items-center justify-center overflow-hidden text-soil ${kindClasses[plot.kind]} ${statusClasses[status]} ${
         selected ? 'z-20 ring-4 ring-leaf' : ''
       } ${isOver ? 'z-20 ring-4 ring-water' : ''}`}
       style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: fontPx }}
     >
-      <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>
+      <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>{' '}
       {Math.min(w, h) >= 30 && (
         <span className="max-w-full truncate px-0.5 text-[0.85em] leading-tight">
-          {statusWord(status, who)}
+          {statusWord(status, who, plot.kind)}
         </span>
       )}
     </button>
   );
 }
 
-function PersonChip({ person, suggested, fitsSelected }: { person: AllocationPerson; suggested: boolean; fitsSelected: boolean | null }) {
+function PersonChip({ person, suggested, fitsSelected, describedBy }: { person: AllocationPerson; suggested: boolean; fitsSelected: boolean | null; describedBy: string }) {
   const { attributes, listeners, setNodeRef, isDragging } = useDraggable({ id: `person:${person.id}` });
+  // The chip's name is its visible text (place, name, details); how to drag it is its description.
   return (
-    <li
-      ref={setNodeRef}
-      {...attributes}
-      {...listeners}
-      aria-label={`Drag ${person.name} onto a free plot`}
-      className={`flex min-h-12 cursor-grab touch-none items-center gap-2 rounded-lg border bg-white px-2 py-1.5 ${
-        suggested ? 'border-leaf ring-2 ring-leaf' : 'border-paper-300'
-      } ${isDragging ? 'opacity-40' : ''}`}
-    >
-      <GripVertical className="size-4 shrink-0 text-stone" aria-hidden="true" />
-      <span className="w-7 shrink-0 text-right font-semibold tabular-nums">{person.position ?? '–'}</span>
-      <span className="min-w-0 flex-1">
-        <span className="block truncate font-medium">{person.name}</span>
-        <span className="block truncate text-sm text-stone">
-          {person.detail}
-          {fitsSelected === false && ' · does not match this plot'}
+    <li>
+      <div
+        ref={setNodeRef}
+        {...attributes}
+        {...listeners}
+        aria-describedby={describedBy}
+        aria-roledescription="draggable person"
+        className={`flex min-h-12 cursor-grab touch-none items-center gap-2 rounded-lg border bg-white px-2 py-1.5 ${
+          suggested ? 'border-leaf ring-2 ring-leaf' : 'border-paper-300'
+        } ${isDragging ? 'opacity-40' : ''}`}
+      >
+        <GripVertical className="size-4 shrink-0 text-stone" aria-hidden="true" />
+        <span className="w-7 shrink-0 text-right font-semibold tabular-nums">{person.position ?? '–'}</span>{' '}
+        <span className="min-w-0 flex-1">
+          <span className="block truncate font-medium">{person.name}</span>{' '}
+          <span className="block truncate text-sm text-stone">
+            {person.detail}
+            {fitsSelected === false && ' · does not match this plot'}
+          </span>
         </span>
-      </span>
-      {person.needsAccessible && <Accessibility className="size-4 shrink-0 text-water-700" aria-label="Needs an accessible bed" />}
-      {suggested && <span className="shrink-0 rounded-full bg-leaf px-2 py-0.5 text-xs font-semibold text-white">next</span>}
+        {person.needsAccessible && <Accessibility className="size-4 shrink-0 text-water-700" aria-label="needs an accessible bed" role="img" />}
+        {suggested && <span className="shrink-0 rounded-full bg-leaf px-2 py-0.5 text-xs font-semibold text-white">next</span>}
+      </div>
     </li>
   );
 }
@@ -166,7 +170,7 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
               <Alert tone={notice.tone}>{notice.text}</Alert>
             </div>
           )}
-          <p className="text-sm text-stone">
+          <p id={`drag-help-${site.id}`} className="text-sm text-stone">
             Drag a person from the waitlist onto a free plot to send them an offer, or select a plot and choose a person
             below the map.
           </p>
@@ -218,7 +222,8 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
                   </Button>
                 </div>
               )}
-              {(selectedState?.status ?? 'free') === 'free' && (
+              {selected.kind === 'shared_bed' && <p className="text-stone">A shared bed: the club tends it together, so it is not offered to one person.</p>}
+              {(selectedState?.status ?? 'free') === 'free' && selected.kind !== 'shared_bed' && (
                 <form
                   className="flex flex-wrap items-end gap-3"
                   onSubmit={(e) => {
@@ -259,7 +264,13 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
           ) : (
             <ul className="max-h-[32rem] space-y-2 overflow-y-auto pr-1" aria-label="People waiting for a plot">
               {people.map((p) => (
-                <PersonChip key={p.id} person={p} suggested={p.id === suggested?.id} fitsSelected={selected && selectedState?.status === 'free' ? fits(p, selected, site.id) : null} />
+                <PersonChip
+                  key={p.id}
+                  person={p}
+                  suggested={p.id === suggested?.id}
+                  describedBy={`drag-help-${site.id}`}
+                  fitsSelected={selected && selectedState?.status === 'free' ? fits(p, selected, site.id) : null}
+                />
               ))}
             </ul>
           )}

@@ -3,8 +3,8 @@ import { Accessibility, Droplet } from 'lucide-react';
 import type { KeyboardEvent } from 'react';
 import { footprint, type Rect } from '@shared/geometry';
 import type { Plot } from '@shared/schemas/plots';
-import { plotSeasonStatusLabels, type PlotSeasonState } from '@shared/schemas/seasons';
-import { statusClasses, statusWord } from './season-status';
+import type { PlotSeasonState } from '@shared/schemas/seasons';
+import { plotName, statusClasses, statusWord } from './season-status';
 
 export type PlotMark = 'selected' | 'neighbour' | 'blocked' | null;
 
@@ -54,8 +54,7 @@ export function PlotShape({ plot, rect, scale, mark, canEdit, onSelect, onBlur, 
       role="button"
       aria-roledescription={canEdit ? 'movable plot' : 'plot'}
       aria-describedby={describedBy}
-      aria-label={`Plot ${plot.label}`}
-      aria-description={season ? `${plotSeasonStatusLabels[season.status]}${who ? `, ${who}` : ''}` : undefined}
+      aria-label={plotName(plot.label, season?.status ?? null, who, plot.kind)}
       aria-pressed={mark === 'selected'}
       data-plot-label={plot.label}
       tabIndex={0}
@@ -71,8 +70,8 @@ export function PlotShape({ plot, rect, scale, mark, canEdit, onSelect, onBlur, 
       style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: fontPx }}
       title={plot.label}
     >
-      <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>
-      {season && !small && <span className="max-w-full truncate px-0.5 text-[0.85em] leading-tight">{statusWord(season.status, who)}</span>}
+      <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>{' '}
+      {season && !small && <span className="max-w-full truncate px-0.5 text-[0.85em] leading-tight">{statusWord(season.status, who, plot.kind)}</span>}
       {!small && (plot.isAccessible || plot.hasWaterTap) && (
         <span className="mt-0.5 flex gap-0.5 text-water-700" aria-hidden="true">
           {plot.isAccessible && <Accessibility className="size-3.5" />}
