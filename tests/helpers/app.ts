@@ -1,5 +1,3 @@
-import os from 'node:os';
-import path from 'node:path';
 import type { Knex } from 'knex';
 import request from 'supertest';
 import { inject } from 'vitest';
@@ -22,7 +20,7 @@ export function testConfig(env: Record<string, string> = {}): Config {
     LOG_LEVEL: 'silent',
     STATIC_DIR: '/nonexistent',
     // Uploads from tests go to the throwaway temp folder, never into the checkout's .data.
-    UPLOAD_DIR: path.join(os.tmpdir(), `tillwell-test-uploads-${process.pid}`),
+    UPLOAD_DIR: inject('uploadDir'),
     ...env,
   });
 }

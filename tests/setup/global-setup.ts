@@ -13,6 +13,7 @@ declare module 'vitest' {
     databaseUrl: string;
     mailUrl: string;
     smtpUrl: string;
+    uploadDir: string;
   }
 }
 
@@ -24,6 +25,7 @@ export default async function setup(project: TestProject) {
   fs.chmodSync(dir, 0o755);
   const cluster = startCluster({ dataDir: path.join(dir, 'data'), port: await freePort(), throwaway: true, log: () => {} });
   const mailDir = fs.mkdtempSync(path.join(os.tmpdir(), 'tillwell-test-mail-'));
+  const uploadDir = fs.mkdtempSync(path.join(os.tmpdir(), 'tillwell-test-uploads-'));
   const mail = await startFakeMail({ smtpPort: 0, httpPort: 0, dir: mailDir });
   try {
     await cluster.createDatabase('tillwell_test');
@@ -39,12 +41,14 @@ export default async function setup(project: TestProject) {
   project.provide('databaseUrl', cluster.url('tillwell_test'));
   project.provide('mailUrl', mail.url);
   project.provide('smtpUrl', mail.smtpUrl);
+  project.provide('uploadDir', uploadDir);
 
   return async () => {
     await mail.close();
     cluster.stop();
     removeDir(dir);
     removeDir(mailDir);
+    removeDir(uploadDir);
     // No test may leave a server behind; say so loudly if one did.
     const left = spawnSync('sh', ['-c', `pgrep -f "[p]ostgres -D ${dir}" || true`], { encoding: 'utf8' }).stdout.trim();
     if (left) console.warn(`processes still running for ${dir}: ${left}`);
