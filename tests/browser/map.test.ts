@@ -98,10 +98,18 @@ describe('the map editor', () => {
     expect(after.y_m).toBeCloseTo(before.y_m + 0.2, 6);
     expect(after.x_m).toBeCloseTo(before.x_m + 0.1, 6);
 
-    // Shift + arrow makes it one grid step wider.
+    // Shift + arrow makes it one grid step wider; two quick presses are two saved steps, not a
+    // conflict with itself.
     await plot(w.page, 'B-3').focus();
-    await savedAfter(w.page, () => w.page.keyboard.press('Shift+ArrowRight'));
-    expect((await plotRow('B-3')).width_m).toBeCloseTo(before.width_m + 0.1, 6);
+    const answers: number[] = [];
+    w.page.on('response', (r) => {
+      if (r.url().includes('/api/plots/') && r.request().method() === 'PATCH') answers.push(r.status());
+    });
+    await w.page.keyboard.press('Shift+ArrowRight');
+    await w.page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(() => answers.length, { timeout: 10_000 }).toBe(2);
+    expect(answers).toEqual([200, 200]);
+    expect((await plotRow('B-3')).width_m).toBeCloseTo(before.width_m + 0.2, 6);
     expect(w.errors).toEqual([]);
   });
 
