@@ -9,7 +9,7 @@ import { Alert } from './alert';
 import { Badge } from './badge';
 import { Button } from './button';
 import { DataTable } from './data-table';
-import { Field, inputClasses } from './field';
+import { inputClasses, TextAreaField } from './field';
 
 // The server takes at most 2,000,000 characters; a bigger file is refused here at once.
 const MAX_FILE_BYTES = 2_000_000;
@@ -166,20 +166,7 @@ export interface CsvRowsFieldProps {
 /** The text box holding the CSV rows, picked or pasted. */
 export function CsvRowsField({ label, hint, error, rows, registration }: CsvRowsFieldProps) {
   return (
-    <Field label={label} hint={hint} error={error}>
-      {({ inputId, describedBy, invalid }) => (
-        <textarea
-          id={inputId}
-          aria-describedby={describedBy}
-          aria-invalid={invalid || undefined}
-          rows={rows}
-          spellCheck={false}
-          wrap="off"
-          className={`${inputClasses} font-mono text-sm`}
-          {...registration}
-        />
-      )}
-    </Field>
+    <TextAreaField label={label} hint={hint} error={error} rows={rows} spellCheck={false} wrap="off" textareaClassName="font-mono text-sm" {...registration} />
   );
 }
 

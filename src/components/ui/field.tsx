@@ -71,3 +71,31 @@ export function TextField({ label, hint, error, id, className = '', ...inputProp
     </Field>
   );
 }
+
+export interface TextAreaFieldProps extends Omit<ComponentProps<'textarea'>, 'id'> {
+  label: ReactNode;
+  hint?: ReactNode;
+  error?: string;
+  id?: string;
+  /** Classes for the surrounding field (grid placement); `textareaClassName` styles the box itself. */
+  className?: string;
+  textareaClassName?: string;
+}
+
+/** A labelled multi-line text box; pass react-hook-form's register() result straight in. */
+export function TextAreaField({ label, hint, error, id, className = '', textareaClassName = '', rows = 3, ...rest }: TextAreaFieldProps) {
+  return (
+    <Field label={label} hint={hint} error={error} id={id} className={className}>
+      {({ inputId, describedBy, invalid }) => (
+        <textarea
+          id={inputId}
+          rows={rows}
+          aria-describedby={describedBy}
+          aria-invalid={invalid || undefined}
+          className={`${inputClasses} ${textareaClassName}`.trim()}
+          {...rest}
+        />
+      )}
+    </Field>
+  );
+}

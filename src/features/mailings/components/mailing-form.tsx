@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { MailingCreateBodySchema, type MailingAudience, type MailingCreateBody, type MailingSent } from '@shared/schemas/mailings';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, inputClasses, TextField } from '@/components/ui/field';
+import { TextAreaField, TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useSendMailing } from '../api/send-mailing';
@@ -137,22 +137,7 @@ export function MailingForm({ clubId, sites }: { clubId: number; sites: Array<{ 
         </div>
       )}
       <TextField label="Subject" autoComplete="off" error={errors.subject?.message} {...register('subject')} />
-      <Field
-        label="Message"
-        hint="Plain text. Leave a blank line between paragraphs. Each e-mail starts with the person's name and ends with why they got it."
-        error={errors.body?.message}
-      >
-        {({ inputId, describedBy, invalid }) => (
-          <textarea
-            id={inputId}
-            rows={8}
-            aria-describedby={describedBy}
-            aria-invalid={invalid || undefined}
-            className={inputClasses}
-            {...register('body')}
-          />
-        )}
-      </Field>
+      <TextAreaField label="Message" hint="Plain text. Leave a blank line between paragraphs. Each e-mail starts with the person's name and ends with why they got it." error={errors.body?.message} rows={8} {...register('body')} />
 
       {pending ? (
         <Alert tone="warning" title="Ready to send">

@@ -5,7 +5,7 @@ import { lengthUnitLabel, type UnitSystem } from '@shared/geometry';
 import type { Site, SiteCreateBody } from '@shared/schemas/sites';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { Field, inputClasses, TextField } from '@/components/ui/field';
+import { TextAreaField, TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useCreateSite } from '../api/create-site';
@@ -268,18 +268,7 @@ export function SiteForm({ clubId, site, onSaved, onCancel }: SiteFormProps) {
             />
           )}
         />
-        <Field label="Soil notes" hint="Optional. Soil type, tests, what was added." error={errors.soilNotes?.message} className="sm:col-span-2">
-          {({ inputId, describedBy, invalid }) => (
-            <textarea
-              id={inputId}
-              aria-describedby={describedBy}
-              aria-invalid={invalid || undefined}
-              rows={3}
-              className={inputClasses}
-              {...register('soilNotes')}
-            />
-          )}
-        </Field>
+        <TextAreaField label="Soil notes" hint="Optional. Soil type, tests, what was added." error={errors.soilNotes?.message} className="sm:col-span-2" rows={3} {...register('soilNotes')} />
       </Group>
 
       {/* Next to the button, so the answer shows where the person is looking on a long form. */}

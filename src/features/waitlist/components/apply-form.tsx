@@ -10,7 +10,7 @@ import {
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Checkbox, CheckboxGroup } from '@/components/ui/checkbox';
-import { Field, inputClasses, TextField } from '@/components/ui/field';
+import { TextAreaField, TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useSubmitApplication } from '../api/submit-application';
@@ -118,18 +118,7 @@ export function ApplyForm({ slug, info, onApplied }: ApplyFormProps) {
           ))}
         </Select>
       )}
-      <Field label="Anything else the coordinator should know? (optional)" error={errors.notes?.message}>
-        {({ inputId, describedBy, invalid }) => (
-          <textarea
-            id={inputId}
-            rows={3}
-            aria-describedby={describedBy}
-            aria-invalid={invalid || undefined}
-            className={inputClasses}
-            {...register('notes')}
-          />
-        )}
-      </Field>
+      <TextAreaField label="Anything else the coordinator should know? (optional)" error={errors.notes?.message} rows={3} {...register('notes')} />
       {/* People never see or reach this field; bots that fill every input do, and are quietly ignored. */}
       <div aria-hidden="true" className="absolute -left-[9999px] h-px w-px overflow-hidden">
         <label htmlFor={`${ids}-website`}>Website</label>

@@ -5,7 +5,7 @@ import { WaitlistMoveBodySchema, type WaitlistEntry } from '@shared/schemas/appl
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { Field, inputClasses, TextField } from '@/components/ui/field';
+import { TextAreaField, TextField } from '@/components/ui/field';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useMoveApplication } from '../api/move-application';
 
@@ -46,22 +46,7 @@ function MoveForm({ entry, waiting, onDone }: { entry: WaitlistEntry; waiting: n
         error={errors.toPosition?.message}
         {...register('toPosition', { valueAsNumber: true })}
       />
-      <Field
-        label="Reason"
-        hint="Kept in their history, with your name and the date."
-        error={errors.reason?.message}
-      >
-        {({ inputId, describedBy, invalid }) => (
-          <textarea
-            id={inputId}
-            rows={3}
-            aria-describedby={describedBy}
-            aria-invalid={invalid || undefined}
-            className={inputClasses}
-            {...register('reason')}
-          />
-        )}
-      </Field>
+      <TextAreaField label="Reason" hint="Kept in their history, with your name and the date." error={errors.reason?.message} rows={3} {...register('reason')} />
       <Button type="submit" loading={move.isPending} loadingText="Moving…" className="self-start">
         Move
       </Button>

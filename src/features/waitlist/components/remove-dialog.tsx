@@ -5,7 +5,7 @@ import { ApplicationRemoveBodySchema, type WaitlistEntry } from '@shared/schemas
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { Field, inputClasses } from '@/components/ui/field';
+import { TextAreaField } from '@/components/ui/field';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useRemoveApplication } from '../api/remove-application';
 
@@ -33,18 +33,7 @@ function RemoveForm({ entry, onDone }: { entry: WaitlistEntry; onDone: (message:
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
       {formError && <Alert tone="error">{formError}</Alert>}
-      <Field label="Reason" hint="For example: asked to leave, moved away, no answer to letters." error={errors.reason?.message}>
-        {({ inputId, describedBy, invalid }) => (
-          <textarea
-            id={inputId}
-            rows={3}
-            aria-describedby={describedBy}
-            aria-invalid={invalid || undefined}
-            className={inputClasses}
-            {...register('reason')}
-          />
-        )}
-      </Field>
+      <TextAreaField label="Reason" hint="For example: asked to leave, moved away, no answer to letters." error={errors.reason?.message} rows={3} {...register('reason')} />
       <Button type="submit" variant="danger" loading={remove.isPending} loadingText="Removing…" className="self-start">
         Remove from the waitlist
       </Button>
