@@ -48,7 +48,7 @@ function CurrentBackground({ site }: { site: Site }) {
   }
   const spans =
     background.metresPerPixel === null
-      ? 'Its real width is not set yet.'
+      ? 'Its real width is not set, so the map does not show it yet: upload it again with its width.'
       : `It spans ${formatLength(background.metresPerPixel * background.widthPx, site.units)} across.`;
   return (
     <figure className="flex flex-col gap-3">
@@ -150,7 +150,7 @@ export function SiteBackgroundForm({ site }: { site: Site }) {
         </Field>
         <TextField
           label={`Real width the image covers (${unit})`}
-          hint="From its left edge to its right edge on the ground. Leave blank to set the scale on the map later."
+          hint="From its left edge to its right edge on the ground. The map needs it to draw the picture to scale; without it the picture is kept but not shown on the map."
           inputMode="decimal"
           autoComplete="off"
           className="sm:max-w-xs"
