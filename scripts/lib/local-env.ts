@@ -1,9 +1,48 @@
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { startFakeMail, type FakeMail } from '../../fake-mail/server';
-import { startCluster, type Cluster } from './postgres';
+import { ensurePostgresInstalled, firstUnreachable, startCluster, type Cluster } from './postgres';
 
 export const root = path.resolve(import.meta.dirname, '..', '..');
+
+const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
+
+/** Where clusters live when the project folder is private to root (one folder per project path). */
+export const SYSTEM_CLUSTER_ROOT = '/var/lib/tillwell';
+
+export interface ClusterPlace {
+  dir: string;
+  /** Why this place was chosen, printed at start. */
+  reason: 'setting' | 'project' | 'system';
+}
+
+/**
+ * Chooses the local cluster's folder. TILLWELL_PG_DIR wins; otherwise `.data/pg` inside the
+ * project, unless we are root and the unprivileged postgres user cannot enter the project
+ * folder (root's home, a mktemp -d folder: mode 0700). Then the cluster lives in
+ * /var/lib/tillwell/<hash of the project path>/pg, which that user can reach, and the
+ * project folder's permissions are left as they are. A second start, and every db:* script,
+ * computes the same place from the same path.
+ */
+export function chooseClusterPlace(projectRoot: string, dataRoot: string, env = process.env): ClusterPlace {
+  if (env.TILLWELL_PG_DIR) return { dir: path.resolve(env.TILLWELL_PG_DIR), reason: 'setting' };
+  const inProject = path.join(dataRoot, 'pg');
+  // .data itself is ours and is kept enterable; what matters is every folder above it.
+  if (!isRoot || firstUnreachable(path.dirname(dataRoot)) === null) return { dir: inProject, reason: 'project' };
+  const real = fs.realpathSync(projectRoot);
+  const hash = crypto.createHash('sha256').update(real).digest('hex').slice(0, 12);
+  const home = path.join(SYSTEM_CLUSTER_ROOT, hash);
+  try {
+    fs.mkdirSync(home, { recursive: true, mode: 0o755 });
+    fs.writeFileSync(path.join(home, 'project'), `${real}\n`);
+  } catch {
+    // Cannot make a place outside the project: keep the in-project folder and its clear error.
+    return { dir: inProject, reason: 'project' };
+  }
+  if (firstUnreachable(home) !== null) return { dir: inProject, reason: 'project' };
+  return { dir: path.join(home, 'pg'), reason: 'system' };
+}
 
 export interface LocalServices {
   databaseUrl: string;
@@ -24,10 +63,16 @@ export async function startLocalServices(opts: { withMail: boolean }): Promise<L
   let cluster: Cluster | null = null;
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {
-    cluster = startCluster({
-      dataDir: process.env.TILLWELL_PG_DIR ?? path.join(dataRoot, 'pg'),
-      port: Number(process.env.TILLWELL_PG_PORT ?? 54329),
-    });
+    ensurePostgresInstalled();
+    const place = chooseClusterPlace(root, dataRoot);
+    const port = Number(process.env.TILLWELL_PG_PORT ?? 54329);
+    console.log(
+      `PostgreSQL data: ${place.dir} (127.0.0.1:${port})` +
+        (place.reason === 'system'
+          ? ` — the project folder is private to root, so the cluster lives where the "postgres" user can reach it`
+          : ''),
+    );
+    cluster = startCluster({ dataDir: place.dir, port });
     await cluster.createDatabase('tillwell');
     databaseUrl = cluster.url('tillwell');
   }

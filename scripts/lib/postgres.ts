@@ -167,6 +167,29 @@ export function startCluster(opts: ClusterOptions): Cluster {
   };
 }
 
+/** The first folder on the way to dir (dir included) that the postgres user cannot enter, or null. */
+export function firstUnreachable(dir: string): string | null {
+  if (!isRoot) return null;
+  let cur = path.resolve(dir);
+  // Walk up to the first folder that exists; folders still to be made will be ours.
+  while (!fs.existsSync(cur) && path.dirname(cur) !== cur) cur = path.dirname(cur);
+  const chain: string[] = [];
+  for (let c = cur; ; c = path.dirname(c)) {
+    chain.push(c);
+    if (path.dirname(c) === c) break;
+  }
+  for (const c of chain.reverse()) {
+    const res = spawnSync('runuser', ['-u', RUN_AS, '--', 'test', '-x', c]);
+    if (res.status !== 0) return c;
+  }
+  return null;
+}
+
+/** Whether the postgres user exists on this machine (Debian's package creates it). */
+export function postgresUserExists(): boolean {
+  return spawnSync('id', ['-u', RUN_AS]).status === 0;
+}
+
 function assertParentsSearchable(dir: string) {
   let cur = path.resolve(dir);
   while (true) {
