@@ -71,11 +71,19 @@ export function createApp(deps: Deps): BuiltApp {
   app.use(express.json({ limit: '3mb' })); // plot CSV imports come as JSON, up to 2 MB of text
 
   const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
+  // An idle client whose server went away emits 'error' on the pool; unheard, it ends the
+  // process. The pool drops that client and connects afresh on the next request.
+  sessionPool.on('error', (err) => logger.warn({ reason: err.message }, 'session store lost its database connection'));
   const PgStore = connectPgSimple(session);
   app.use(
     session({
       name: 'tillwell.sid',
-      store: new PgStore({ pool: sessionPool, tableName: 'session', pruneSessionInterval: 15 * 60 }),
+      store: new PgStore({
+        pool: sessionPool,
+        tableName: 'session',
+        pruneSessionInterval: 15 * 60,
+        errorLog: (...args: unknown[]) => logger.warn({ reason: String(args[0]) }, 'session store error'),
+      }),
       secret: config.sessionSecret,
       resave: false,
       saveUninitialized: false,

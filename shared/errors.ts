@@ -11,6 +11,7 @@ export const errorCodes = [
   'rate_limited',
   'gone',
   'internal',
+  'unavailable',
 ] as const;
 
 export const ErrorCodeSchema = z.enum(errorCodes);
@@ -38,4 +39,5 @@ export const statusForCode: Record<ErrorCode, number> = {
   rate_limited: 429,
   gone: 410,
   internal: 500,
+  unavailable: 503,
 };

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
+import { isDatabaseUnavailable } from '../db/unavailable';
 import { AppError, fieldsFromZod } from '../errors';
 
 interface PgError {
@@ -41,6 +42,18 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (e?.code === '23503') {
     res.status(400).json({ error: { code: 'validation_failed', message: 'A referenced record does not exist.' } });
+    return;
+  }
+  if (isDatabaseUnavailable(err)) {
+    req.log?.warn({ requestId, reason: (err as Error)?.message }, 'database unavailable');
+    res.setHeader('Retry-After', '5');
+    res.status(503).json({
+      error: {
+        code: 'unavailable',
+        message: 'The database is not reachable just now. Please try again in a few seconds.',
+        requestId,
+      },
+    });
     return;
   }
   req.log?.error({ err, requestId }, 'unhandled error');
