@@ -85,3 +85,21 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     uploadDir: e.UPLOAD_DIR,
   };
 }
+
+/**
+ * Settings that load but will not work together, said once at start-up. Tillwell serves plain
+ * HTTP, so an https PUBLIC_URL means a proxy terminates TLS: without TRUST_PROXY, Express
+ * sees every request as http and refuses to set the Secure session cookie, and every
+ * sign-in then fails with "The page was out of date".
+ */
+export function configWarnings(config: Config): string[] {
+  const warnings: string[] = [];
+  if (config.cookieSecure && !config.trustProxy) {
+    warnings.push(
+      'PUBLIC_URL is https:// but TRUST_PROXY is not set: session cookies are Secure and will not be set ' +
+        'for requests that reach Tillwell over plain HTTP, so nobody can sign in. Behind a reverse proxy ' +
+        'that terminates TLS, set TRUST_PROXY=true.',
+    );
+  }
+  return warnings;
+}

@@ -1,5 +1,5 @@
 import type { Server } from 'node:http';
-import type { Config } from './config';
+import { configWarnings, type Config } from './config';
 import { createDb } from './db/knex';
 import { createApp } from './app';
 import { startJobs } from './jobs';
@@ -13,11 +13,13 @@ export interface RunningServer {
 
 /** Migrates the database, then serves the API and the built client on config.host:port. */
 export async function startServer(config: Config): Promise<RunningServer> {
+  const log = pino({ level: config.logLevel });
+  for (const warning of configWarnings(config)) log.warn(warning);
   const db = createDb(config.databaseUrl);
   await db.migrate.latest();
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
   const built = createApp({ db, mailer, config });
-  const jobs = await startJobs(config.databaseUrl, db, pino({ level: config.logLevel }));
+  const jobs = await startJobs(config.databaseUrl, db, log);
   const server: Server = await new Promise((resolve, reject) => {
     const s = built.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
