@@ -145,9 +145,27 @@ const byPosition = (order: readonly string[]) => {
   return (p: ImportProblem, q: ImportProblem) => p.row - q.row || (at.get(p.field) ?? 0) - (at.get(q.field) ?? 0);
 };
 
-/** Problems sorted by line, then in column order. */
+/** At most this many problems are reported for one file; the rest are counted in one closing line. */
+export const MAX_REPORTED_PROBLEMS = 100;
+
+/**
+ * Problems sorted by line, then in column order: the first MAX_REPORTED_PROBLEMS of them and,
+ * when there are more, one closing problem on row 0 that counts the rest. A file of 2,000 bad
+ * rows then answers in kilobytes, not hundreds of megabytes.
+ */
 export function sortProblems(problems: ImportProblem[], columns: readonly string[]): ImportProblem[] {
-  return [...problems].sort(byPosition(columns));
+  const sorted = [...problems].sort(byPosition(columns));
+  if (sorted.length <= MAX_REPORTED_PROBLEMS) return sorted;
+  const rest = sorted.length - MAX_REPORTED_PROBLEMS;
+  const restRows = new Set(sorted.slice(MAX_REPORTED_PROBLEMS).map((p) => p.row)).size;
+  return [
+    ...sorted.slice(0, MAX_REPORTED_PROBLEMS),
+    {
+      row: 0,
+      field: '',
+      message: `…and ${rest} more ${rest === 1 ? 'problem' : 'problems'} on ${restRows} ${restRows === 1 ? 'row' : 'rows'} not listed here. Fix these first, then check again.`,
+    },
+  ];
 }
 
 /** The 400 a refused commit answers: fields keyed "row N.column" (or "row N" for the whole row or file). */

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import {
   DEFAULT_EPS,
   feetToMetres,
-  findOverlaps,
+  firstOverlaps,
   footprint,
   formatLength,
   METRES_PER_INCH,
@@ -37,6 +37,8 @@ import { recordPlotEvent } from './plot-events';
 
 /** The most plot rows one file may hold. */
 export const MAX_IMPORT_ROWS = 2000;
+/** Overlaps counted per row before the message says "at least". */
+const OVERLAP_COUNT_LIMIT = 10;
 
 type Column = (typeof plotCsvColumns)[number];
 type BodyKey = keyof PlotCreateBody;
@@ -231,22 +233,26 @@ function placementErrors(rows: ParsedRow[], site: SiteBounds, existing: PlotRow[
     }
   }
 
-  const byRow = new Map(placed.map((r) => [r.row, r]));
-  const byPlot = new Map(existing.map((p) => [p.id, p]));
+  // Saved plots first, then rows by line: each row is told the earliest plot it overlaps, once,
+  // with a count of the others (a grid index keeps 2,000 rows on one spot cheap).
   const rects = [
-    ...existing.map((p) => ({ id: `p${p.id}`, x: p.x_m, y: p.y_m, width: p.width_m, length: p.length_m, rotation: p.rotation })),
-    ...placed.map((r) => ({ id: `r${r.row}`, ...r.plot })),
+    ...existing.map((p) => ({ x: p.x_m, y: p.y_m, width: p.width_m, length: p.length_m, rotation: p.rotation })),
+    ...placed.map((r) => r.plot),
   ];
-  // Pairs come in input order: saved plots first, then rows by line, so b is always the later one.
-  for (const { a, b } of findOverlaps(rects, STORED_LENGTH_EPS)) {
-    if (b[0] === 'p') continue; // two saved plots: not this file's doing
-    const later = byRow.get(Number(b.slice(1)))!;
+  const found = firstOverlaps(rects, STORED_LENGTH_EPS, OVERLAP_COUNT_LIMIT);
+  placed.forEach((r, k) => {
+    const hit = found[existing.length + k];
+    if (!hit) return;
     const other =
-      a[0] === 'p'
-        ? `plot ${byPlot.get(Number(a.slice(1)))!.label}, already on the site`
-        : `plot ${byRow.get(Number(a.slice(1)))!.label} on row ${a.slice(1)}`;
-    errors.push({ row: later.row, field: 'x', message: `Plot ${later.label} overlaps ${other}; plots may touch but not overlap` });
-  }
+      hit.with < existing.length
+        ? `plot ${existing[hit.with].label}, already on the site`
+        : `plot ${placed[hit.with - existing.length].label} on row ${placed[hit.with - existing.length].row}`;
+    const more =
+      hit.count > 1
+        ? ` and ${hit.count >= OVERLAP_COUNT_LIMIT ? `at least ${hit.count - 1}` : hit.count - 1} more above it`
+        : '';
+    errors.push({ row: r.row, field: 'x', message: `Plot ${r.label} overlaps ${other}${more}; plots may touch but not overlap` });
+  });
   return errors;
 }
 

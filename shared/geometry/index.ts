@@ -1,2 +1,3 @@
 export * from './units';
 export * from './rect';
+export * from './overlap-index';

@@ -81,6 +81,25 @@ describe('members import', () => {
     expect(await count('memberships', { club_id: club.id })).toBe(1);
   });
 
+  it('lists the first 100 problems of a 2,000-row file and counts the rest, for members and the waitlist alike', async () => {
+    const club = await buildClub(t.db);
+    const c = await signedIn(club.id, ['coordinator']);
+    for (const kind of ['members', 'waitlist'] as const) {
+      const header = kind === 'members' ? 'Name,E-mail,Roles' : 'Name,E-mail';
+      const rows = Array.from({ length: 2000 }, (_, i) => (kind === 'members' ? `P ${i},not-an-address-${i},volunteer` : `P ${i},not-an-address-${i}`));
+      const res = await importCsv(c, club.id, kind, [header, ...rows].join('\n'));
+      expect(res.status, kind).toBe(200);
+      // Computed: 2,000 rows with one bad address each; 100 listed (rows 2–101), 1,900 counted.
+      expect(res.body.errors, kind).toHaveLength(101);
+      expect(res.body.errors[99].row, kind).toBe(101);
+      expect(res.body.errors[100], kind).toEqual({
+        row: 0,
+        field: '',
+        message: '…and 1900 more problems on 1900 rows not listed here. Fix these first, then check again.',
+      });
+    }
+  });
+
   it('reports missing and unknown columns on line 1', async () => {
     const club = await buildClub(t.db);
     const c = await signedIn(club.id, ['coordinator']);

@@ -135,6 +135,33 @@ describe('plot CSV import: preview', () => {
     expect(await plotCount(site.id)).toBe(1);
   });
 
+  it('answers 2,000 rows piled on one spot with the first 100 problems and a count of the rest, and saves nothing', async () => {
+    const { c, site } = await coordinatorWithSite();
+    const lines = Array.from({ length: 2000 }, (_, i) => `P${i},1,1,3,6`);
+    const res = await importCsv(c, site.id, [HEADER, ...lines].join('\n'));
+    expect(res.status).toBe(200);
+    // Computed: rows 3–2001 (1,999 rows) each overlap P0 on row 2; 100 are listed, 1,899 counted.
+    expect(res.body.errors).toHaveLength(101);
+    expect(res.body.errors[0]).toEqual({ row: 3, field: 'x', message: 'Plot P1 overlaps plot P0 on row 2; plots may touch but not overlap' });
+    expect(res.body.errors[99]).toEqual({
+      row: 102,
+      field: 'x',
+      message: 'Plot P100 overlaps plot P0 on row 2 and at least 9 more above it; plots may touch but not overlap',
+    });
+    expect(res.body.errors[100]).toEqual({
+      row: 0,
+      field: '',
+      message: '…and 1899 more problems on 1899 rows not listed here. Fix these first, then check again.',
+    });
+    // The 2,000 preview rows (about 240 bytes each) are most of it; it was 226 MB with every pair listed.
+    expect(res.text.length).toBeLessThan(1_000_000);
+    const refused = await importCsv(c, site.id, [HEADER, ...lines].join('\n'), { commit: true });
+    expect(refused.status).toBe(400);
+    expect(Object.keys(refused.body.error.fields)).toHaveLength(101);
+    expect(refused.body.error.message).toBe('100 rows have problems; nothing was imported.');
+    expect(await plotCount(site.id)).toBe(0);
+  });
+
   it('refuses a file with more than 2000 plot rows', async () => {
     const { c, site } = await coordinatorWithSite();
     const lines = Array.from({ length: 2001 }, (_, i) => `P${i},0,0,1,1`);

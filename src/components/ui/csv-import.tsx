@@ -32,6 +32,8 @@ export type PreviewRow<Row> = Row & { problems: number };
 
 /** "Row 4, email: Enter a valid e-mail address", or "Row 1: The file has no header line". */
 export function csvProblemText(p: CsvProblem): string {
+  // Row 0 is the server's closing count of problems it did not list.
+  if (p.row === 0) return p.message;
   return p.field ? `Row ${p.row}, ${p.field}: ${p.message}` : `Row ${p.row}: ${p.message}`;
 }
 
@@ -231,7 +233,7 @@ export function CsvCheckSection<Row extends { row: number }>({
     for (const e of result.errors) counts.set(e.row, (counts.get(e.row) ?? 0) + 1);
     return result.rows.map((r) => ({ ...r, problems: counts.get(r.row) ?? 0 }));
   }, [result]);
-  const badRows = new Set(result.errors.map((e) => e.row)).size;
+  const badRows = new Set(result.errors.filter((e) => e.row > 0).map((e) => e.row)).size;
   return (
     <section aria-labelledby={headingId} className="flex min-w-0 flex-col gap-4">
       <h3 id={headingId} className="text-lg font-semibold">
