@@ -83,6 +83,66 @@ describe('the map editor', () => {
     expect(w.errors).toEqual([]);
   });
 
+  it('grows a plot when its grip is dragged down and to the right, and saves the size that was shown', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('A-4');
+    await plot(w.page, 'A-4').click();
+    const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
+    const scale = map.width / 34; // the site is 34 m wide
+    const grip = (await w.page.getByRole('button', { name: 'Resize plot A-4' }).boundingBox())!;
+    const x = grip.x + grip.width / 2;
+    const y = grip.y + grip.height / 2;
+    await w.page.mouse.move(x, y);
+    await w.page.mouse.down();
+    // Small real pointer moves, as a hand makes them: 0.5 m east and 0.5 m south in all (the path to B-4 is 0.9 m).
+    for (let i = 1; i <= 20; i++) await w.page.mouse.move(x + (0.5 * scale * i) / 20, y + (0.5 * scale * i) / 20);
+    const shown = (await plot(w.page, 'A-4').boundingBox())!;
+    await savedAfter(w.page, () => w.page.mouse.up());
+    const after = await plotRow('A-4');
+    // Computed: 0.5 m and 0.5 m of pointer travel, snapped to the 0.1 m grid.
+    const [east, south] = after.rotation === 90 ? [after.length_m, after.width_m] : [after.width_m, after.length_m];
+    const [eastBefore, southBefore] = before.rotation === 90 ? [before.length_m, before.width_m] : [before.width_m, before.length_m];
+    expect(east).toBeCloseTo(eastBefore + 0.5, 6);
+    expect(south).toBeCloseTo(southBefore + 0.5, 6);
+    expect([after.x_m, after.y_m]).toEqual([before.x_m, before.y_m]);
+    // What was on screen as the pointer let go is what was saved.
+    expect(Math.abs(shown.width - east * scale)).toBeLessThan(2);
+    expect(Math.abs(shown.height - south * scale)).toBeLessThan(2);
+    expect(w.errors).toEqual([]);
+  });
+
+  it('does not scroll the page while a grip is dragged near the bottom of the window', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('B-7');
+    await plot(w.page, 'B-7').click();
+    const gripButton = w.page.getByRole('button', { name: 'Resize plot B-7' });
+    // Bring the grip to about 20 px above the bottom edge of the window.
+    const viewport = w.page.viewportSize()!;
+    const at = (await gripButton.boundingBox())!;
+    await w.page.evaluate((by) => window.scrollBy(0, by), at.y - (viewport.height - 20));
+    const scrolled = await w.page.evaluate(() => window.scrollY);
+    const grip = (await gripButton.boundingBox())!;
+    const x = grip.x + grip.width / 2;
+    const y = grip.y + grip.height / 2;
+    await w.page.mouse.move(x, y);
+    await w.page.mouse.down();
+    for (let i = 1; i <= 15; i++) await w.page.mouse.move(x + i, Math.min(viewport.height - 2, y + i));
+    // Hold still near the edge, where an auto-scroll would keep going.
+    await w.page.waitForTimeout(600);
+    const shown = (await plot(w.page, 'B-7').boundingBox())!;
+    expect(await w.page.evaluate(() => window.scrollY)).toBe(scrolled);
+    await w.page.mouse.up();
+    await expect.poll(async () => (await plotRow('B-7')).version, { timeout: 10_000 }).toBeGreaterThan(before.version);
+    const after = await plotRow('B-7');
+    const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
+    const scale = map.width / 34;
+    const [east, south] = after.rotation === 90 ? [after.length_m, after.width_m] : [after.width_m, after.length_m];
+    expect(Math.abs(shown.width - east * scale)).toBeLessThan(2);
+    expect(Math.abs(shown.height - south * scale)).toBeLessThan(2);
+    expect(after.y_m + south).toBeLessThanOrEqual(22 + 1e-6); // still on the 22 m long site
+    expect(w.errors).toEqual([]);
+  });
+
   it('moves a plot with the keyboard only, one grid step per arrow press', async () => {
     const w = await openMap(1280);
     const before = await plotRow('B-3');

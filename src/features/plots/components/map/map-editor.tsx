@@ -44,7 +44,8 @@ interface DragState {
 }
 
 const ARROWS: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
-const MIN_SIDE = 0.3;
+/** The smallest side a drag or Shift + arrow leaves a plot with: half a metre, about a small container (common practice). */
+const MIN_SIDE = 0.5;
 
 function rectOf(p: Plot): Rect {
   return { x: p.x, y: p.y, width: p.width, length: p.length, rotation: p.rotation };
@@ -142,6 +143,12 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
     const changes: Partial<PlotCreateBody> =
       kind === 'move' ? { x: to.x, y: to.y } : { width: to.width, length: to.length };
     const changed = Object.entries(changes).some(([k, v]) => (plot as Record<string, unknown>)[k] !== v);
+    // The red ring said it would not fit there: put it back rather than send a change that will be refused.
+    const inTheWay = plots.find((p) => p.id !== plot.id && overlaps(to, rectOf(p)));
+    if (changed && inTheWay) {
+      setNotice({ tone: 'error', text: `Plot ${plot.label} was put back: there it would overlap plot ${inTheWay.label}.` });
+      return;
+    }
     if (changed) save(plot, changes).catch(() => undefined);
   }
 
@@ -261,7 +268,14 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
           </p>
         )}
         <div ref={wrapRef} className="overflow-auto rounded-xl border border-paper-300 bg-white">
-          <DndContext sensors={sensors} onDragMove={onDragMove} onDragEnd={onDragEnd} onDragCancel={() => setDrag(null)}>
+          {/* No auto-scroll: scrolling the page under a drag moved the plot further than the pointer and ran it off the map. */}
+          <DndContext
+            sensors={sensors}
+            autoScroll={false}
+            onDragMove={onDragMove}
+            onDragEnd={onDragEnd}
+            onDragCancel={() => setDrag(null)}
+          >
             <div
               className="map-grid relative"
               style={{
