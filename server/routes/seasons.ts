@@ -1,9 +1,10 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { OfferCreateBodySchema, SeasonCreateBodySchema } from '@shared/schemas/seasons';
+import { OfferCreateBodySchema, OfferQuoteQuerySchema, SeasonCreateBodySchema } from '@shared/schemas/seasons';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
+import { quoteOffer } from '../services/offer-quotes';
 import { createOffer } from '../services/offers';
 import { seasonPlotStates } from '../services/season-plots';
 import { clubOfSeason, getSeason, listSeasons, openSeason } from '../services/seasons';
@@ -46,6 +47,12 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
     if (!site) return res.json({ items: [], page: 1, total: 0 });
     const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId);
     res.json({ items, page: 1, total: items.length });
+  });
+
+  // What an offer would say (person, plot, deadline, fee) for the confirm step; sends nothing.
+  router.get('/:seasonId/offer-quote', coordinator, async (req, res) => {
+    const query = parseInput(OfferQuoteQuerySchema, req.query);
+    res.json(await quoteOffer(db, { seasonId: Number(req.params.seasonId), clubId: req.clubId!, ...query }));
   });
 
   router.post('/:seasonId/offers', coordinator, async (req, res) => {

@@ -81,3 +81,29 @@ export const LinkPreviewSchema = z.object({
 export type LinkPreview = z.infer<typeof LinkPreviewSchema>;
 
 export const LinkAnswerSchema = z.object({ status: z.string(), message: z.string() });
+
+export const OfferQuoteQuerySchema = z.object({
+  plotId: z.coerce.number().int().positive().max(2_147_483_647),
+  applicationId: z.coerce.number().int().positive().max(2_147_483_647),
+});
+
+/** What an offer would say before it is sent: to whom, which plot, answer by when, and what it costs. */
+export const OfferQuoteSchema = z.object({
+  personName: z.string(),
+  personEmail: z.string(),
+  plotLabel: z.string(),
+  siteName: z.string(),
+  /** When the offer would lapse if it were sent now (ISO instant). */
+  deadline: z.string(),
+  /** Days the club gives to answer. */
+  offerDays: z.number().int(),
+  fee: z.object({
+    plotFeeMinor: z.number().int(),
+    depositMinor: z.number().int(),
+    totalMinor: z.number().int(),
+    currency: z.string(),
+  }),
+  /** Whether the plot meets what the person asked for (accessible, raised, site). */
+  fitsNeeds: z.boolean(),
+});
+export type OfferQuote = z.infer<typeof OfferQuoteSchema>;

@@ -40,12 +40,20 @@ describe('the spring round in the browser', () => {
     const person = w.page.getByRole('button', { name: /^1 Ines Carvalho/ });
     const from = (await person.boundingBox())!;
     const to = (await plotTile(w, 'B-1').boundingBox())!;
-    const saved = w.page.waitForResponse((r) => r.url().includes('/offers') && r.request().method() === 'POST');
     await w.page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
     await w.page.mouse.down();
     await w.page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
     await w.page.mouse.move(to.x + to.width / 2, to.y + to.height / 2, { steps: 15 });
     await w.page.mouse.up();
+    // Nothing is sent on the drop: a confirm step says who, which plot, by when and what it costs.
+    const confirm = w.page.getByRole('dialog', { name: 'Offer plot B-1 to Ines Carvalho?' });
+    await confirm.waitFor();
+    await confirm.getByText('£45.00 plus a refundable deposit of £15.00').waitFor();
+    await confirm.getByText('(7 days)', { exact: false }).waitFor();
+    await w.shot('spring-round-offer-confirm-desktop');
+    expect(await db('offers').count({ n: '*' }).first()).toEqual({ n: 0 });
+    const saved = w.page.waitForResponse((r) => r.url().includes('/offers') && r.request().method() === 'POST');
+    await confirm.getByRole('button', { name: 'Send the offer' }).click();
     expect((await saved).status()).toBe(201);
     await w.page.getByText('Plot B-1 offered to Ines Carvalho. The offer e-mail is on its way.').waitFor();
     await plotSays(w, 'B-1', 'Plot B-1 offered, to Ines Carvalho');
@@ -69,14 +77,48 @@ describe('the spring round in the browser', () => {
     expect(applicant.errors).toEqual([]);
   });
 
+  it('takes the free plot under the pointer as the drop target, and Cancel sends nothing', async () => {
+    const w = await coordinatorOn(1280);
+    await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
+    const offersBefore = await db('offers').count({ n: '*' }).first();
+    const free = w.page.locator('[data-plot-label][aria-label$=" free"]');
+    const labels = (await free.evaluateAll((els) => els.map((e) => e.getAttribute('data-plot-label')!))).slice(0, 4);
+    expect(labels.length).toBeGreaterThan(1);
+    // Scroll a little first, so drop zones measured before a scroll would be off.
+    await w.page.evaluate(() => window.scrollBy(0, 120));
+    for (const label of labels) {
+      const person = w.page.getByRole('button', { name: /^2 / });
+      const from = (await person.boundingBox())!;
+      const to = (await plotTile(w, label).boundingBox())!;
+      // Let go near the plot's lower-right corner: the dragged chip then hangs over plots to its left and above.
+      const x = to.x + to.width * 0.85;
+      const y = to.y + to.height * 0.85;
+      await w.page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+      await w.page.mouse.down();
+      await w.page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
+      await w.page.mouse.move(x, y, { steps: 20 });
+      await w.page.mouse.up();
+      const confirm = w.page.getByRole('dialog', { name: new RegExp(`^Offer plot ${label} to `) });
+      await confirm.waitFor();
+      await confirm.getByRole('button', { name: 'Cancel' }).click();
+      await confirm.waitFor({ state: 'hidden' });
+    }
+    expect(await db('offers').count({ n: '*' }).first()).toEqual(offersBefore);
+    expect(w.errors).toEqual([]);
+  });
+
   it('offers a plot without dragging: select the plot, take the suggested person, press Offer', async () => {
     const w = await coordinatorOn(390);
     await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
     // R-1 is a wheelchair-height raised bed freed this season; Grace asked for exactly that.
     await plotTile(w, 'R-1').click();
     await w.page.getByText('For plot R-1, the next who fits is Grace Adeyemi.').waitFor();
-    const saved = w.page.waitForResponse((r) => r.url().includes('/offers') && r.request().method() === 'POST');
     await w.page.getByRole('button', { name: 'Offer plot R-1' }).click();
+    const confirm = w.page.getByRole('dialog', { name: 'Offer plot R-1 to Grace Adeyemi?' });
+    await confirm.waitFor();
+    await w.shot('spring-round-offer-confirm-phone');
+    const saved = w.page.waitForResponse((r) => r.url().includes('/offers') && r.request().method() === 'POST');
+    await confirm.getByRole('button', { name: 'Send the offer' }).click();
     expect((await saved).status()).toBe(201);
     await plotSays(w, 'R-1', 'Plot R-1 offered, to Grace Adeyemi');
     await w.shot('spring-round-phone');

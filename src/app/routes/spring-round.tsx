@@ -7,6 +7,7 @@ import { LoadingState } from '@/components/ui/spinner';
 import { AllocationMap, type AllocationPerson } from '@/features/plots/components/map/allocation-map';
 import { useSites } from '@/features/sites/api/get-sites';
 import { useCreateOffer } from '@/features/spring-round/api/create-offer';
+import { getOfferQuote } from '@/features/spring-round/api/get-offer-quote';
 import { usePlotStates } from '@/features/spring-round/api/get-plot-states';
 import { useSeasons } from '@/features/spring-round/api/get-seasons';
 import { useWaitingPeople } from '@/features/spring-round/api/get-waiting-people';
@@ -51,6 +52,7 @@ function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; s
       states={states.data.items}
       people={people}
       plotHref={(plotId) => paths.plot(clubId, plotId)}
+      onQuote={(plotId, applicationId) => getOfferQuote(season.id, plotId, applicationId)}
       onOffer={(plotId, applicationId) => offer.mutateAsync({ plotId, applicationId })}
       onWithdraw={(offerId) => withdraw.mutateAsync(offerId)}
     />

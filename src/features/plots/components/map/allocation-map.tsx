@@ -1,15 +1,28 @@
-import { DndContext, DragOverlay, PointerSensor, useDraggable, useDroppable, useSensor, useSensors, type DragEndEvent } from '@dnd-kit/core';
+import {
+  DndContext,
+  DragOverlay,
+  PointerSensor,
+  pointerWithin,
+  useDraggable,
+  useDroppable,
+  useSensor,
+  useSensors,
+  type Announcements,
+  type DragEndEvent,
+} from '@dnd-kit/core';
 import { Accessibility, GripVertical, Hourglass, UserRound } from 'lucide-react';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { footprint, formatArea, formatLength } from '@shared/geometry';
 import { plotKindLabels, type Plot } from '@shared/schemas/plots';
-import { plotSeasonStatusLabels, type PlotSeasonState, type PlotSeasonStatus } from '@shared/schemas/seasons';
+import { formatMoney } from '@shared/fees/compute';
+import { plotSeasonStatusLabels, type OfferQuote, type PlotSeasonState, type PlotSeasonStatus } from '@shared/schemas/seasons';
 import type { Site } from '@shared/schemas/sites';
 import { meetsNeeds, suggestApplicant, type SuggestPerson } from '@shared/spring-round/suggest';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
+import { Dialog } from '@/components/ui/dialog';
 import { ErrorState } from '@/components/ui/error-state';
 import { Select } from '@/components/ui/select';
 import { LoadingState } from '@/components/ui/spinner';
@@ -33,6 +46,8 @@ export interface AllocationMapProps {
   states: PlotSeasonState[];
   people: AllocationPerson[];
   plotHref(plotId: number): string;
+  /** What the offer would say, for the confirm step (nothing is sent). */
+  onQuote(plotId: number, personId: number): Promise<OfferQuote>;
   onOffer(plotId: number, personId: number): Promise<unknown>;
   onWithdraw(offerId: number): Promise<unknown>;
 }
@@ -105,7 +120,7 @@ function PersonChip({ person, suggested, fitsSelected, describedBy }: { person: 
 }
 
 /** The spring-round map: plots coloured and labelled by their status, and the waitlist to drag onto free plots. */
-export function AllocationMap({ site, states, people, plotHref, onOffer, onWithdraw }: AllocationMapProps) {
+export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer, onWithdraw }: AllocationMapProps) {
   const plotsQuery = useSitePlots(site.id);
   const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
   const [selectedId, setSelectedId] = useState<number | null>(null);
@@ -113,6 +128,8 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
   const [dragging, setDragging] = useState<AllocationPerson | null>(null);
   const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
+  /** An offer waiting for the coordinator's yes, with what it would say. */
+  const [confirming, setConfirming] = useState<{ plotId: number; personId: number; quote: OfferQuote } | null>(null);
   const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 4 } }));
 
   const plots = useMemo(() => plotsQuery.data?.items ?? [], [plotsQuery.data]);
@@ -122,17 +139,30 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
   const suggested = selected && selectedState?.status === 'free' ? suggestApplicant({ ...selected, siteId: site.id }, people) : null;
   const scale = Math.max(2, (wrapWidth ? wrapWidth - 2 : 600) / site.width);
 
-  async function offer(plotId: number, personId: number) {
-    const plot = plots.find((p) => p.id === plotId);
-    const person = people.find((p) => p.id === personId);
-    if (!plot || !person) return;
-    setBusy(true);
+  /** First step of an offer (drop or menu): fetch what it would say and ask before anything is sent. */
+  async function askToOffer(plotId: number, personId: number) {
     setNotice(null);
+    setBusy(true);
+    try {
+      setConfirming({ plotId, personId, quote: await onQuote(plotId, personId) });
+    } catch (err) {
+      setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The offer could not be prepared. Try again.' });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  async function sendOffer() {
+    if (!confirming) return;
+    const { plotId, personId, quote } = confirming;
+    setBusy(true);
     try {
       await onOffer(plotId, personId);
-      setNotice({ tone: 'success', text: `Plot ${plot.label} offered to ${person.name}. The offer e-mail is on its way.` });
+      setConfirming(null);
+      setNotice({ tone: 'success', text: `Plot ${quote.plotLabel} offered to ${quote.personName}. The offer e-mail is on its way.` });
       setChoice('');
     } catch (err) {
+      setConfirming(null);
       setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The offer could not be made. Try again.' });
     } finally {
       setBusy(false);
@@ -145,8 +175,21 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
     const overId = e.over ? Number(String(e.over.id).split(':')[1]) : null;
     if (overId === null) return;
     setSelectedId(overId);
-    void offer(overId, personId);
+    void askToOffer(overId, personId);
   }
+
+  const labelOf = (id: string | number) => {
+    const [kind, n] = String(id).split(':');
+    if (kind === 'person') return people.find((p) => p.id === Number(n))?.name ?? 'The person';
+    return `plot ${plots.find((p) => p.id === Number(n))?.label ?? ''}`.trim();
+  };
+  // What a screen reader hears during a drag: names, never internal ids.
+  const announcements: Announcements = {
+    onDragStart: ({ active }) => `Picked up ${labelOf(active.id)}.`,
+    onDragOver: ({ active, over }) => (over ? `${labelOf(active.id)} is over ${labelOf(over.id)}.` : `${labelOf(active.id)} is over no free plot.`),
+    onDragEnd: ({ active, over }) => (over ? `${labelOf(active.id)} dropped on ${labelOf(over.id)}.` : `${labelOf(active.id)} dropped outside the free plots.`),
+    onDragCancel: ({ active }) => `${labelOf(active.id)} put back on the waitlist.`,
+  };
 
   if (plotsQuery.isPending) return <LoadingState label="Loading the map…" />;
   if (plotsQuery.isError) return <ErrorState title="The map could not be loaded" message={plotsQuery.error.message} onRetry={() => void plotsQuery.refetch()} />;
@@ -159,6 +202,9 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
   return (
     <DndContext
       sensors={sensors}
+      // The plot under the pointer is the target, not the one the dragged chip overlaps most.
+      collisionDetection={pointerWithin}
+      accessibility={{ announcements }}
       onDragStart={(e) => setDragging(people.find((p) => `person:${p.id}` === e.active.id) ?? null)}
       onDragEnd={onDragEnd}
       onDragCancel={() => setDragging(null)}
@@ -229,7 +275,7 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
                   onSubmit={(e) => {
                     e.preventDefault();
                     const id = Number(choice || suggested?.id);
-                    if (id) void offer(selected.id, id);
+                    if (id) void askToOffer(selected.id, id);
                   }}
                 >
                   <Select label="Offer to" value={choice || String(suggested?.id ?? '')} onChange={(e) => setChoice(e.target.value)} className="min-w-64">
@@ -276,6 +322,48 @@ export function AllocationMap({ site, states, people, plotHref, onOffer, onWithd
           )}
         </Card>
       </div>
+      <Dialog
+        open={confirming !== null}
+        onClose={() => setConfirming(null)}
+        title={confirming ? `Offer plot ${confirming.quote.plotLabel} to ${confirming.quote.personName}?` : 'Send this offer?'}
+        description="Sending e-mails the offer with links to accept or decline."
+      >
+        {confirming && (
+          <div className="space-y-4">
+            <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
+              <dt className="font-medium">To</dt>
+              <dd>
+                {confirming.quote.personName} ({confirming.quote.personEmail})
+              </dd>
+              <dt className="font-medium">Plot</dt>
+              <dd>
+                {confirming.quote.plotLabel} at {confirming.quote.siteName}
+              </dd>
+              <dt className="font-medium">Answer by</dt>
+              <dd>
+                {formatDateTime(confirming.quote.deadline)} ({confirming.quote.offerDays} days)
+              </dd>
+              <dt className="font-medium">Fee</dt>
+              <dd>
+                {formatMoney(confirming.quote.fee.plotFeeMinor, confirming.quote.fee.currency)}
+                {confirming.quote.fee.depositMinor > 0 &&
+                  ` plus a refundable deposit of ${formatMoney(confirming.quote.fee.depositMinor, confirming.quote.fee.currency)}`}
+              </dd>
+            </dl>
+            {!confirming.quote.fitsNeeds && (
+              <Alert tone="warning">This plot does not meet everything {confirming.quote.personName} asked for.</Alert>
+            )}
+            <div className="flex flex-wrap justify-end gap-2">
+              <Button variant="secondary" onClick={() => setConfirming(null)}>
+                Cancel
+              </Button>
+              <Button onClick={() => void sendOffer()} loading={busy} loadingText="Sending…">
+                Send the offer
+              </Button>
+            </div>
+          </div>
+        )}
+      </Dialog>
       <DragOverlay>
         {dragging && (
           <div className="rounded-lg border-2 border-leaf bg-white px-3 py-2 font-medium shadow-lg">{dragging.name}</div>
