@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import Papa from 'papaparse';
 import { area } from '@shared/geometry';
-import { computePlotFee, feeBalance, formatMoney } from '@shared/fees/compute';
+import { computePlotFee, depositDue, feeBalance, formatMoney } from '@shared/fees/compute';
 import { minorToDecimal } from '@shared/fees/money';
 import type { Fee, FeeSchedule, FeesList, FeesQuery, MyFee, Payment, PaymentBody } from '@shared/schemas/fees';
 import { AppError, notFound } from '../errors';
@@ -50,6 +50,17 @@ export async function quotePlotFee(db: Knex | Knex.Transaction, clubId: number, 
   return { ...computePlotFee(schedule, { areaM2, kind: plot.kind }, { concession }), currency: club.currency as string };
 }
 
+/** What a person's earlier fees at the club still hold as deposit (paid beyond the plot fee, less refunds). */
+export async function depositHeld(db: Db, clubId: number, userId: number): Promise<number> {
+  const fees = await db('fees').where({ club_id: clubId, user_id: userId }).select('id', 'plot_fee_minor', 'deposit_minor');
+  if (fees.length === 0) return 0;
+  const payments = await db('payments').whereIn('fee_id', fees.map((f) => f.id)).select('fee_id', 'kind', 'amount_minor');
+  return fees.reduce((held, f) => {
+    const mine = payments.filter((p) => p.fee_id === f.id).map((p) => ({ kind: p.kind, amountMinor: p.amount_minor }));
+    return held + feeBalance({ plotFeeMinor: f.plot_fee_minor, depositMinor: f.deposit_minor }, mine).depositHeldMinor;
+  }, 0);
+}
+
 /**
  * Creates the fee due for a new allocation (on accepting an offer or keeping a plot), due in
  * 30 days; inside the caller's transaction. Returns the fee id.
@@ -64,6 +75,7 @@ export async function createFeeForAllocation(
     .where('a.id', opts.allocationId)
     .first('a.id', 'a.season_id', 'a.user_id', 'a.plot_id', 's.club_id', 's.year', 'p.label');
   const quote = await quotePlotFee(trx, a.club_id, a.plot_id, opts.concession ?? false);
+  const deposit = depositDue(quote.depositMinor, await depositHeld(trx, a.club_id, a.user_id));
   const due = new Date((opts.now ?? new Date()).getTime() + 30 * 24 * 3600 * 1000);
   const [row] = await trx('fees')
     .insert({
@@ -74,7 +86,7 @@ export async function createFeeForAllocation(
       plot_id: a.plot_id,
       description: `Plot ${a.label}, ${a.year} season`,
       plot_fee_minor: quote.plotFeeMinor,
-      deposit_minor: quote.depositMinor,
+      deposit_minor: deposit,
       is_concession: opts.concession ?? false,
       currency: quote.currency,
       due_on: due.toISOString().slice(0, 10),

@@ -1,7 +1,8 @@
 import type { Knex } from 'knex';
 import type { LinkPreview } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
-import { createFeeForAllocation, quotePlotFee } from './fees';
+import { depositDue } from '@shared/fees/compute';
+import { createFeeForAllocation, depositHeld, quotePlotFee } from './fees';
 import { plotFacts } from './link-preview';
 import { recordPlotEvent } from './plot-events';
 import { hashToken } from './tokens';
@@ -28,6 +29,8 @@ function assertOpen(row: { status: string; deadline: Date }, now: Date) {
 export async function previewRenewal(db: Knex, token: string): Promise<LinkPreview> {
   const r = await findRenewal(db, token);
   const quote = await quotePlotFee(db, r.club_id, r.plot_id);
+  // A deposit the holder already paid carries over: only a shortfall is asked for.
+  const deposit = depositDue(quote.depositMinor, await depositHeld(db, r.club_id, r.user_id));
   return {
     kind: 'renewal',
     status: r.status,
@@ -36,7 +39,7 @@ export async function previewRenewal(db: Knex, token: string): Promise<LinkPrevi
     year: r.year,
     plot: await plotFacts(db, r.plot_id),
     deadline: r.deadline.toISOString(),
-    fee: { plotFeeMinor: quote.plotFeeMinor, depositMinor: quote.depositMinor, currency: quote.currency },
+    fee: { plotFeeMinor: quote.plotFeeMinor, depositMinor: deposit, currency: quote.currency },
   };
 }
 

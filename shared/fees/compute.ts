@@ -64,3 +64,13 @@ export function feeBalance(
     balanceMinor: fee.plotFeeMinor + fee.depositMinor - paidMinor,
   };
 }
+
+/**
+ * The deposit a new season's fee asks for. A holder keeps one deposit with the club while they
+ * hold a plot (common practice for allotment and community garden clubs: the deposit is returned
+ * when the plot is given up, not each year), so a deposit already held carries over and only
+ * a shortfall (say, after the club raised its deposit) is asked for again.
+ */
+export function depositDue(scheduleDepositMinor: number, heldMinor: number): number {
+  return Math.max(0, scheduleDepositMinor - Math.max(0, heldMinor));
+}

@@ -78,8 +78,8 @@ describe('opening a season and renewals', () => {
     const anon = await browserLikeAgent(t.app);
     const preview = await anon.get(`/api/renewals/preview?token=${encodeURIComponent(token)}`).expect(200);
     expect(preview.body).toMatchObject({ kind: 'renewal', status: 'pending', name: 'Paid Up', year: 2027, plot: { label: 'A-1', size: '3 m × 6 m', area: '18 m²' } });
-    // 18 m² at 2.50 a m² (computed)
-    expect(preview.body.fee).toEqual({ plotFeeMinor: 4500, depositMinor: 1500, currency: 'GBP' });
+    // 18 m² at 2.50 a m² (computed); the £15 deposit paid in 2026 is still held, so none is asked again.
+    expect(preview.body.fee).toEqual({ plotFeeMinor: 4500, depositMinor: 0, currency: 'GBP' });
 
     expect((await anon.post('/api/renewals/keep', { token })).status).toBe(200);
     expect((await anon.post('/api/renewals/release', { token })).status).toBe(410);
@@ -88,7 +88,7 @@ describe('opening a season and renewals', () => {
     expect(states.find((s: { plotId: number }) => s.plotId === plots[0].id)).toMatchObject({ status: 'taken', holder: { name: 'Paid Up' } });
     expect(states.find((s: { plotId: number }) => s.plotId === plots[1].id).status).toBe('free');
     const fee = await t.db('fees').where({ season_id: season.id }).first();
-    expect(fee).toMatchObject({ user_id: paid.id, plot_fee_minor: 4500, deposit_minor: 1500 });
+    expect(fee).toMatchObject({ user_id: paid.id, plot_fee_minor: 4500, deposit_minor: 0 });
     const history = (await agent.get(`/api/plots/${plots[0].id}`)).body.history.map((e: { kind: string }) => e.kind);
     expect(history.slice(0, 2)).toEqual(['renewed', 'renewal_sent']);
   });
