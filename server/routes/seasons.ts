@@ -1,9 +1,10 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { OfferCreateBodySchema, OfferQuoteQuerySchema, SeasonCreateBodySchema } from '@shared/schemas/seasons';
+import { LateRenewalBodySchema, OfferCreateBodySchema, OfferQuoteQuerySchema, SeasonCreateBodySchema } from '@shared/schemas/seasons';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
+import { leftOutHolders, renewLeftOutHolder } from '../services/late-renewals';
 import { quoteOffer } from '../services/offer-quotes';
 import { createOffer } from '../services/offers';
 import { seasonPlotStates } from '../services/season-plots';
@@ -47,6 +48,23 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
     if (!site) return res.json({ items: [], page: 1, total: 0 });
     const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId);
     res.json({ items, page: 1, total: items.length });
+  });
+
+  // Last season's holders with no renewal this season, and why (arrears are the coordinator's to see).
+  router.get('/:seasonId/left-out', coordinator, async (req, res) => {
+    const items = await leftOutHolders(db, Number(req.params.seasonId));
+    res.json({ items, page: 1, total: items.length });
+  });
+
+  router.post('/:seasonId/late-renewals', coordinator, async (req, res) => {
+    const body = parseInput(LateRenewalBodySchema, req.body);
+    const result = await renewLeftOutHolder(db, mailer, {
+      seasonId: Number(req.params.seasonId),
+      allocationId: body.allocationId,
+      userId: req.session.userId!,
+      publicUrl: config.publicUrl,
+    });
+    res.status(201).json(result);
   });
 
   // What an offer would say (person, plot, deadline, fee) for the confirm step; sends nothing.

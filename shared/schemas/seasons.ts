@@ -107,3 +107,25 @@ export const OfferQuoteSchema = z.object({
   fitsNeeds: z.boolean(),
 });
 export type OfferQuote = z.infer<typeof OfferQuoteSchema>;
+
+/** A holder of last season who got no renewal in this one, with the reason as it stands now. */
+export const LeftOutHolderSchema = z.object({
+  allocationId: z.number().int(),
+  userId: z.number().int(),
+  name: z.string(),
+  plotId: z.number().int(),
+  plotLabel: z.string(),
+  siteName: z.string(),
+  /** Still owed on last season's fee, in minor units (0 once paid). */
+  owedMinor: z.number().int(),
+  currency: z.string(),
+  reason: z.string(),
+  /** True when the coordinator can send a renewal now (paid up, and the plot is still free). */
+  canRenew: z.boolean(),
+});
+export type LeftOutHolder = z.infer<typeof LeftOutHolderSchema>;
+
+export const LateRenewalBodySchema = z.strictObject({
+  allocationId: z.number().int().positive().max(2_147_483_647),
+});
+export type LateRenewalBody = z.infer<typeof LateRenewalBodySchema>;

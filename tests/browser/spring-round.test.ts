@@ -36,17 +36,18 @@ describe('the spring round in the browser', () => {
     await expect(plotTile(w, 'A-1').getAttribute('aria-label')).resolves.toMatch(/^Plot A-1 renewal\?, waiting for Teodor Lind/);
     await w.shot('spring-round-opened-desktop');
 
+    await w.page.getByRole('heading', { name: 'Left out of the 2027 renewals' }).waitFor();
     const since = Date.now();
     const person = w.page.getByRole('button', { name: /^1 Ines Carvalho/ });
     const from = (await person.boundingBox())!;
-    const to = (await plotTile(w, 'B-1').boundingBox())!;
+    const to = (await plotTile(w, 'A-3').boundingBox())!;
     await w.page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
     await w.page.mouse.down();
     await w.page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
     await w.page.mouse.move(to.x + to.width / 2, to.y + to.height / 2, { steps: 15 });
     await w.page.mouse.up();
     // Nothing is sent on the drop: a confirm step says who, which plot, by when and what it costs.
-    const confirm = w.page.getByRole('dialog', { name: 'Offer plot B-1 to Ines Carvalho?' });
+    const confirm = w.page.getByRole('dialog', { name: 'Offer plot A-3 to Ines Carvalho?' });
     await confirm.waitFor();
     await confirm.getByText('£45.00 plus a refundable deposit of £15.00').waitFor();
     await confirm.getByText('(7 days)', { exact: false }).waitFor();
@@ -55,12 +56,12 @@ describe('the spring round in the browser', () => {
     const saved = w.page.waitForResponse((r) => r.url().includes('/offers') && r.request().method() === 'POST');
     await confirm.getByRole('button', { name: 'Send the offer' }).click();
     expect((await saved).status()).toBe(201);
-    await w.page.getByText('Plot B-1 offered to Ines Carvalho. The offer e-mail is on its way.').waitFor();
-    await plotSays(w, 'B-1', 'Plot B-1 offered, to Ines Carvalho');
+    await w.page.getByText('Plot A-3 offered to Ines Carvalho. The offer e-mail is on its way.').waitFor();
+    await plotSays(w, 'A-3', 'Plot A-3 offered, to Ines Carvalho');
     await w.shot('spring-round-offered-desktop');
 
     const mail = await waitForMail(mailUrl(), { to: 'ines@example.org', after: since });
-    expect(mail.subject).toMatch(/^A plot for you at Mossgate Community Garden Club: B-1/);
+    expect(mail.subject).toMatch(/^A plot for you at Mossgate Community Garden Club: A-3/);
     const link = extractLink(mail, '/respond/offer');
     const applicant = await openPage(suite.browser, 390);
     await applicant.page.goto(link.replace(/^http:\/\/127\.0\.0\.1:\d+/, suite.server.url));
@@ -68,13 +69,34 @@ describe('the spring round in the browser', () => {
     await applicant.page.getByText('£45.00 plus a refundable deposit of £15.00').waitFor();
     await applicant.shot('offer-link-phone');
     await applicant.page.getByRole('button', { name: 'Accept the plot' }).click();
-    await applicant.page.getByText('Plot B-1 is yours for 2027.', { exact: false }).waitFor();
+    await applicant.page.getByText('Plot A-3 is yours for 2027.', { exact: false }).waitFor();
     await applicant.shot('offer-accepted-phone');
 
     await w.page.reload();
-    await plotSays(w, 'B-1', 'Plot B-1 IC, held by Ines Carvalho');
+    await plotSays(w, 'A-3', 'Plot A-3 IC, held by Ines Carvalho');
     expect(w.errors).toEqual([]);
     expect(applicant.errors).toEqual([]);
+  }, 60_000);
+
+  it('lists the holder left out for owing, and renews him from the page once he has paid', async () => {
+    const w = await coordinatorOn(1280);
+    await w.page.getByRole('heading', { name: 'Left out of the 2027 renewals' }).waitFor();
+    // Jonah paid £20.00 of £60.00 for 2026 (demo data): £40.00 owed (computed).
+    await w.page.getByText('Last season’s fee is not fully paid (£40.00 owed)').waitFor();
+    expect(await w.page.getByRole('button', { name: /^Send Jonah .* a renewal$/ }).count()).toBe(0);
+
+    const jonah = await db('users').where({ email: 'jonah@example.org' }).first('id');
+    const fee = await db('fees as f').join('seasons as s', 's.id', 'f.season_id').where({ 'f.user_id': jonah.id, 's.year': 2026 }).first('f.id');
+    await db('payments').insert({ fee_id: fee.id, amount_minor: 4000, method: 'cash', paid_on: '2026-12-01' });
+    await w.page.reload();
+    await w.page.getByText('Paid since the season opened: a renewal can be sent now').waitFor();
+    const since = Date.now();
+    await w.page.getByRole('button', { name: /^Send Jonah .* a renewal$/ }).click();
+    await w.page.getByText(/^Renewal for plot B-1 sent to Jonah/).waitFor();
+    const mail = await waitForMail(mailUrl(), { to: 'jonah@example.org', after: since });
+    expect(mail.subject).toMatch(/^Keep plot B-1 for 2027\?/);
+    await w.shot('spring-round-late-renewal-desktop');
+    expect(w.errors).toEqual([]);
   });
 
   it('takes the free plot under the pointer as the drop target, and Cancel sends nothing', async () => {
@@ -82,6 +104,7 @@ describe('the spring round in the browser', () => {
     await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
     const offersBefore = await db('offers').count({ n: '*' }).first();
     const free = w.page.locator('[data-plot-label][aria-label$=" free"]');
+    await free.first().waitFor();
     const labels = (await free.evaluateAll((els) => els.map((e) => e.getAttribute('data-plot-label')!))).slice(0, 4);
     expect(labels.length).toBeGreaterThan(1);
     // Scroll a little first, so drop zones measured before a scroll would be off.

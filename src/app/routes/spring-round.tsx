@@ -2,6 +2,7 @@ import { CalendarRange } from 'lucide-react';
 import { useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
+import { NotAllowed } from '@/components/ui/not-allowed';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
 import { AllocationMap, type AllocationPerson } from '@/features/plots/components/map/allocation-map';
@@ -13,6 +14,7 @@ import { useSeasons } from '@/features/spring-round/api/get-seasons';
 import { useWaitingPeople } from '@/features/spring-round/api/get-waiting-people';
 import { useWithdrawOffer } from '@/features/spring-round/api/withdraw-offer';
 import { OpenSeasonForm } from '@/features/spring-round/components/open-season-form';
+import { LeftOutList } from '@/features/spring-round/components/left-out-list';
 import { SeasonSummary } from '@/features/spring-round/components/season-summary';
 import { paths } from '@/lib/paths';
 import type { Season } from '@shared/schemas/seasons';
@@ -61,6 +63,19 @@ function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; s
 
 /** `/clubs/:clubId/spring-round`: open the season, watch renewals, and offer free plots from the map. */
 export function SpringRoundRoute() {
+  const { club } = useClubContext();
+  if (!club.roles.includes('coordinator')) {
+    return (
+      <NotAllowed
+        clubId={club.clubId}
+        message="The spring round (renewals, the waitlist and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail."
+      />
+    );
+  }
+  return <SpringRound />;
+}
+
+function SpringRound() {
   const { club } = useClubContext();
   const seasons = useSeasons(club.clubId);
   const sites = useSites(club.clubId);
@@ -111,6 +126,8 @@ export function SpringRoundRoute() {
               Draw a site and its plots first; then you can offer them here.
             </EmptyState>
           )}
+          {/* Below the map, so its loading never moves the map under a drag. */}
+          <LeftOutList season={current} />
         </>
       ) : (
         <EmptyState icon={CalendarRange} title="No season is open yet">
