@@ -41,7 +41,7 @@ export function createApp(deps: Deps): BuiltApp {
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);
 
-  const logger = pino({ level: config.logLevel });
+  const logger = pino({ level: config.logLevel }, deps.logDestination);
   app.use(
     pinoHttp({
       logger,

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { DestinationStream } from 'pino';
 import type { Config } from './config';
 import type { Mailer } from './mail/mailer';
 
@@ -7,4 +8,6 @@ export interface Deps {
   db: Knex;
   mailer: Mailer;
   config: Config;
+  /** Where log lines go; standard output when left out (tests pass a stream to read them). */
+  logDestination?: DestinationStream;
 }

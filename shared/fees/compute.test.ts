@@ -53,12 +53,39 @@ describe('plot fees', () => {
     expect(half.plotFeeMinor).toBe(13);
   });
 
-  it('keeps every result a whole number of minor units', () => {
-    for (let a = 0.5; a < 60; a += 0.37) {
-      const f = computePlotFee({ ...base, rateMinorPerArea: 233 }, { areaM2: a, kind: 'in_ground' }, { concession: true });
-      expect(Number.isInteger(f.plotFeeMinor)).toBe(true);
-      expect(Number.isInteger(f.totalMinor)).toBe(true);
-    }
+  // The rule (compute.ts, roundMinor): each step rounds half away from zero to a whole minor
+  // unit: first area × rate, then the concession on that whole base; the deposit is never discounted.
+  it('keeps every result a whole number of minor units, rounding each step half away from zero', () => {
+    const area = (areaM2: number, rateMinorPerArea: number, concessionPercent = 50, concession = false) =>
+      computePlotFee({ ...base, rateMinorPerArea, concessionPercent }, { areaM2, kind: 'in_ground' }, { concession });
+    const kind = (priceInGroundMinor: number, concessionPercent: number) =>
+      computePlotFee({ ...base, basis: 'kind', priceInGroundMinor, concessionPercent }, { areaM2: 18, kind: 'in_ground' }, { concession: true });
+
+    // Thirds. computed: 10/3 m² × 250 = 2500/3 = 833.33… → 833 (down); total 833 + 1500 = 2333
+    expect(area(10 / 3, 250)).toEqual({ plotFeeMinor: 833, depositMinor: 1500, totalMinor: 2333 });
+    // computed: 20/3 m² × 250 = 5000/3 = 1666.66… → 1667 (up)
+    expect(area(20 / 3, 250).plotFeeMinor).toBe(1667);
+
+    // A 33 % concession leaves 67 %. computed: 1000 × 0.67 = 670 (exact); deposit stays 1500, total 2170
+    expect(kind(1000, 33)).toEqual({ plotFeeMinor: 670, depositMinor: 1500, totalMinor: 2170 });
+    // On the whole thirds base: computed: 833 × 0.67 = 558.11 → 558; 1667 × 0.67 = 1116.89 → 1117
+    expect(area(10 / 3, 250, 33, true).plotFeeMinor).toBe(558);
+    expect(area(20 / 3, 250, 33, true).plotFeeMinor).toBe(1117);
+
+    // Half-way cases go away from zero, so the odd unit is charged, never dropped.
+    // computed: 4501 × 0.50 = 2250.5 → 2251 (half-to-even would give 2250); total 2251 + 1500 = 3751
+    expect(kind(4501, 50)).toEqual({ plotFeeMinor: 2251, depositMinor: 1500, totalMinor: 3751 });
+    // computed: 50 × 0.67 = 33.5 → 34
+    expect(kind(50, 33).plotFeeMinor).toBe(34);
+    // computed: 1.13 m² × 150 = 169.5 → 170 (in binary 1.13 × 150 is 169.49999999999997,
+    // which a plain Math.round would take down to 169)
+    expect(area(1.13, 150).plotFeeMinor).toBe(170);
+
+    // Where the odd unit goes across the two steps: the base is rounded before the concession.
+    // computed: 4.0024 m² × 250 = 1000.6 → 1001; 1001 × 0.50 = 500.5 → 501
+    // (a single rounding at the end would give 1000.6 × 0.50 = 500.3 → 500)
+    expect(area(4.0024, 250, 50, false).plotFeeMinor).toBe(1001);
+    expect(area(4.0024, 250, 50, true)).toEqual({ plotFeeMinor: 501, depositMinor: 1500, totalMinor: 2001 });
   });
 
   it('balances payments and refunds', () => {

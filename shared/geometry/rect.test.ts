@@ -28,26 +28,33 @@ function plot(id: string, x: number, y: number, width: number, length: number, r
   return { id, x, y, width, length, rotation } satisfies PlacedRect<string>;
 }
 
+// The hand-made cases below carry their working: every expected value is computed by hand
+// from the plots' x, y, width and length (metres; x grows east, y grows south).
 describe('footprint and area', () => {
   it('spans width east and length south at rotation 0', () => {
+    // computed: minX = x = 1, minY = y = 2, maxX = 1 + 3 = 4, maxY = 2 + 6 = 8
     expect(footprint(plot('a', 1, 2, 3, 6))).toEqual({ minX: 1, minY: 2, maxX: 4, maxY: 8 });
   });
 
   it('turns a quarter in place at rotation 90, keeping the north-west corner', () => {
+    // computed: turned, the length runs east and the width south: maxX = 1 + 6 = 7, maxY = 2 + 3 = 5
     expect(footprint(plot('a', 1, 2, 3, 6, 90))).toEqual({ minX: 1, minY: 2, maxX: 7, maxY: 5 });
   });
 
   it('cleans float noise off the far edges', () => {
+    // computed: 0.1 + 0.2 = 0.3 (binary gives 0.30000000000000004)
     expect(footprint(plot('a', 0.1, 0.1, 0.2, 0.2)).maxX).toBe(0.3);
   });
 
   it('gives the area in square metres, unchanged by rotation', () => {
+    // computed: 3 × 6 = 18 m²; turned it is 6 × 3 = 18 m²; 0.1 × 0.3 = 0.03 m²
     expect(area(plot('a', 0, 0, 3, 6))).toBe(18);
     expect(area(plot('a', 5, 5, 3, 6, 90))).toBe(18);
     expect(area(plot('a', 0, 0, 0.1, 0.3))).toBe(0.03);
   });
 
   it('validates rectangles with the schema', () => {
+    // The schema's rules: rotation is 0 or 90, sizes are positive, numbers are finite.
     expect(RectSchema.safeParse({ x: 0, y: 0, width: 3, length: 6, rotation: 90 }).success).toBe(true);
     expect(RectSchema.safeParse({ x: 0, y: 0, width: 3, length: 6, rotation: 45 }).success).toBe(false);
     expect(RectSchema.safeParse({ x: 0, y: 0, width: 0, length: 6, rotation: 0 }).success).toBe(false);
@@ -56,29 +63,40 @@ describe('footprint and area', () => {
 });
 
 describe('overlaps', () => {
-  const a = plot('a', 0, 0, 3, 6);
+  const a = plot('a', 0, 0, 3, 6); // x 0–3, y 0–6
 
   it('refuses plots that share ground', () => {
+    // computed: b spans x 2.9–5.9: shares 3 − 2.9 = 0.1 m × 6 m = 0.6 m²
+    // b spans x 1–2, y 1–2: inside a, shares 1 m²
+    // b spans x −1–0.5, y 5.5–6.5: shares (0.5 − 0) × (6 − 5.5) = 0.5 × 0.5 = 0.25 m²
     expect(overlaps(a, plot('b', 2.9, 0, 3, 6))).toBe(true);
     expect(overlaps(a, plot('b', 1, 1, 1, 1))).toBe(true);
     expect(overlaps(a, plot('b', -1, 5.5, 1.5, 1))).toBe(true);
   });
 
   it('allows plots that only touch along an edge or at a corner', () => {
+    // computed: b starts at x = 3 where a ends (3 − 3 = 0 shared); b starts at y = 6 where a ends;
+    // b's north-west corner is a's south-east corner (3, 6)
     expect(overlaps(a, plot('b', 3, 0, 3, 6))).toBe(false);
     expect(overlaps(a, plot('b', 0, 6, 3, 6))).toBe(false);
     expect(overlaps(a, plot('b', 3, 6, 1, 1))).toBe(false);
     // 0.1 + 0.2 ≠ 0.3 in binary; the edges still only touch.
+    // computed: c ends at 0.1 + 0.2 = 0.30000000000000004, d starts at 0.3: 5.6e-17 m apart, within eps
     expect(overlaps(plot('c', 0.1, 0, 0.2, 1), plot('d', 0.3, 0, 1, 1))).toBe(false);
   });
 
   it('lets rotation decide', () => {
+    // computed: b spans x 4–6, y 0–2. a unturned spans x 0–2: 4 − 2 = 2 m apart.
+    // a turned spans x 0–5, y 0–2: shares (5 − 4) × 2 = 2 m² with b
     const b = plot('b', 4, 0, 2, 2);
     expect(overlaps(plot('a', 0, 0, 2, 5), b)).toBe(false);
     expect(overlaps(plot('a', 0, 0, 2, 5, 90), b)).toBe(true);
   });
 
   it('lists each overlapping pair once, in input order', () => {
+    // computed: p1 x 10–13 y 0–3; p2 x 0–3 y 0–3; p3 x 2–5 y 2–5; p4 x 3–6 y 1.5–2.5; p5 x 11–12 y 1–2.
+    // p1/p5: p5 lies inside p1. p2/p3: x 2–3 and y 2–3 shared (1 m²). p3/p4: x 3–5, y 2–2.5 (1 m²).
+    // p2/p4 only touch at x = 3; p1 and p5 are 5 m or more east of p2, p3 and p4.
     const plots = [
       plot('p1', 10, 0, 3, 3),
       plot('p2', 0, 0, 3, 3),
@@ -95,15 +113,18 @@ describe('overlaps', () => {
 });
 
 describe('gapBetween', () => {
-  const a = plot('a', 0, 0, 3, 6);
+  const a = plot('a', 0, 0, 3, 6); // x 0–3, y 0–6
   it('measures straight across a path', () => {
+    // computed: 3.6 − 3 = 0.6 m east; 6.9 − 6 = 0.9 m south
     expect(gapBetween(a, plot('b', 3.6, 0, 3, 6))).toBe(0.6);
     expect(gapBetween(a, plot('b', 0, 6.9, 3, 6))).toBe(0.9);
   });
   it('measures corner to corner for diagonal plots', () => {
+    // computed: from a's corner (3, 6) to b's (3.3, 6.4): √(0.3² + 0.4²) = √0.25 = 0.5 m
     expect(gapBetween(a, plot('b', 3.3, 6.4, 1, 1))).toBeCloseTo(0.5, 12);
   });
   it('is 0 for touching or overlapping plots', () => {
+    // computed: b starts at x = 3 on a's east edge; b's corner is a's corner (3, 6); b (x 1–6, y 1–6) overlaps a
     expect(gapBetween(a, plot('b', 3, 2, 1, 1))).toBe(0);
     expect(gapBetween(a, plot('b', 3, 6, 1, 1))).toBe(0);
     expect(gapBetween(a, plot('b', 1, 1, 5, 5))).toBe(0);
@@ -111,21 +132,25 @@ describe('gapBetween', () => {
 });
 
 describe('neighbours', () => {
-  const a = plot('a', 0, 0, 3, 6);
+  const a = plot('a', 0, 0, 3, 6); // x 0–3, y 0–6
 
   it('finds plots touching side by side', () => {
+    // computed: b spans x 3–6, so gap 3 − 3 = 0, east of a; both span y 0–6: facing 6 m
     expect(neighbours([a, plot('b', 3, 0, 3, 6)], 0.9)).toEqual([
       { a: 'a', b: 'b', kind: 'touching', gap: 0, side: 'east', facing: 6 },
     ]);
   });
 
   it('finds plots across a 0.6 m path when paths are up to 0.9 m', () => {
+    // computed: gap 3.6 − 3 = 0.6 m ≤ 0.9 m, east; both span y 0–6: facing 6 m
     expect(neighbours([a, plot('b', 3.6, 0, 3, 6)], 0.9)).toEqual([
       { a: 'a', b: 'b', kind: 'across_path', gap: 0.6, side: 'east', facing: 6 },
     ]);
   });
 
   it('counts a gap of exactly the path width, float noise and all', () => {
+    // computed: n ends at 0.1 + 0.2 = 0.3, f starts at 1.2: gap 1.2 − 0.3 = 0.9 m (binary gives
+    // 0.8999999999999999), which is the path width; both span y 0–1: facing 1 m
     const near = plot('n', 0.1, 0, 0.2, 1);
     const far = plot('f', 1.2, 0, 1, 1);
     expect(neighbours([near, far], 0.9)).toEqual([
@@ -134,22 +159,29 @@ describe('neighbours', () => {
   });
 
   it('ignores plots 1.2 m apart when paths are up to 0.9 m', () => {
+    // computed: 4.2 − 3 = 1.2 m east and 7.2 − 6 = 1.2 m south, both over 0.9 m
     expect(neighbours([a, plot('b', 4.2, 0, 3, 6)], 0.9)).toEqual([]);
     expect(neighbours([a, plot('b', 0, 7.2, 3, 6)], 0.9)).toEqual([]);
   });
 
   it('ignores plots that meet only at a corner', () => {
+    // computed: b (x 3–6, y 6–12) meets a only at (3, 6); b (x −3–0, y −6–0) only at (0, 0):
+    // no stretch of edge faces the other plot
     expect(neighbours([a, plot('b', 3, 6, 3, 6)], 0.9)).toEqual([]);
     expect(neighbours([a, plot('b', -3, -6, 3, 6)], 0.9)).toEqual([]);
   });
 
   it('ignores diagonal plots even when the corner gap is under the path width', () => {
+    // computed: corner gap √(0.3² + 0.4²) = 0.5 m < 0.9 m, but b (x 3.3–6.3, y 6.4–12.4) shares
+    // neither a's x span nor its y span
     const b = plot('b', 3.3, 6.4, 3, 6);
     expect(gapBetween(a, b)).toBeLessThan(0.9);
     expect(neighbours([a, b], 0.9)).toEqual([]);
   });
 
   it('needs the facing stretch to be longer than the tolerance', () => {
+    // computed: b at y = 6 − 1e-7 faces a for only 6 − (6 − 1e-7) = 1e-7 m, within the tolerance.
+    // b at y = 5.9 faces a for 6 − 5.9 = 0.1 m, across a gap of 3.5 − 3 = 0.5 m, east
     expect(neighbours([a, plot('b', 3.5, 6 - 1e-7, 3, 6)], 0.9)).toEqual([]);
     expect(neighbours([a, plot('b', 3.5, 5.9, 3, 6)], 0.9)).toEqual([
       { a: 'a', b: 'b', kind: 'across_path', gap: 0.5, side: 'east', facing: 0.1 },
@@ -157,10 +189,13 @@ describe('neighbours', () => {
   });
 
   it('does not report overlapping plots', () => {
+    // computed: b spans x 2–5, sharing x 2–3 (1 m × 6 m) with a
     expect(neighbours([a, plot('b', 2, 0, 3, 6)], 0.9)).toEqual([]);
   });
 
   it('lets rotation 90 change the answer', () => {
+    // computed: b spans x 5.5–8.5, y 0–3. a unturned spans x 0–2: gap 5.5 − 2 = 3.5 m, too far.
+    // a turned spans x 0–5, y 0–2: gap 5.5 − 5 = 0.5 m, east; shared y 0–2: facing 2 m
     const b = plot('b', 5.5, 0, 3, 3);
     expect(neighbours([plot('a', 0, 0, 2, 5), b], 0.9)).toEqual([]);
     expect(neighbours([plot('a', 0, 0, 2, 5, 90), b], 0.9)).toEqual([
@@ -169,6 +204,9 @@ describe('neighbours', () => {
   });
 
   it('names the side where b lies as seen from a (north up, y grows south)', () => {
+    // computed: the centre spans x 10–12, y 10–12; each outer plot is 0.5 m off one side
+    // (n ends at y 9.5, s starts at 12.5, e starts at x 12.5, w ends at 9.5); outer plots are
+    // 3 m apart or diagonal to each other, so only the four pairs with the centre count
     const centre = plot('c', 10, 10, 2, 2);
     const around = [
       plot('n', 10, 7.5, 2, 2),
@@ -194,16 +232,19 @@ describe('neighbours', () => {
   });
 
   it('gives the facing length of partly offset plots', () => {
+    // computed: b spans x 1–6, y 6.3–8.3: south of a, gap 6.3 − 6 = 0.3 m, facing x 1–3 = 2 m
     const [n] = neighbours([a, plot('b', 1, 6.3, 5, 2)], 0.9);
     expect(n).toMatchObject({ side: 'south', gap: 0.3, facing: 2 });
   });
 
   it('reports touching when pathWidth is 0 and nothing else', () => {
+    // computed: b touches a's east edge (gap 0); c is 6.3 − 6 = 0.3 m south, more than a 0 m path
     const plots = [a, plot('b', 3, 0, 3, 6), plot('c', 0, 6.3, 3, 6)];
     expect(neighbours(plots, 0).map((n) => [n.a, n.b, n.kind])).toEqual([['a', 'b', 'touching']]);
   });
 
   it('works with numeric ids and reports each pair once', () => {
+    // computed: 7 spans x 0–1, 3 spans x 1–2: touching, east; both span y 0–1: facing 1 m
     const plots = [
       { id: 7, x: 0, y: 0, width: 1, length: 1, rotation: 0 as const },
       { id: 3, x: 1, y: 0, width: 1, length: 1, rotation: 0 as const },
@@ -221,6 +262,9 @@ describe('neighbours', () => {
 
 describe('snap', () => {
   it('rounds to the nearest grid multiple without float noise', () => {
+    // computed: 0.30000000000000004 / 0.1 ≈ 3 → 0.3; 1.26 / 0.25 = 5.04 → 5 × 0.25 = 1.25;
+    // 1.04 / 0.1 = 10.4 → 10 × 0.1 = 1; 0.7 / 0.1 = 7 (binary 6.999999999999999) → 0.7;
+    // 12.345 / 0.5 = 24.69 → 25 × 0.5 = 12.5; −0.34 / 0.1 = −3.4 → −3 × 0.1 = −0.3
     expect(snap(0.1 + 0.2, 0.1)).toBe(0.3);
     expect(snap(1.26, 0.25)).toBe(1.25);
     expect(snap(1.04, 0.1)).toBe(1);
@@ -229,6 +273,7 @@ describe('snap', () => {
     expect(snap(-0.34, 0.1)).toBe(-0.3);
   });
   it('never returns negative zero', () => {
+    // computed: −0.04 / 0.1 = −0.4 → rounds to −0, which must come back as 0
     expect(Object.is(snap(-0.04, 0.1), 0)).toBe(true);
   });
   it('leaves values alone with grid 0', () => {
@@ -241,6 +286,8 @@ describe('boundsOf', () => {
     expect(boundsOf([])).toBeNull();
   });
   it('covers every footprint, rotation included', () => {
+    // computed: a spans x 1–4, y 2–8; b turned spans x −1 to −1 + 10 = 9, y 5 to 5 + 2 = 7:
+    // minX = −1 (b), minY = 2 (a), maxX = 9 (b), maxY = 8 (a)
     expect(boundsOf([plot('a', 1, 2, 3, 6), plot('b', -1, 5, 2, 10, 90)])).toEqual({
       minX: -1,
       minY: 2,

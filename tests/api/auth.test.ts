@@ -1,6 +1,9 @@
+import { Writable } from 'node:stream';
+import knexFactory from 'knex';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { knexConfig } from '../../server/db/knex';
 import { buildClub, buildMember, buildUser } from '../factories';
-import { browserLikeAgent, mailUrl, setupTestApp, truncateAll } from '../helpers/app';
+import { browserLikeAgent, mailUrl, setupTestApp, testConfig, truncateAll } from '../helpers/app';
 import { extractLink, waitForMail } from '../helpers/inbox';
 
 const t = setupTestApp();
@@ -99,6 +102,54 @@ describe('sign-in and sessions', () => {
     expect(res.headers['content-security-policy']).toContain("default-src 'self'");
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(res.headers['x-powered-by']).toBeUndefined();
+
+    // A route that really fails: the public form's query on `sites` throws an internal error
+    // (a db handle whose identifier hook throws), so the error handler's 500 path runs.
+    const secret = 'connection to 10.9.8.7:5432 reset by peer (injected failure)';
+    const config = testConfig();
+    const failingDb = knexFactory({
+      ...knexConfig(config.databaseUrl),
+      wrapIdentifier: (value, origImpl) => {
+        if (value === 'sites') throw new Error(secret);
+        return origImpl(value);
+      },
+    });
+    const logLines: string[] = [];
+    const logDestination = new Writable({
+      write(chunk, _encoding, done) {
+        logLines.push(...String(chunk).split('\n').filter(Boolean));
+        done();
+      },
+    });
+    const failing = setupTestApp({ LOG_LEVEL: 'error' }, { db: failingDb, logDestination });
+    try {
+      const club = await buildClub(t.db, { slug: 'broken-pipe' });
+      const boom = await (await browserLikeAgent(failing.app)).get(`/api/apply/${club.slug}`);
+      expect(boom.status).toBe(500);
+      const requestId = boom.headers['x-request-id'];
+      expect(requestId).toMatch(/^[\w-]+$/);
+      // Only the error shape and the request id: no stack, no message of the internal error.
+      expect(boom.body).toEqual({
+        error: { code: 'internal', message: 'Something went wrong on our side. Please try again.', requestId },
+      });
+      expect(boom.text).not.toContain('injected failure');
+      expect(boom.text).not.toMatch(/\bat .*\.[cm]?[jt]s:\d+/);
+      expect(boom.headers['content-security-policy']).toContain("default-src 'self'");
+      expect(boom.headers['x-content-type-options']).toBe('nosniff');
+
+      // The log line keeps what the body leaves out: the message and the stack, under the request id.
+      type LogEntry = { msg?: string; requestId?: string; req?: { id?: string }; err?: { message?: string; stack?: string } };
+      const entries = logLines.map((l) => JSON.parse(l) as LogEntry);
+      const logged = entries.find((e) => e.msg === 'unhandled error');
+      expect(logged, `log lines: ${logLines.join('\n')}`).toBeDefined();
+      expect(logged!.requestId).toBe(requestId);
+      expect(logged!.req?.id).toBe(requestId);
+      expect(logged!.err?.message).toBe(secret);
+      expect(logged!.err?.stack).toContain(`Error: ${secret}\n    at `);
+      expect(logged!.err?.stack).toContain('wrapIdentifier');
+    } finally {
+      await failing.close();
+    }
   });
 });
 

@@ -64,8 +64,8 @@ async function signedIn(person: { email: string; password: string | null }) {
   return c;
 }
 
-/** A club with a coordinator, a plot holder, a 3 × 6 m plot and the schedule above. */
-async function clubWithFee(overrides: Partial<FeeSchedule> = {}) {
+/** A club with a coordinator, a plot holder, a 3 × 6 m plot and the schedule above; `now` dates the fee. */
+async function clubWithFee(overrides: Partial<FeeSchedule> = {}, opts: { now?: Date } = {}) {
   const club: Club = await buildClub(t.db);
   const coord = await buildMember(t.db, { clubId: club.id, roles: ['coordinator'], user: { name: 'Maren Coordinator' } });
   const holder = await buildMember(t.db, { clubId: club.id, roles: ['plot_holder'], user: { name: 'Teodor Holder' } });
@@ -73,7 +73,7 @@ async function clubWithFee(overrides: Partial<FeeSchedule> = {}) {
   await c.put(`/api/clubs/${club.id}/fee-schedule`, { ...schedule, ...overrides }).expect(200);
   const siteId = await buildSite(club.id);
   const plotId = await buildPlot(siteId, { label: 'A-1' });
-  const feeId = await allocateWithFee({ clubId: club.id, plotId, userId: holder.id });
+  const feeId = await allocateWithFee({ clubId: club.id, plotId, userId: holder.id, now: opts.now });
   return { club, coord, holder, c, siteId, plotId, feeId };
 }
 
@@ -248,18 +248,20 @@ describe('payments', () => {
 
 describe('fee lists and export', () => {
   async function threeFees() {
-    const ctx = await clubWithFee();
+    // Teodor's fee is charged on 2026-12-15, so it is due 30 days later (computed: 16 days to
+    // 31 December, 14 into January: 2027-01-14).
+    const ctx = await clubWithFee({}, { now: new Date('2026-12-15T12:00:00Z') });
     const { club, siteId, c } = ctx;
     const priya = await buildMember(t.db, { clubId: club.id, roles: ['plot_holder'], user: { name: 'Priya Raman' } });
     const jonah = await buildMember(t.db, { clubId: club.id, roles: ['plot_holder'], user: { name: '=Jonah' } });
     const b1 = await buildPlot(siteId, { label: 'B-1', x: 4 });
     const b2 = await buildPlot(siteId, { label: 'B-2', x: 8 });
-    // Priya's fee is due first (now + 30 days), Jonah's last season.
+    // Priya's fee is due on 2027-01-31 (charged 2027-01-01, + 30 days), Jonah's last season.
     const priyaFee = await allocateWithFee({ clubId: club.id, plotId: b1, userId: priya.id, now: new Date('2027-01-01T12:00:00Z') });
     const oldFee = await allocateWithFee({ clubId: club.id, plotId: b2, userId: jonah.id, year: 2026, now: new Date('2026-02-01T12:00:00Z') });
     await c.post(`/api/fees/${priyaFee}/payments`, pay(6000)).expect(201);
     await c.post(`/api/fees/${ctx.feeId}/payments`, pay(1234)).expect(201);
-    return { ...ctx, priyaFee, oldFee };
+    return { ...ctx, priya, priyaFee, oldFee };
   }
 
   it('lists unpaid fees first, then by due date, filters by season and status, and totals in minor units', async () => {
@@ -284,15 +286,15 @@ describe('fee lists and export', () => {
   });
 
   it('exports the season as CSV with decimal amounts, a currency column and formula-safe text', async () => {
-    const { c, club, holder } = await threeFees();
+    const { c, club, holder, priya } = await threeFees();
     const res = await c.get(`/api/clubs/${club.id}/fees.csv?year=2027`).expect(200);
     expect(res.headers['content-type']).toBe('text/csv; charset=utf-8');
     expect(res.headers['content-disposition']).toBe(`attachment; filename=${club.slug}-fees-2027.csv`);
     const parsed = Papa.parse<string[]>(res.text.replace(/^\uFEFF/, ''), { skipEmptyLines: true });
     expect(parsed.data).toEqual([
       ['season', 'holder', 'email', 'site', 'plot', 'description', 'currency', 'plot_fee', 'deposit', 'concession', 'due_on', 'paid', 'refunded', 'deposit_held', 'balance'],
-      ['2027', 'Teodor Holder', holder.email, 'North field', 'A-1', 'Plot A-1, 2027 season', 'GBP', '45.00', '15.00', 'no', expect.any(String), '12.34', '0.00', '0.00', '47.66'],
-      ['2027', 'Priya Raman', expect.any(String), 'North field', 'B-1', 'Plot B-1, 2027 season', 'GBP', '45.00', '15.00', 'no', '2027-01-31', '60.00', '0.00', '15.00', '0.00'],
+      ['2027', 'Teodor Holder', holder.email, 'North field', 'A-1', 'Plot A-1, 2027 season', 'GBP', '45.00', '15.00', 'no', '2027-01-14', '12.34', '0.00', '0.00', '47.66'],
+      ['2027', 'Priya Raman', priya.email, 'North field', 'B-1', 'Plot B-1, 2027 season', 'GBP', '45.00', '15.00', 'no', '2027-01-31', '60.00', '0.00', '15.00', '0.00'],
     ]);
     const everything = Papa.parse<string[]>((await c.get(`/api/clubs/${club.id}/fees.csv`).expect(200)).text, { skipEmptyLines: true });
     expect(everything.data).toHaveLength(4);

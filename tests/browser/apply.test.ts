@@ -57,8 +57,8 @@ describe('applying for a plot and the waitlist', () => {
     const position = Number(
       (await db('applications').where({ club_id: stored.club_id, status: 'waiting' }).count({ n: '*' }))[0].n,
     );
-    await expect(w.page.getByText(`You are number ${position} on the waitlist`).isVisible()).resolves.toBe(true);
-    await expect(w.page.getByText(String(position), { exact: true }).isVisible()).resolves.toBe(true);
+    await w.page.getByText(`You are number ${position} on the waitlist`).waitFor();
+    await w.page.getByText(String(position), { exact: true }).waitFor();
     const mail = await waitForMail(mailUrl(), { to: 'pat.newcomer@example.org', after });
     expect(mail.text).toContain(`You are number ${position} on the waitlist`);
     // Nothing wider than the phone's screen.
@@ -98,7 +98,7 @@ describe('applying for a plot and the waitlist', () => {
     await w.shot('waitlist-move-dialog-desktop');
     await dialog.getByRole('button', { name: 'Move', exact: true }).click();
     await w.page.getByText('Robin Second is now number 1.').waitFor();
-    await expect(robinRow.getByRole('cell').first().innerText()).resolves.toBe('1');
+    await expect.poll(() => robinRow.getByRole('cell').first().innerText(), { timeout: 5_000 }).toBe('1');
     expect(robinBefore).toBeGreaterThan(1);
     const move = await db('waitlist_moves').orderBy('id', 'desc').first();
     expect(move).toMatchObject({ from_position: robinBefore, to_position: 1, reason: 'Needs the accessible bed by the gate' });
@@ -168,7 +168,8 @@ describe('applying for a plot and the waitlist', () => {
     await w.page.getByRole('link', { name: 'E-mail choices' }).click();
     await w.page.getByRole('heading', { name: 'E-mail choices' }).waitFor();
     const box = w.page.getByLabel('Club news from the coordinator');
-    await expect(box.isChecked()).resolves.toBe(true);
+    await box.waitFor();
+    await expect.poll(() => box.isChecked(), { timeout: 5_000 }).toBe(true);
     await box.uncheck();
     await w.page.getByRole('button', { name: 'Save my choice' }).click();
     await w.page.getByText('Saved. Your choice applies to Mossgate Community Garden Club only.').waitFor();
@@ -182,7 +183,9 @@ describe('applying for a plot and the waitlist', () => {
     const phone = await teodorOn(390);
     await phone.page.getByRole('button', { name: /menu/i }).click();
     await phone.page.getByRole('link', { name: 'E-mail choices' }).click();
-    await expect(phone.page.getByLabel('Club news from the coordinator').isChecked()).resolves.toBe(false);
+    await phone.page.getByRole('heading', { name: 'E-mail choices' }).waitFor();
+    await phone.page.getByLabel('Club news from the coordinator').waitFor();
+    await expect.poll(() => phone.page.getByLabel('Club news from the coordinator').isChecked(), { timeout: 5_000 }).toBe(false);
     expect(await phone.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await phone.shot('email-choices-phone');
     expect(phone.errors).toEqual([]);

@@ -51,7 +51,7 @@ describe('fees', () => {
 
     await row.getByRole('button', { name: 'Record payment for Jonah Whitcombe, plot B-1' }).click();
     await w.page.getByRole('heading', { name: 'Record payment: Jonah Whitcombe' }).waitFor();
-    await expect(w.page.getByLabel('Amount').inputValue()).resolves.toBe('40.00');
+    await expect.poll(() => w.page.getByLabel('Amount').inputValue(), { timeout: 5_000 }).toBe('40.00');
     await w.page.getByLabel('Amount').fill('15');
     await w.page.getByLabel('Method').selectOption({ label: 'Bank transfer' });
     await w.page.getByLabel('Note (optional)').fill('Second instalment');
@@ -62,7 +62,7 @@ describe('fees', () => {
     const toMinor = (text: string | null) => Number((text ?? '').replace(/[^0-9]/g, ''));
     await expect.poll(async () => toMinor(before) - toMinor(await outstanding.nth(3).textContent())).toBe(1500);
     // The form now suggests what is left.
-    await expect(w.page.getByLabel('Amount').inputValue()).resolves.toBe('25.00');
+    await expect.poll(() => w.page.getByLabel('Amount').inputValue(), { timeout: 5_000 }).toBe('25.00');
     const saved = await db('payments').where({ fee_id: jonah.id }).orderBy('id');
     expect(saved).toHaveLength(2);
     expect(saved[1]).toMatchObject({ kind: 'payment', amount_minor: 1500, method: 'bank_transfer', note: 'Second instalment' });
@@ -138,7 +138,7 @@ describe('fees', () => {
     const card = h.page.getByRole('listitem').filter({ hasText: 'Plot R-1, 2026 season' });
     // 2.88 m² × 2.50 = 7.20, plus the 15.00 deposit, nothing paid: 22.20 to pay (computed).
     await card.getByText('£22.20').last().waitFor();
-    await expect(card.getByText('Due by 1 Apr 2026').isVisible()).resolves.toBe(true);
+    await card.getByText('Due by 1 Apr 2026').waitFor();
     await h.shot('club-home-fees-390');
     await h.page.goto(`${suite.server.url}/clubs/${clubId}/fees`);
     await h.page.getByRole('heading', { name: 'This page is for coordinators' }).waitFor();

@@ -15,7 +15,7 @@ describe('signing in', () => {
     await w.page.getByLabel('Club').selectOption({ label: 'Mossgate Community Garden Club' });
     await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
     const nav = w.page.getByRole('navigation', { name: 'Main' });
-    await expect(nav.getByRole('link', { name: 'Members' }).isVisible()).resolves.toBe(true);
+    await nav.getByRole('link', { name: 'Members' }).waitFor();
     await w.shot('sign-in-coordinator-desktop');
 
     await nav.getByRole('link', { name: 'Members' }).click();

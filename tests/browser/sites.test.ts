@@ -113,7 +113,7 @@ describe('sites and plots', () => {
 
     await form.getByRole('button', { name: 'Add site' }).click();
     await form.getByText('Enter a name').waitFor();
-    await expect(form.getByText('Enter a number').count()).resolves.toBe(4); // latitude, longitude, width, length
+    await expect.poll(() => form.getByText('Enter a number').count(), { timeout: 5_000 }).toBe(4); // latitude, longitude, width, length
 
     await form.getByLabel('Name', { exact: true }).fill('Willow Allotment');
     await form.getByLabel('Latitude').fill('51.75');
@@ -121,8 +121,8 @@ describe('sites and plots', () => {
     await form.getByLabel('Time zone').fill('Europe/London');
     await form.getByLabel('Units').selectOption('us');
     // A new site's starting path and grid switch to the round US numbers, not 2.95 ft.
-    await expect(form.getByLabel('Path width (ft)').inputValue()).resolves.toBe('3');
-    await expect(form.getByLabel('Snapping grid (ft)').inputValue()).resolves.toBe('1');
+    await expect.poll(() => form.getByLabel('Path width (ft)').inputValue(), { timeout: 5_000 }).toBe('3');
+    await expect.poll(() => form.getByLabel('Snapping grid (ft)').inputValue(), { timeout: 5_000 }).toBe('1');
     await form.getByLabel('Width, west to east (ft)').fill('100');
     await form.getByLabel('Length, north to south (ft)').fill('50');
     await form.getByLabel('Last spring frost Month').selectOption({ label: 'April' });
@@ -139,11 +139,12 @@ describe('sites and plots', () => {
     // The edit form reads the metres back in feet, and switching units converts rather than relabels.
     await row.getByRole('link', { name: 'Edit Willow Allotment' }).click();
     await w.page.getByRole('heading', { name: 'Willow Allotment', level: 1 }).waitFor();
-    await expect(w.page.getByLabel('Width, west to east (ft)').inputValue()).resolves.toBe('100');
+    await expect.poll(() => w.page.getByLabel('Width, west to east (ft)').inputValue(), { timeout: 5_000 }).toBe('100');
     await w.page.getByLabel('Units').selectOption('metric');
     // 100 ft = 30.48 m and 50 ft = 15.24 m exactly (NIST SP 811, B.8: 1 ft = 0.3048 m).
-    await expect(w.page.getByLabel('Width, west to east (m)').inputValue()).resolves.toBe('30.48');
-    await expect(w.page.getByLabel('Length, north to south (m)').inputValue()).resolves.toBe('15.24');
+    await w.page.getByLabel('Width, west to east (m)').waitFor();
+    await expect.poll(() => w.page.getByLabel('Width, west to east (m)').inputValue(), { timeout: 5_000 }).toBe('30.48');
+    await expect.poll(() => w.page.getByLabel('Length, north to south (m)').inputValue(), { timeout: 5_000 }).toBe('15.24');
     expect(w.errors).toEqual([]);
   });
 
@@ -180,8 +181,8 @@ describe('sites and plots', () => {
     await w.page.getByText('28 plots, sizes in metres').waitFor();
     // 28 plots run past the first page of 25; the filter finds the new ones.
     await w.page.getByLabel('Filter plots').fill('T-');
-    await expect(rowOf(w.page, 'T-2').textContent()).resolves.toMatch(/T-2.*In-ground plot.*3 × 2 m.*6 m².*Full sun.*Not tested/);
-    await expect(w.page.getByText('Showing 1–2 of 2').count()).resolves.toBe(1);
+    await w.page.getByText('Showing 1–2 of 2').waitFor();
+    await expect.poll(() => rowOf(w.page, 'T-2').textContent(), { timeout: 5_000 }).toMatch(/T-2.*In-ground plot.*3 × 2 m.*6 m².*Full sun.*Not tested/);
     await w.shot('plot-import-done-1280');
     expect(w.errors).toEqual([]);
   });
@@ -203,7 +204,7 @@ describe('sites and plots', () => {
     await background.getByRole('button', { name: 'Upload background' }).click();
     await background.getByText('Uploaded aerial.png').waitFor();
     await background.getByText('340 × 220 pixels. It spans 34 m across.').waitFor();
-    await expect(background.getByLabel('Replace with a new image').inputValue()).resolves.toBe('');
+    await expect.poll(() => background.getByLabel('Replace with a new image').inputValue(), { timeout: 5_000 }).toBe('');
     const img = background.getByRole('img', { name: 'The current map background of Mossgate Lane' });
     // The browser really loaded the stored file, not just the markup.
     await expect.poll(() => img.evaluate((el) => (el as HTMLImageElement).naturalWidth)).toBe(340);
@@ -227,7 +228,7 @@ describe('sites and plots', () => {
     await w.page.goto(`${suite.server.url}${clubPath}/plots/${b4.id}`);
     await w.page.getByRole('heading', { name: 'Plot B-4' }).waitFor();
     // B-4 is the seeded plot with the water tap; A-4 lies 0.9 m north across the path.
-    await expect(w.page.getByRole('region', { name: 'About this plot' }).textContent()).resolves.toContain('Yes, at the plot');
+    await expect.poll(() => w.page.getByRole('region', { name: 'About this plot' }).textContent(), { timeout: 5_000 }).toContain('Yes, at the plot');
     const neighbours = w.page.getByRole('region', { name: 'Neighbours' });
     await expect(neighbours.getByRole('listitem').filter({ hasText: 'A-4' }).textContent()).resolves.toContain(
       'To the north, across a 0.9 m path',

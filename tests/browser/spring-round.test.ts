@@ -32,8 +32,8 @@ describe('the spring round in the browser', () => {
     await w.page.getByText('3 renewal e-mails sent.').waitFor();
     await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
     // Jonah still owes part of his 2026 fee, so B-1 was not renewed and is free.
-    await expect(plotTile(w, 'B-1').getAttribute('aria-label')).resolves.toBe('Plot B-1 free');
-    await expect(plotTile(w, 'A-1').getAttribute('aria-label')).resolves.toMatch(/^Plot A-1 renewal\?, waiting for Teodor Lind/);
+    await plotSays(w, 'B-1', 'Plot B-1 free');
+    await expect.poll(() => plotTile(w, 'A-1').getAttribute('aria-label'), { timeout: 5_000 }).toMatch(/^Plot A-1 renewal\?, waiting for Teodor Lind/);
     await w.shot('spring-round-opened-desktop');
 
     await w.page.getByRole('heading', { name: 'Left out of the 2027 renewals' }).waitFor();
@@ -149,6 +149,33 @@ describe('the spring round in the browser', () => {
     expect(await w.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     const offer = await db('offers as o').join('applications as a', 'a.id', 'o.application_id').where('a.name', 'Grace Adeyemi').first('o.status');
     expect(offer.status).toBe('pending');
+    expect(w.errors).toEqual([]);
+  });
+
+  // Follows the test above, which offered R-1 to Grace Adeyemi (the file's tests share one seeded server).
+  it('withdraws an open offer from the map: the plot is free again and the person is back on the list', async () => {
+    const w = await coordinatorOn(1280);
+    await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
+    await plotSays(w, 'R-1', 'Plot R-1 offered, to Grace Adeyemi');
+    // The map renders only once the waitlist has loaded too, so this count is not a race: while
+    // her offer is open she is not among the people waiting.
+    expect(await w.page.getByRole('button', { name: /^\d+ Grace Adeyemi/ }).count()).toBe(0);
+    await plotTile(w, 'R-1').click();
+    await w.page.getByRole('heading', { name: 'Plot R-1: Offered' }).waitFor();
+    await w.page.getByText('Offered to Grace Adeyemi, answer by', { exact: false }).waitFor();
+    const withdrawn = w.page.waitForResponse((r) => r.url().includes('/withdraw') && r.request().method() === 'POST');
+    await w.page.getByRole('button', { name: 'Withdraw offer' }).click();
+    expect((await withdrawn).status()).toBe(204);
+    await w.page.getByRole('status').getByText('Offer withdrawn.').waitFor();
+    await plotSays(w, 'R-1', 'Plot R-1 free');
+    await w.page.getByRole('heading', { name: 'Plot R-1: Free' }).waitFor();
+    // She is waiting again, so the waitlist shows her and she is the one suggested for the bed once more.
+    await w.page.getByRole('button', { name: /^\d+ Grace Adeyemi/ }).waitFor();
+    await w.page.getByText('For plot R-1, the next who fits is Grace Adeyemi.').waitFor();
+    await w.page.getByRole('button', { name: 'Offer plot R-1' }).waitFor();
+    await w.shot('spring-round-withdrawn-desktop');
+    const offer = await db('offers as o').join('applications as a', 'a.id', 'o.application_id').where('a.name', 'Grace Adeyemi').first('o.status', 'a.status as applicationStatus');
+    expect(offer).toEqual({ status: 'withdrawn', applicationStatus: 'waiting' });
     expect(w.errors).toEqual([]);
   });
 });

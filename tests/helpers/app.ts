@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { DestinationStream } from 'pino';
 import request from 'supertest';
 import { inject } from 'vitest';
 import { createApp } from '../../server/app';
@@ -25,12 +26,19 @@ export function testConfig(env: Record<string, string> = {}): Config {
   });
 }
 
-/** A database handle, an app and a way to close them, for one test file. */
-export function setupTestApp(env: Record<string, string> = {}) {
+/**
+ * A database handle, an app and a way to close them, for one test file. `extra.db` replaces the
+ * database handle (e.g. one that fails on purpose; it is closed with the app) and
+ * `extra.logDestination` receives the app's log lines.
+ */
+export function setupTestApp(
+  env: Record<string, string> = {},
+  extra: { db?: Knex; logDestination?: DestinationStream } = {},
+) {
   const config = testConfig(env);
-  const db = createDb(config.databaseUrl);
+  const db = extra.db ?? createDb(config.databaseUrl);
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
-  const built = createApp({ db, mailer, config });
+  const built = createApp({ db, mailer, config, logDestination: extra.logDestination });
   return {
     db,
     config,
