@@ -10,6 +10,7 @@ export const errorCodes = [
   'csrf_failed',
   'rate_limited',
   'gone',
+  'unsupported_media_type',
   'internal',
   'unavailable',
 ] as const;
@@ -38,6 +39,7 @@ export const statusForCode: Record<ErrorCode, number> = {
   csrf_failed: 403,
   rate_limited: 429,
   gone: 410,
+  unsupported_media_type: 415,
   internal: 500,
   unavailable: 503,
 };

@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { Role } from '@shared/schemas/auth';
+import { parseIdText } from '@shared/schemas/common';
 import { AppError } from '../errors';
 import type { Db } from '../db/knex';
 import { rolesInClub } from '../services/memberships';
@@ -18,9 +19,9 @@ export function requireClubRole(db: Db, ...allowed: Role[]): RequestHandler {
   return async (req, _res, next) => {
     const userId = req.session.userId;
     if (!userId) return next(new AppError('unauthenticated', 'Please sign in.'));
-    const clubId = Number(req.params.clubId);
-    if (!Number.isInteger(clubId) || clubId <= 0) {
-      return next(new AppError('validation_failed', 'Invalid club.', { clubId: 'Must be a positive whole number' }));
+    const clubId = parseIdText(req.params.clubId);
+    if (clubId === null) {
+      return next(new AppError('validation_failed', 'Invalid club.', { clubId: 'Must be a whole number from 1 to 2147483647' }));
     }
     const roles = await rolesInClub(db, clubId, userId);
     if (roles.length === 0) return next(new AppError('forbidden', 'You are not a member of this club.'));
@@ -48,9 +49,11 @@ export function requireRoleVia(
   return async (req, _res, next) => {
     const userId = req.session.userId;
     if (!userId) return next(new AppError('unauthenticated', 'Please sign in.'));
-    const id = Number(req.params[param]);
-    if (!Number.isInteger(id) || id <= 0) {
-      return next(new AppError('validation_failed', `Invalid ${what.toLowerCase()} id.`, { [param]: 'Must be a positive whole number' }));
+    const id = parseIdText(req.params[param]);
+    if (id === null) {
+      return next(
+        new AppError('validation_failed', `Invalid ${what.toLowerCase()} id.`, { [param]: 'Must be a whole number from 1 to 2147483647' }),
+      );
     }
     const clubId = await resolve(db, id);
     const roles = clubId ? await rolesInClub(db, clubId, userId) : [];

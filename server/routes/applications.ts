@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { textSchema } from '@shared/schemas/common';
 import {
   ApplicationBodySchema,
   ApplicationRemoveBodySchema,
@@ -20,7 +21,7 @@ import {
   submitApplication,
 } from '../services/applications';
 
-const SlugParamSchema = z.object({ clubSlug: z.string().trim().min(1).max(80) });
+const SlugParamSchema = z.object({ clubSlug: textSchema({ min: 1, max: 80 }) });
 
 /** The public application form (no sign-in), mounted at /api/apply. */
 export function applyRouter({ db, mailer, config }: Deps): Router {

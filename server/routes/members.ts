@@ -1,12 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { MAX_INT4 } from '@shared/schemas/common';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole } from '../middleware/auth';
 import { listMembers } from '../services/memberships';
 
 const ListQuerySchema = z.object({
-  page: z.coerce.number().int().min(1).default(1),
+  page: z.coerce.number().int().min(1).max(MAX_INT4).default(1),
   pageSize: z.coerce.number().int().min(1).max(500).default(100),
 });
 

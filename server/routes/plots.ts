@@ -1,12 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { MAX_INT4 } from '@shared/schemas/common';
 import { PlotUpdateBodySchema } from '@shared/schemas/plots';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireRoleVia } from '../middleware/auth';
 import { clubOfPlot, deletePlot, getPlotDetail, updatePlot } from '../services/plots';
 
-const DeleteQuerySchema = z.object({ version: z.coerce.number().int().positive() });
+const DeleteQuerySchema = z.object({ version: z.coerce.number().int().positive().max(MAX_INT4) });
 
 /** One plot: its page, edits from the map, removal. Mounted at /api/plots. */
 export function plotsRouter({ db }: Deps): Router {

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { IdTextSchema } from '@shared/schemas/common';
 import { LateRenewalBodySchema, OfferCreateBodySchema, OfferQuoteQuerySchema, SeasonCreateBodySchema } from '@shared/schemas/seasons';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
@@ -10,7 +11,7 @@ import { createOffer } from '../services/offers';
 import { seasonPlotStates } from '../services/season-plots';
 import { clubOfSeason, getSeason, listSeasons, openSeason } from '../services/seasons';
 
-const PlotStatesQuerySchema = z.object({ siteId: z.coerce.number().int().positive() });
+const PlotStatesQuerySchema = z.object({ siteId: IdTextSchema });
 
 /** A club's seasons (list, open one), mounted at /api/clubs/:clubId/seasons. */
 export function clubSeasonsRouter({ db, mailer, config }: Deps): Router {

@@ -1,6 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
+import { MAX_SITE_SIDE_M, MIN_SITE_SIDE_M } from '@shared/schemas/sites';
 import type { Deps } from '../deps';
 import { AppError, notFound, parseInput } from '../errors';
 import { requireRoleVia } from '../middleware/auth';
@@ -18,7 +19,8 @@ const UploadFieldsSchema = z.strictObject({
     z.coerce
       .number({ message: 'Enter the width in metres, e.g. 40' })
       .positive('Must be more than 0')
-      .max(2000, 'At most 2 km')
+      .min(MIN_SITE_SIDE_M, `At least ${MIN_SITE_SIDE_M} m`)
+      .max(MAX_SITE_SIDE_M, 'At most 2 km')
       .optional(),
   ),
 });

@@ -226,10 +226,14 @@ const columnOfKey: Partial<Record<keyof ApplicationBody, WaitlistColumn>> = {
   notes: 'notes',
 };
 
+const EARLIEST_APPLIED_ON = '1900-01-01';
+
 function readDate(text: string, today: string): string | { problem: string } {
   const m = DATE.exec(text);
   const valid = m && new Date(`${text}T00:00:00Z`).toISOString().slice(0, 10) === text;
   if (!valid) return { problem: 'Enter a date like 2024-03-15' };
+  // The database has no year 0, and nobody on a list today applied before this.
+  if (text < EARLIEST_APPLIED_ON) return { problem: `On or after ${EARLIEST_APPLIED_ON}` };
   if (text > today) return { problem: 'Cannot be in the future' };
   return text;
 }

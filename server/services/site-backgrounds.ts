@@ -12,6 +12,11 @@ import { getSite } from './sites';
 export const MAX_BACKGROUND_BYTES = 5 * 1024 * 1024;
 /** Longest side accepted, in pixels: browsers refuse to paint much larger images on a canvas. */
 export const MAX_BACKGROUND_SIDE_PX = 16384;
+/**
+ * Most pixels accepted: a header may claim any size in a few bytes, and a browser decodes the whole
+ * picture (4 bytes a pixel, so 40 megapixels is 160 MB) before painting it (common practice).
+ */
+export const MAX_BACKGROUND_PIXELS = 40_000_000;
 
 export const backgroundMimes = ['image/png', 'image/jpeg', 'image/webp'] as const;
 export type BackgroundMime = (typeof backgroundMimes)[number];
@@ -141,6 +146,12 @@ export async function inspectBackground(bytes: Uint8Array): Promise<{ mime: Back
   if (!size) throw imageError('The image looks damaged: its width and height could not be read');
   if (size.width > MAX_BACKGROUND_SIDE_PX || size.height > MAX_BACKGROUND_SIDE_PX) {
     throw imageError(`The image is ${size.width} × ${size.height} pixels; at most ${MAX_BACKGROUND_SIDE_PX} on each side`);
+  }
+  if (size.width * size.height > MAX_BACKGROUND_PIXELS) {
+    const megapixels = Math.round((size.width * size.height) / 1e5) / 10;
+    throw imageError(
+      `The image is ${size.width} × ${size.height} pixels (${megapixels} megapixels); at most ${MAX_BACKGROUND_PIXELS / 1e6} megapixels`,
+    );
   }
   return { mime, ...size };
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { EmailSchema } from './common';
+import { EmailSchema, IdSchema, IdTextSchema, MAX_INT4, textSchema } from './common';
 
 export const preferredSizes = ['small', 'medium', 'large', 'any'] as const;
 export const PreferredSizeSchema = z.enum(preferredSizes);
@@ -15,15 +15,15 @@ export const ApplicationStatusSchema = z.enum(applicationStatuses);
 
 /** The public "apply for a plot" form. `website` is a honeypot: people leave it empty, bots fill it. */
 export const ApplicationBodySchema = z.strictObject({
-  name: z.string().trim().min(1, 'Enter your name').max(120),
+  name: textSchema({ min: 1, minMessage: 'Enter your name', max: 120 }),
   email: EmailSchema,
-  phone: z.string().trim().max(40, 'At most 40 characters').default(''),
+  phone: textSchema({ max: 40 }).default(''),
   preferredSize: PreferredSizeSchema.default('any'),
   needsAccessible: z.boolean().default(false),
   needsRaised: z.boolean().default(false),
-  preferredSiteId: z.number().int().positive().nullable().default(null),
-  notes: z.string().trim().max(1000, 'At most 1000 characters').default(''),
-  website: z.string().max(200).default(''),
+  preferredSiteId: IdSchema.nullable().default(null),
+  notes: textSchema({ max: 1000, multiline: true }).default(''),
+  website: textSchema({ max: 200, trim: false }).default(''),
 });
 export type ApplicationBody = z.infer<typeof ApplicationBodySchema>;
 
@@ -58,15 +58,15 @@ export type WaitlistEntry = z.infer<typeof WaitlistEntrySchema>;
 export const WaitlistQuerySchema = z.object({
   status: z.enum(['waiting', 'offered', 'all']).default('waiting'),
   needs: z.enum(['accessible', 'raised']).optional(),
-  siteId: z.coerce.number().int().positive().optional(),
+  siteId: IdTextSchema.optional(),
 });
 
 /** Moving someone in the queue always needs a reason, which is kept. */
 export const WaitlistMoveBodySchema = z.strictObject({
-  toPosition: z.number().int().min(1, 'Positions start at 1'),
-  reason: z.string().trim().min(3, 'Give a reason (it is kept in the record)').max(300),
+  toPosition: z.number().int().min(1, 'Positions start at 1').max(MAX_INT4, 'No queue is that long'),
+  reason: textSchema({ min: 3, minMessage: 'Give a reason (it is kept in the record)', max: 300, multiline: true }),
 });
 
 export const ApplicationRemoveBodySchema = z.strictObject({
-  reason: z.string().trim().min(3, 'Give a reason (it is kept in the record)').max(200),
+  reason: textSchema({ min: 3, minMessage: 'Give a reason (it is kept in the record)', max: 200, multiline: true }),
 });

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { EmailSchema, PasswordSchema } from './common';
+import { EmailSchema, PasswordSchema, textSchema } from './common';
 
 export const roles = ['coordinator', 'plot_holder', 'volunteer'] as const;
 export const RoleSchema = z.enum(roles);
@@ -51,8 +51,12 @@ export type PasswordResetBody = z.infer<typeof PasswordResetBodySchema>;
 
 export const InviteCreateBodySchema = z.strictObject({
   email: EmailSchema,
-  name: z.string().trim().min(1, 'Enter a name').max(120),
-  roles: z.array(RoleSchema).min(1, 'Choose at least one role'),
+  name: textSchema({ min: 1, minMessage: 'Enter a name', max: 120 }),
+  roles: z
+    .array(RoleSchema)
+    .min(1, 'Choose at least one role')
+    .max(roles.length, `Choose at most ${roles.length} roles`)
+    .refine((list) => new Set(list).size === list.length, 'Choose each role once'),
 });
 export type InviteCreateBody = z.infer<typeof InviteCreateBodySchema>;
 
@@ -80,7 +84,7 @@ export type InvitePreview = z.infer<typeof InvitePreviewSchema>;
 
 export const InviteAcceptBodySchema = z.strictObject({
   token: z.string().min(20).max(200),
-  name: z.string().trim().min(1, 'Enter your name').max(120),
+  name: textSchema({ min: 1, minMessage: 'Enter your name', max: 120 }),
   password: PasswordSchema,
 });
 export type InviteAcceptBody = z.infer<typeof InviteAcceptBodySchema>;

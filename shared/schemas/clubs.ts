@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { textSchema } from './common';
 
 export const currencies = ['GBP', 'EUR', 'USD', 'CAD', 'AUD', 'NZD'] as const;
 
@@ -16,7 +17,7 @@ export const ClubSettingsSchema = z.object({
 export type ClubSettings = z.infer<typeof ClubSettingsSchema>;
 
 export const ClubSettingsUpdateBodySchema = ClubSettingsSchema.omit({ id: true, slug: true })
-  .extend({ name: z.string().trim().min(1, 'Enter a name').max(160) })
+  .extend({ name: textSchema({ min: 1, minMessage: 'Enter a name', max: 160 }) })
   .partial()
   .strict();
 export type ClubSettingsUpdateBody = z.infer<typeof ClubSettingsUpdateBodySchema>;

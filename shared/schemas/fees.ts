@@ -1,4 +1,11 @@
 import { z } from 'zod';
+import { dateWithinSchema, textSchema } from './common';
+
+/**
+ * The most a club may charge per m² or ft². The largest plot (200 × 200 m, about 430,556 ft²) at this
+ * rate still costs less than an integer column holds (2^31 − 1 minor units), so a fee is always stored.
+ */
+export const MAX_RATE_MINOR_PER_AREA = 4_000;
 
 const minor = z.number().int('Whole minor units (pence, cents)').min(0, 'Cannot be negative').max(100_000_000);
 
@@ -6,7 +13,7 @@ const minor = z.number().int('Whole minor units (pence, cents)').min(0, 'Cannot 
 export const FeeScheduleSchema = z.strictObject({
   basis: z.enum(['area', 'kind']),
   areaUnit: z.enum(['m2', 'ft2']),
-  rateMinorPerArea: minor,
+  rateMinorPerArea: minor.max(MAX_RATE_MINOR_PER_AREA, `At most ${MAX_RATE_MINOR_PER_AREA} minor units per area unit`),
   priceInGroundMinor: minor,
   priceRaisedBedMinor: minor,
   priceContainerMinor: minor,
@@ -28,8 +35,13 @@ export const PaymentBodySchema = z.strictObject({
   kind: z.enum(['payment', 'refund']).default('payment'),
   amountMinor: z.number().int('Whole minor units (pence, cents)').positive('Must be more than 0').max(100_000_000),
   method: z.enum(paymentMethods),
-  paidOn: z.iso.date('A date like 2027-03-14'),
-  note: z.string().trim().max(300).default(''),
+  paidOn: dateWithinSchema({
+    earliest: '2000-01-01',
+    daysAhead: 366,
+    message: 'A date like 2027-03-14',
+    tooLateMessage: 'At most a year from today',
+  }),
+  note: textSchema({ max: 300 }).default(''),
 });
 export type PaymentBody = z.infer<typeof PaymentBodySchema>;
 

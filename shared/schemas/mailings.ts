@@ -1,18 +1,19 @@
 import { z } from 'zod';
+import { IdSchema, textSchema } from './common';
 
 const YearSchema = z.number().int('A year like 2027').min(2000, 'A year like 2027').max(2100, 'A year like 2027');
 
 /** Who a club message goes to: one season's plot holders, one site's holders that season, or every member. */
 export const MailingAudienceSchema = z.discriminatedUnion('kind', [
   z.strictObject({ kind: z.literal('season'), year: YearSchema }),
-  z.strictObject({ kind: z.literal('site'), siteId: z.number().int().positive('Choose a site'), year: YearSchema }),
+  z.strictObject({ kind: z.literal('site'), siteId: IdSchema, year: YearSchema }),
   z.strictObject({ kind: z.literal('all_members') }),
 ]);
 export type MailingAudience = z.infer<typeof MailingAudienceSchema>;
 
 export const MailingCreateBodySchema = z.strictObject({
-  subject: z.string().trim().min(1, 'Enter a subject').max(200, 'At most 200 characters'),
-  body: z.string().trim().min(1, 'Write the message').max(20_000, 'At most 20,000 characters'),
+  subject: textSchema({ min: 1, minMessage: 'Enter a subject', max: 200 }),
+  body: textSchema({ min: 1, minMessage: 'Write the message', max: 20_000, maxMessage: 'At most 20,000 characters', multiline: true }),
   audience: MailingAudienceSchema,
 });
 export type MailingCreateBody = z.infer<typeof MailingCreateBodySchema>;

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { PreferredSizeSchema } from './applications';
 import { RoleSchema } from './auth';
+import { csvFileSchema } from './common';
 
 export const memberImportKinds = ['members', 'waitlist'] as const;
 export const MemberImportKindSchema = z.enum(memberImportKinds);
@@ -28,7 +29,7 @@ export const MAX_MEMBER_IMPORT_ROWS = 2000;
 
 export const MemberImportBodySchema = z.strictObject({
   kind: MemberImportKindSchema,
-  csv: z.string().min(1, 'The file is empty').max(2_000_000, 'The file is larger than 2 MB'),
+  csv: csvFileSchema(2_000_000, 'The file is larger than 2 MB'),
   /** false: check and preview only; true: check and save all rows or none. */
   commit: z.boolean(),
 });

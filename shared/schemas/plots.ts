@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { csvFileSchema, dateWithinSchema, textSchema, VersionSchema } from './common';
 
 export const plotKinds = ['in_ground', 'raised_bed', 'container', 'shared_bed'] as const;
 export const PlotKindSchema = z.enum(plotKinds);
@@ -17,6 +18,19 @@ export const sunLabels: Record<Sun, string> = { full: 'Full sun', part: 'Part sh
 
 const metres = (max: number) => z.number().finite().min(0, 'Cannot be negative').max(max, `At most ${max} m`);
 
+/** The shortest side a plot may have, in metres: a small container is wider than this (common practice). */
+export const MIN_PLOT_SIDE_M = 0.1;
+/** The longest side a plot may have, in metres. */
+export const MAX_PLOT_SIDE_M = 200;
+const plotSide = () =>
+  z
+    .number()
+    .finite()
+    .min(0, 'Cannot be negative')
+    .refine((v) => v > 0, 'Must be more than 0')
+    .min(MIN_PLOT_SIDE_M, `At least ${MIN_PLOT_SIDE_M} m`)
+    .max(MAX_PLOT_SIDE_M, `At most ${MAX_PLOT_SIDE_M} m`);
+
 const plotFields = {
   label: z
     .string()
@@ -26,17 +40,23 @@ const plotFields = {
     .regex(/^[\p{L}\p{N}][\p{L}\p{N} ._-]*$/u, 'Letters, digits, space, dot, dash or underscore'),
   x: metres(2000),
   y: metres(2000),
-  width: metres(200).refine((v) => v > 0, 'Must be more than 0'),
-  length: metres(200).refine((v) => v > 0, 'Must be more than 0'),
+  width: plotSide(),
+  length: plotSide(),
   rotation: z.union([z.literal(0), z.literal(90)], { message: 'Rotation is 0 or 90' }),
   kind: PlotKindSchema,
-  soilDepth: z.number().positive('Must be more than 0').max(5, 'At most 5 m').nullable(),
+  // Kept to the centimetre, so less than 1 cm would be stored as 0.
+  soilDepth: z.number().min(0.01, 'At least 1 cm').max(5, 'At most 5 m').nullable(),
   soilPh: z.number().min(3, 'pH is between 3 and 10').max(10, 'pH is between 3 and 10').nullable(),
-  soilTestedOn: z.iso.date('Use a date like 2026-04-12').nullable(),
+  soilTestedOn: dateWithinSchema({
+    earliest: '1900-01-01',
+    daysAhead: 0,
+    message: 'Use a date like 2026-04-12',
+    tooLateMessage: 'Cannot be in the future',
+  }).nullable(),
   sun: SunSchema,
   isAccessible: z.boolean(),
   hasWaterTap: z.boolean(),
-  notes: z.string().trim().max(2000),
+  notes: textSchema({ max: 2000, multiline: true }),
 };
 
 /** Everything a coordinator sets on a new plot; lengths in metres, (x, y) its north-west corner on the site map. */
@@ -58,7 +78,7 @@ export type PlotCreateBody = z.infer<typeof PlotCreateBodySchema>;
 export const PlotUpdateBodySchema = z
   .strictObject(plotFields)
   .partial()
-  .extend({ version: z.number().int().positive() });
+  .extend({ version: VersionSchema });
 export type PlotUpdateBody = z.infer<typeof PlotUpdateBodySchema>;
 
 export const PlotSchema = z.object({
@@ -134,7 +154,7 @@ export const plotCsvColumns = [
 ] as const;
 
 export const PlotImportBodySchema = z.strictObject({
-  csv: z.string().min(1, 'The file is empty').max(2_000_000, 'The file is larger than 2 MB'),
+  csv: csvFileSchema(2_000_000, 'The file is larger than 2 MB'),
   /** Lengths in the file are in these units. */
   units: z.enum(['metric', 'us']),
   /** false: check and preview only; true: check and save all rows or none. */

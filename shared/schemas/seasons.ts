@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { IdSchema, IdTextSchema, instantSchema } from './common';
 
 export const SeasonCreateBodySchema = z.strictObject({
   year: z.number().int().min(2000, 'A year like 2027').max(2100, 'A year like 2027'),
   /** When renewal links stop working; plots not kept by then are free. */
-  renewalDeadline: z.iso.datetime({ offset: true, message: 'A date and time' }),
+  renewalDeadline: instantSchema('A date and time'),
 });
 export type SeasonCreateBody = z.infer<typeof SeasonCreateBodySchema>;
 
@@ -47,10 +48,10 @@ export const PlotSeasonStateSchema = z.object({
 export type PlotSeasonState = z.infer<typeof PlotSeasonStateSchema>;
 
 export const OfferCreateBodySchema = z.strictObject({
-  plotId: z.number().int().positive(),
-  applicationId: z.number().int().positive(),
+  plotId: IdSchema,
+  applicationId: IdSchema,
   /** Defaults to the club's number of days to answer. */
-  deadline: z.iso.datetime({ offset: true, message: 'A date and time' }).optional(),
+  deadline: instantSchema('A date and time').optional(),
 });
 export type OfferCreateBody = z.infer<typeof OfferCreateBodySchema>;
 
@@ -83,8 +84,8 @@ export type LinkPreview = z.infer<typeof LinkPreviewSchema>;
 export const LinkAnswerSchema = z.object({ status: z.string(), message: z.string() });
 
 export const OfferQuoteQuerySchema = z.object({
-  plotId: z.coerce.number().int().positive().max(2_147_483_647),
-  applicationId: z.coerce.number().int().positive().max(2_147_483_647),
+  plotId: IdTextSchema,
+  applicationId: IdTextSchema,
 });
 
 /** What an offer would say before it is sent: to whom, which plot, answer by when, and what it costs. */
@@ -126,6 +127,6 @@ export const LeftOutHolderSchema = z.object({
 export type LeftOutHolder = z.infer<typeof LeftOutHolderSchema>;
 
 export const LateRenewalBodySchema = z.strictObject({
-  allocationId: z.number().int().positive().max(2_147_483_647),
+  allocationId: IdSchema,
 });
 export type LateRenewalBody = z.infer<typeof LateRenewalBodySchema>;

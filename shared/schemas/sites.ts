@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { textSchema, VersionSchema } from './common';
 
 export const unitsValues = ['metric', 'us'] as const;
 export const UnitsSchema = z.enum(unitsValues);
@@ -17,20 +18,35 @@ const timeZoneSchema = z.string().refine((tz) => {
   }
 }, 'Unknown time zone (use a name like Europe/London)');
 
+/** The smallest side a site may have, in metres; smaller is a typing slip (common practice). */
+export const MIN_SITE_SIDE_M = 1;
+/** The largest side a site may have, in metres: a club's ground, not a county. */
+export const MAX_SITE_SIDE_M = 2000;
+const siteSide = () =>
+  z
+    .number()
+    .positive('Must be more than 0')
+    .min(MIN_SITE_SIDE_M, `At least ${MIN_SITE_SIDE_M} m`)
+    .max(MAX_SITE_SIDE_M, 'At most 2 km');
+
+/** Map-background scale bounds, metres per pixel: the column keeps 6 decimals, so smaller would be stored as 0. */
+export const MIN_METRES_PER_PIXEL = 0.00001;
+export const MAX_METRES_PER_PIXEL = 100;
+
 const siteFields = {
-  name: z.string().trim().min(1, 'Enter a name').max(120),
-  address: z.string().trim().max(500),
+  name: textSchema({ min: 1, minMessage: 'Enter a name', max: 120 }),
+  address: textSchema({ max: 500, multiline: true }),
   latitude: z.number().min(-90, 'Between -90 and 90').max(90, 'Between -90 and 90'),
   longitude: z.number().min(-180, 'Between -180 and 180').max(180, 'Between -180 and 180'),
   timeZone: timeZoneSchema,
   units: UnitsSchema,
   pathWidth: z.number().min(0, 'Cannot be negative').max(10, 'At most 10 m'),
   grid: z.number().min(0, 'Cannot be negative').max(10, 'At most 10 m'),
-  width: z.number().positive('Must be more than 0').max(2000, 'At most 2 km'),
-  length: z.number().positive('Must be more than 0').max(2000, 'At most 2 km'),
+  width: siteSide(),
+  length: siteSide(),
   lastSpringFrost: MonthDaySchema.nullable(),
   firstAutumnFrost: MonthDaySchema.nullable(),
-  soilNotes: z.string().trim().max(4000),
+  soilNotes: textSchema({ max: 4000, multiline: true }),
 };
 
 /** Fields a coordinator sets on a new site; lengths are metres (the client converts US units). */
@@ -51,8 +67,13 @@ export const SiteUpdateBodySchema = z
   .strictObject(siteFields)
   .partial()
   .extend({
-    version: z.number().int().positive(),
-    backgroundMetresPerPixel: z.number().positive().max(100).nullable().optional(),
+    version: VersionSchema,
+    backgroundMetresPerPixel: z
+      .number()
+      .min(MIN_METRES_PER_PIXEL, `At least ${MIN_METRES_PER_PIXEL} m per pixel`)
+      .max(MAX_METRES_PER_PIXEL, `At most ${MAX_METRES_PER_PIXEL} m per pixel`)
+      .nullable()
+      .optional(),
   });
 export type SiteUpdateBody = z.infer<typeof SiteUpdateBodySchema>;
 
