@@ -5,6 +5,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** Extra headers, kept with the message in the outbox. */
+  headers?: Record<string, string>;
 }
 
 export interface Mailer {

@@ -10,6 +10,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { clubNewsMail } from '../mail/mailing-templates';
+import { enqueueMail, kickMail } from './outbox';
 
 /** The one optional topic; offers, renewals, receipts and resets are required and never look here. */
 export const CLUB_NEWS = 'club_news';
@@ -62,7 +63,9 @@ function audienceWords(audience: MailingAudience, clubName: string, site: string
 
 /**
  * Sends a club message to each person in the audience as their own e-mail, skipping people who
- * turned club news off, and records the mailing with how many it was for and how many went out.
+ * turned club news off, and records the mailing with how many it was for. The mailing and every
+ * e-mail are written in one transaction (the outbox sends them, retrying), so `sent` counts the
+ * messages handed to the outbox; the outgoing-mail page shows any that could not be delivered.
  */
 export async function sendMailing(
   db: Knex,
@@ -82,39 +85,35 @@ export async function sendMailing(
   const people = await audiencePeople(db, clubId, body.audience);
   const recipients = people.filter((p) => !p.opted_out);
   const { because } = audienceWords(body.audience, club.name, site);
-  const [row] = await db('mailings')
-    .insert({
-      club_id: clubId,
-      subject: body.subject,
-      body: body.body,
-      audience: JSON.stringify(body.audience),
-      recipient_count: recipients.length,
-      sent_count: 0,
-      sent_by_user_id: opts.userId,
-    })
-    .returning('id');
   const preferencesUrl = `${opts.publicUrl}/clubs/${clubId}/email-choices`;
-  let sent = 0;
   // One message per person: nobody sees anyone else's address, and one bad address stops nobody else's mail.
-  for (const p of recipients) {
-    try {
-      await mailer.send(
-        clubNewsMail({
-          to: p.email,
-          name: p.name,
-          clubName: club.name,
-          subject: body.subject,
-          body: body.body,
-          because,
-          preferencesUrl,
-        }),
-      );
-      sent++;
-    } catch {
-      // Counted below: the sent list shows how many of the recipients it reached.
+  const row = await db.transaction(async (trx) => {
+    const [inserted] = await trx('mailings')
+      .insert({
+        club_id: clubId,
+        subject: body.subject,
+        body: body.body,
+        audience: JSON.stringify(body.audience),
+        recipient_count: recipients.length,
+        sent_count: recipients.length,
+        sent_by_user_id: opts.userId,
+      })
+      .returning('id');
+    for (const p of recipients) {
+      await enqueueMail(trx, { clubId, kind: 'club_news' }, clubNewsMail({
+        to: p.email,
+        name: p.name,
+        clubName: club.name,
+        subject: body.subject,
+        body: body.body,
+        because,
+        preferencesUrl,
+      }));
     }
-  }
-  await db('mailings').where({ id: row.id }).update({ sent_count: sent });
+    return inserted;
+  });
+  kickMail(db, mailer);
+  const sent = recipients.length;
   return { id: row.id, recipients: recipients.length, sent, skipped: people.length - recipients.length };
 }
 

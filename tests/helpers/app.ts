@@ -5,6 +5,7 @@ import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
 import { createDb } from '../../server/db/knex';
 import { createMailer } from '../../server/mail/mailer';
+import { mailIdle } from '../../server/services/outbox';
 
 export const mailUrl = () => inject('mailUrl');
 
@@ -34,9 +35,11 @@ export function setupTestApp(env: Record<string, string> = {}) {
   return {
     db,
     config,
+    mailer,
     app: built.app,
     async close() {
       await built.close();
+      await mailIdle();
       mailer.close();
       await db.destroy();
     },
@@ -45,6 +48,8 @@ export function setupTestApp(env: Record<string, string> = {}) {
 
 /** Empties every table the product writes (not the migrations' own bookkeeping). */
 export async function truncateAll(db: Knex) {
+  // Mail a test's requests are still sending belongs to that test, not the next one.
+  await mailIdle();
   const { rows } = await db.raw(
     "select tablename from pg_tables where schemaname = 'public' and tablename not like 'knex_%'",
   );
