@@ -8,6 +8,8 @@ export async function up(knex: Knex): Promise<void> {
     // Null for account mail (password resets), which no club's coordinators see.
     t.integer('club_id').nullable().references('clubs.id').onDelete('CASCADE');
     t.string('kind', 40).notNullable();
+    // A club message's copies point at it, so its sent list counts what was really delivered.
+    t.integer('mailing_id').nullable().references('mailings.id').onDelete('SET NULL');
     t.string('to_address', 254).notNullable();
     t.string('subject', 300).notNullable();
     t.text('html').notNullable();
@@ -25,6 +27,7 @@ export async function up(knex: Knex): Promise<void> {
   await knex.raw(`create index mail_outbox_due on mail_outbox (next_attempt_at, id) where status = 'waiting'`);
   // The coordinator's list: one club's mail by status, newest first.
   await knex.raw(`create index mail_outbox_club on mail_outbox (club_id, status, created_at desc)`);
+  await knex.raw(`create index mail_outbox_mailing on mail_outbox (mailing_id) where mailing_id is not null`);
 }
 
 export async function down(knex: Knex): Promise<void> {

@@ -65,7 +65,8 @@ function audienceWords(audience: MailingAudience, clubName: string, site: string
  * Sends a club message to each person in the audience as their own e-mail, skipping people who
  * turned club news off, and records the mailing with how many it was for. The mailing and every
  * e-mail are written in one transaction (the outbox sends them, retrying), so `sent` counts the
- * messages handed to the outbox; the outgoing-mail page shows any that could not be delivered.
+ * messages handed to the outbox; the sent list counts those delivered, and the outgoing-mail page
+ * shows any that could not be.
  */
 export async function sendMailing(
   db: Knex,
@@ -100,7 +101,7 @@ export async function sendMailing(
       })
       .returning('id');
     for (const p of recipients) {
-      await enqueueMail(trx, { clubId, kind: 'club_news' }, clubNewsMail({
+      await enqueueMail(trx, { clubId, kind: 'club_news', mailingId: inserted.id }, clubNewsMail({
         to: p.email,
         name: p.name,
         clubName: club.name,
@@ -125,7 +126,14 @@ export async function listMailings(db: Db, clubId: number) {
     .where('m.club_id', clubId)
     .orderBy('m.created_at', 'desc')
     .orderBy('m.id', 'desc')
-    .select('m.*', 'u.name as sent_by_name');
+    .select(
+      'm.*',
+      'u.name as sent_by_name',
+      // Delivered copies from the outbox; a message from before the outbox keeps its recorded count.
+      db.raw(
+        `coalesce((select count(*) filter (where o.status = 'sent') from mail_outbox o where o.mailing_id = m.id having count(*) > 0), m.sent_count) as delivered`,
+      ),
+    );
   const siteIds = [...new Set(rows.map((r) => (r.audience as MailingAudience)).flatMap((a) => (a.kind === 'site' ? [a.siteId] : [])))];
   const sites = new Map<number, string>(
     siteIds.length ? (await db('sites').whereIn('id', siteIds).select('id', 'name')).map((s) => [s.id, s.name]) : [],
@@ -140,7 +148,7 @@ export async function listMailings(db: Db, clubId: number) {
       audience,
       audienceLabel: audienceWords(audience, club?.name ?? '', site).label,
       recipientCount: r.recipient_count,
-      sentCount: r.sent_count,
+      sentCount: Number(r.delivered),
       sentByName: r.sent_by_name,
       createdAt: new Date(r.created_at).toISOString(),
     };

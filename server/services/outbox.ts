@@ -23,6 +23,8 @@ export interface MailCause {
   /** The club whose coordinators may see and resend it; null for account mail (password links). */
   clubId: number | null;
   kind: MailKind;
+  /** The club message this is one copy of. */
+  mailingId?: number;
 }
 
 /**
@@ -34,6 +36,7 @@ export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMa
     .insert({
       club_id: cause.clubId,
       kind: cause.kind,
+      mailing_id: cause.mailingId ?? null,
       to_address: message.to,
       subject: message.subject,
       html: message.html,

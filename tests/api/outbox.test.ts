@@ -176,6 +176,27 @@ describe('mail written to the outbox with the change that causes it', () => {
     expect((await coordinator.post(`/api/clubs/${c.id}/outbox/${row.id}/resend`)).status).toBe(409);
   });
 
+  it("counts a club message's copies as delivered only once the mail server has taken them", async () => {
+    const { club: c, coordinator } = await club();
+    for (const name of ['Eve', 'Fen']) {
+      await buildMember(db, { clubId: c.id, roles: ['volunteer'], user: { name, email: `${name.toLowerCase()}@news.example.org` } });
+    }
+    smtpUp = false;
+    const since = Date.now();
+    const res = await coordinator.post(`/api/clubs/${c.id}/mailings`, { subject: 'Seed swap', body: 'Bring spare seeds on Sunday.', audience: { kind: 'all_members' } });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body).toMatchObject({ recipients: 3, sent: 3, skipped: 0 }); // the coordinator, Eve and Fen
+    await mailIdle();
+    const listed = async () => (await coordinator.get(`/api/clubs/${c.id}/mailings`)).body.items[0];
+    expect(await listed()).toMatchObject({ subject: 'Seed swap', recipientCount: 3, sentCount: 0 });
+    expect(await db('mail_outbox').where({ mailing_id: res.body.id, status: 'waiting' }).count({ n: '*' })).toEqual([{ n: 3 }]);
+
+    smtpUp = true;
+    expect(await sendDueMail(db, mailer, new Date(Date.now() + 2 * MINUTE))).toMatchObject({ sent: 3 });
+    await waitForMail(mailUrl(), { to: 'fen@news.example.org', subject: 'Seed swap', after: since });
+    expect(await listed()).toMatchObject({ recipientCount: 3, sentCount: 3 });
+  });
+
   it('sends waiting mail from the job queue, so mail left when a server stopped still goes', async () => {
     const c = await buildClub(db);
     const since = Date.now();
