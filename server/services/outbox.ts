@@ -42,6 +42,8 @@ export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMa
       html: message.html,
       text: message.text,
       headers: JSON.stringify(message.headers ?? {}),
+      // The server's clock, like the sender's `now`, so a kick right after the commit finds it due.
+      next_attempt_at: new Date(),
     })
     .returning('id');
   return row.id;
@@ -193,7 +195,7 @@ export async function resendMail(db: Knex, mailer: Mailer, opts: { clubId: numbe
     }
     const [updated] = await trx('mail_outbox')
       .where({ id: found.id })
-      .update({ status: 'waiting', attempts: 0, next_attempt_at: opts.now ?? trx.fn.now() })
+      .update({ status: 'waiting', attempts: 0, next_attempt_at: opts.now ?? new Date() })
       .returning(listColumns);
     return updated as OutboxRow;
   });

@@ -197,6 +197,28 @@ describe('mail written to the outbox with the change that causes it', () => {
     expect(await listed()).toMatchObject({ recipientCount: 3, sentCount: 3 });
   });
 
+  it('sends each message once when two senders run at the same time', async () => {
+    const c = await buildClub(db);
+    for (let i = 0; i < 6; i++) {
+      await enqueueMail(db, { clubId: c.id, kind: 'club_news' }, { to: `p${i}@race.example.org`, subject: `Copy ${i}`, text: 'Hi', html: '<p>Hi</p>' });
+    }
+    const handed: string[] = [];
+    // A transport that takes a moment, as a real SMTP exchange does, so the two senders overlap.
+    const slow: Mailer = {
+      async send(mail) {
+        handed.push(mail.to);
+        await new Promise((r) => setTimeout(r, 30));
+      },
+      close() {},
+    };
+    const later = new Date(Date.now() + MINUTE);
+    const [a, b] = await Promise.all([sendDueMail(db, slow, later), sendDueMail(db, slow, later)]);
+    expect(a.sent + b.sent).toBe(6);
+    expect(a.sent).toBeGreaterThan(0);
+    expect(b.sent).toBeGreaterThan(0);
+    expect(handed.sort()).toEqual(Array.from({ length: 6 }, (_, i) => `p${i}@race.example.org`).sort());
+  });
+
   it('sends waiting mail from the job queue, so mail left when a server stopped still goes', async () => {
     const c = await buildClub(db);
     const since = Date.now();
