@@ -21,6 +21,7 @@ import { membersRouter } from './routes/members';
 import { passwordResetsRouter } from './routes/password-resets';
 import { plotImportsRouter } from './routes/plot-imports';
 import { offersRouter } from './routes/offers';
+import { outboxRouter } from './routes/outbox';
 import { plotsRouter } from './routes/plots';
 import { renewalsRouter } from './routes/renewals';
 import { clubSeasonsRouter, seasonsRouter } from './routes/seasons';
@@ -115,6 +116,7 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/clubs/:clubId/exports', clubExportsRouter(deps));
   app.use('/api/clubs/:clubId/mailings', mailingsRouter(deps));
   app.use('/api/clubs/:clubId/mail-preferences', mailPreferencesRouter(deps));
+  app.use('/api/clubs/:clubId/outbox', outboxRouter(deps));
   app.use('/api/clubs/:clubId/seasons', clubSeasonsRouter(deps));
   app.use('/api/seasons', seasonsRouter(deps));
   app.use('/api/offers', offersRouter(deps));

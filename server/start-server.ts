@@ -4,6 +4,7 @@ import { createDb } from './db/knex';
 import { createApp } from './app';
 import { startJobs } from './jobs';
 import { createMailer } from './mail/mailer';
+import { mailIdle } from './services/outbox';
 import { pino } from 'pino';
 
 export interface RunningServer {
@@ -19,7 +20,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   await db.migrate.latest();
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
   const built = createApp({ db, mailer, config });
-  const jobs = await startJobs(config.databaseUrl, db, log);
+  const jobs = await startJobs(config.databaseUrl, db, mailer, log);
   const server: Server = await new Promise((resolve, reject) => {
     const s = built.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);
@@ -34,6 +35,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
       await closed;
       await jobs.stop();
       await built.close();
+      await mailIdle(); // mail being sent after a commit finishes first
       mailer.close();
       await db.destroy();
     },

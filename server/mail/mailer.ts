@@ -5,6 +5,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /** Extra headers, kept with the message in the outbox. */
+  headers?: Record<string, string>;
 }
 
 export interface Mailer {
@@ -22,6 +24,10 @@ export function createMailer(smtpUrl: string, from: string): Mailer {
     secure: url.protocol === 'smtps:',
     ignoreTLS: local && url.protocol === 'smtp:',
     auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
+    // A server that does not answer counts as a failed try (retried later) instead of holding the sender for minutes.
+    connectionTimeout: 20_000,
+    greetingTimeout: 20_000,
+    socketTimeout: 60_000,
   });
   return {
     async send(mail) {

@@ -62,7 +62,6 @@ export function feesRouter({ db, mailer }: Deps): Router {
       feeId: Number(req.params.feeId),
       userId: req.session.userId!,
       body,
-      onMailError: (err) => req.log.warn({ err }, 'payment receipt e-mail failed'),
     });
     res.status(201).json(fee);
   });

@@ -10,6 +10,7 @@ import type { WaitlistMove } from '@shared/schemas/waitlist';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
+import { enqueueMail, kickMail } from './outbox';
 import { applicationReceivedMail } from '../mail/waitlist-templates';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -137,8 +138,8 @@ export async function submitApplication(
 
   const account = await db('users').whereRaw('lower(email) = lower(?)', [body.email]).first('id');
   try {
-    // The e-mail goes out inside the transaction: if it cannot be sent, nothing is kept and the person can try again.
-    return await db.transaction(async (trx) => {
+    // The confirmation is written to the outbox with the application, so neither is kept without the other.
+    const result = await db.transaction(async (trx) => {
       const [row] = await trx('applications')
         .insert({
           club_id: club.id,
@@ -154,8 +155,7 @@ export async function submitApplication(
         })
         .returning(['id', 'club_id']);
       const position = await positionOf(trx, row);
-      await mailer.send(
-        applicationReceivedMail({
+      await enqueueMail(trx, { clubId: club.id, kind: 'application_received' }, applicationReceivedMail({
           to: body.email,
           name: body.name,
           clubName: club.name,
@@ -171,6 +171,8 @@ export async function submitApplication(
       );
       return receipt(position);
     });
+    kickMail(db, mailer);
+    return result;
   } catch (err) {
     if (isLiveEmailClash(err)) throw duplicate();
     throw err;

@@ -8,6 +8,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { paymentReceiptMail } from '../mail/fee-templates';
 import type { Mailer } from '../mail/mailer';
+import { enqueueMail, kickMail } from './outbox';
 
 interface FeeScheduleRow {
   basis: 'area' | 'kind';
@@ -319,10 +320,10 @@ export async function exportFeesCsv(db: Db, clubId: number, query: FeesQuery): P
 export async function recordPayment(
   db: Knex,
   mailer: Mailer,
-  opts: { feeId: number; userId: number; body: PaymentBody; onMailError?: (err: unknown) => void },
+  opts: { feeId: number; userId: number; body: PaymentBody },
 ): Promise<Fee> {
   const { feeId, body } = opts;
-  await db.transaction(async (trx) => {
+  const fee = await db.transaction(async (trx) => {
     const fee = await trx('fees').where({ id: feeId }).forUpdate().first('id', 'plot_fee_minor', 'deposit_minor', 'currency');
     if (!fee) throw notFound('The fee');
     const payments = await trx('payments').where({ fee_id: feeId }).select('kind', 'amount_minor');
@@ -350,23 +351,21 @@ export async function recordPayment(
       note: body.note,
       recorded_by_user_id: opts.userId,
     });
+    // The receipt is written with the payment; the outbox sends it, so a mail failure never fails the request.
+    const saved = await getFee(trx, feeId);
+    const club = await trx('fees as f').join('clubs as c', 'c.id', 'f.club_id').where('f.id', feeId).first('c.id', 'c.name');
+    await enqueueMail(trx, { clubId: club.id, kind: 'payment_receipt' }, paymentReceiptMail({
+      to: saved.holderEmail,
+      name: saved.holderName,
+      clubName: club.name,
+      description: saved.description,
+      currency: saved.currency,
+      payment: body,
+      balanceMinor: saved.balanceMinor,
+      depositHeldMinor: saved.depositHeldMinor,
+    }));
+    return saved;
   });
-  const fee = await getFee(db, feeId);
-  const club = await db('fees as f').join('clubs as c', 'c.id', 'f.club_id').where('f.id', feeId).first('c.name');
-  // The payment is saved whatever happens to the e-mail; failing the request would invite recording it twice.
-  await mailer
-    .send(
-      paymentReceiptMail({
-        to: fee.holderEmail,
-        name: fee.holderName,
-        clubName: club.name,
-        description: fee.description,
-        currency: fee.currency,
-        payment: body,
-        balanceMinor: fee.balanceMinor,
-        depositHeldMinor: fee.depositHeldMinor,
-      }),
-    )
-    .catch((err: unknown) => opts.onMailError?.(err));
+  kickMail(db, mailer);
   return fee;
 }

@@ -6,6 +6,7 @@ import type { Mailer } from '../mail/mailer';
 import { inviteMail } from '../mail/templates';
 import { hashPassword } from './auth';
 import { grantRoles, rolesInClub } from './memberships';
+import { enqueueMail, kickMail } from './outbox';
 import { hashToken, newToken } from './tokens';
 
 const INVITE_TTL_MS = 14 * 24 * 60 * 60 * 1000;
@@ -82,27 +83,29 @@ export async function issueInvite(db: Knex, mailer: Mailer, p: InviteToIssue): P
   const now = p.now ?? new Date();
   const { token, hash } = newToken();
   const expiresAt = new Date(now.getTime() + INVITE_TTL_MS);
-  const [row] = await db('invites')
-    .insert({
-      club_id: p.clubId,
-      email: p.email,
-      name: p.name,
-      roles: p.roles,
-      token_hash: hash,
-      expires_at: expiresAt,
-      invited_by_user_id: p.invitedBy,
-    })
-    .returning('*');
-  await mailer.send(
-    inviteMail({
+  const row = await db.transaction(async (trx) => {
+    const [inserted] = await trx('invites')
+      .insert({
+        club_id: p.clubId,
+        email: p.email,
+        name: p.name,
+        roles: p.roles,
+        token_hash: hash,
+        expires_at: expiresAt,
+        invited_by_user_id: p.invitedBy,
+      })
+      .returning('*');
+    await enqueueMail(trx, { clubId: p.clubId, kind: 'invite' }, inviteMail({
       to: p.email,
       name: p.name,
       clubName: p.clubName,
       roles: p.roles.map((r) => roleLabels[r]),
       url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
       expiresAt,
-    }),
-  );
+    }));
+    return inserted;
+  });
+  kickMail(db, mailer);
   return row;
 }
 

@@ -5,6 +5,7 @@ import type { Db } from '../db/knex';
 import { AppError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { renewalMail } from '../mail/templates';
+import { enqueueMail, kickMail } from './outbox';
 import { recordPlotEvent } from './plot-events';
 import { newToken } from './tokens';
 
@@ -87,11 +88,11 @@ export async function renewLeftOutHolder(
   opts: { seasonId: number; allocationId: number; userId: number; publicUrl: string; now?: Date },
 ) {
   const now = opts.now ?? new Date();
-  const mail = await db.transaction(async (trx) => {
+  const sentTo = await db.transaction(async (trx) => {
     const season = await trx('seasons as s')
       .join('clubs as c', 'c.id', 's.club_id')
       .where('s.id', opts.seasonId)
-      .first('s.id', 's.year', 's.renewal_deadline', 'c.name as club_name', 'c.renewal_days');
+      .first('s.id', 's.club_id', 's.year', 's.renewal_deadline', 'c.name as club_name', 'c.renewal_days');
     if (!season) throw notFound('The season');
     const candidate = await trx('allocations').where({ id: opts.allocationId }).first('plot_id');
     if (!candidate) throw notFound('The holder');
@@ -117,17 +118,23 @@ export async function renewLeftOutHolder(
       details: { summary: `Renewal for ${season.year} sent to ${holder.name} after last season’s fee was paid` },
     });
     const user = await trx('users').where({ id: holder.userId }).first('email');
-    return renewalMail({
-      to: user.email,
-      name: holder.name,
-      clubName: season.club_name,
-      year: season.year,
-      plotLabel: holder.plotLabel,
-      siteName: holder.siteName,
-      url: `${opts.publicUrl}/respond/renewal?token=${encodeURIComponent(token)}`,
-      deadline,
-    });
+    // The e-mail is written with the renewal, in the same transaction, and sent from the outbox.
+    await enqueueMail(
+      trx,
+      { clubId: season.club_id, kind: 'renewal' },
+      renewalMail({
+        to: user.email,
+        name: holder.name,
+        clubName: season.club_name,
+        year: season.year,
+        plotLabel: holder.plotLabel,
+        siteName: holder.siteName,
+        url: `${opts.publicUrl}/respond/renewal?token=${encodeURIComponent(token)}`,
+        deadline,
+      }),
+    );
+    return user.email as string;
   });
-  await mailer.send(mail);
-  return { sentTo: mail.to };
+  kickMail(db, mailer);
+  return { sentTo };
 }

@@ -10,6 +10,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { clubNewsMail } from '../mail/mailing-templates';
+import { enqueueMail, kickMail } from './outbox';
 
 /** The one optional topic; offers, renewals, receipts and resets are required and never look here. */
 export const CLUB_NEWS = 'club_news';
@@ -62,7 +63,10 @@ function audienceWords(audience: MailingAudience, clubName: string, site: string
 
 /**
  * Sends a club message to each person in the audience as their own e-mail, skipping people who
- * turned club news off, and records the mailing with how many it was for and how many went out.
+ * turned club news off, and records the mailing with how many it was for. The mailing and every
+ * e-mail are written in one transaction (the outbox sends them, retrying), so `sent` counts the
+ * messages handed to the outbox; the sent list counts those delivered, and the outgoing-mail page
+ * shows any that could not be.
  */
 export async function sendMailing(
   db: Knex,
@@ -82,39 +86,35 @@ export async function sendMailing(
   const people = await audiencePeople(db, clubId, body.audience);
   const recipients = people.filter((p) => !p.opted_out);
   const { because } = audienceWords(body.audience, club.name, site);
-  const [row] = await db('mailings')
-    .insert({
-      club_id: clubId,
-      subject: body.subject,
-      body: body.body,
-      audience: JSON.stringify(body.audience),
-      recipient_count: recipients.length,
-      sent_count: 0,
-      sent_by_user_id: opts.userId,
-    })
-    .returning('id');
   const preferencesUrl = `${opts.publicUrl}/clubs/${clubId}/email-choices`;
-  let sent = 0;
   // One message per person: nobody sees anyone else's address, and one bad address stops nobody else's mail.
-  for (const p of recipients) {
-    try {
-      await mailer.send(
-        clubNewsMail({
-          to: p.email,
-          name: p.name,
-          clubName: club.name,
-          subject: body.subject,
-          body: body.body,
-          because,
-          preferencesUrl,
-        }),
-      );
-      sent++;
-    } catch {
-      // Counted below: the sent list shows how many of the recipients it reached.
+  const row = await db.transaction(async (trx) => {
+    const [inserted] = await trx('mailings')
+      .insert({
+        club_id: clubId,
+        subject: body.subject,
+        body: body.body,
+        audience: JSON.stringify(body.audience),
+        recipient_count: recipients.length,
+        sent_count: recipients.length,
+        sent_by_user_id: opts.userId,
+      })
+      .returning('id');
+    for (const p of recipients) {
+      await enqueueMail(trx, { clubId, kind: 'club_news', mailingId: inserted.id }, clubNewsMail({
+        to: p.email,
+        name: p.name,
+        clubName: club.name,
+        subject: body.subject,
+        body: body.body,
+        because,
+        preferencesUrl,
+      }));
     }
-  }
-  await db('mailings').where({ id: row.id }).update({ sent_count: sent });
+    return inserted;
+  });
+  kickMail(db, mailer);
+  const sent = recipients.length;
   return { id: row.id, recipients: recipients.length, sent, skipped: people.length - recipients.length };
 }
 
@@ -126,7 +126,14 @@ export async function listMailings(db: Db, clubId: number) {
     .where('m.club_id', clubId)
     .orderBy('m.created_at', 'desc')
     .orderBy('m.id', 'desc')
-    .select('m.*', 'u.name as sent_by_name');
+    .select(
+      'm.*',
+      'u.name as sent_by_name',
+      // Delivered copies from the outbox; a message from before the outbox keeps its recorded count.
+      db.raw(
+        `coalesce((select count(*) filter (where o.status = 'sent') from mail_outbox o where o.mailing_id = m.id having count(*) > 0), m.sent_count) as delivered`,
+      ),
+    );
   const siteIds = [...new Set(rows.map((r) => (r.audience as MailingAudience)).flatMap((a) => (a.kind === 'site' ? [a.siteId] : [])))];
   const sites = new Map<number, string>(
     siteIds.length ? (await db('sites').whereIn('id', siteIds).select('id', 'name')).map((s) => [s.id, s.name]) : [],
@@ -141,7 +148,7 @@ export async function listMailings(db: Db, clubId: number) {
       audience,
       audienceLabel: audienceWords(audience, club?.name ?? '', site).label,
       recipientCount: r.recipient_count,
-      sentCount: r.sent_count,
+      sentCount: Number(r.delivered),
       sentByName: r.sent_by_name,
       createdAt: new Date(r.created_at).toISOString(),
     };

@@ -10,6 +10,7 @@ import { plotFacts } from './link-preview';
 import { grantRoles } from './memberships';
 import { createPasswordLink } from './password-resets';
 import { recordPlotEvent } from './plot-events';
+import { enqueueMail, kickMail } from './outbox';
 import { plotBlocker } from './season-plots';
 import { hashToken, newToken } from './tokens';
 
@@ -43,7 +44,6 @@ export async function createOffer(
   opts: { seasonId: number; plotId: number; applicationId: number; userId: number; deadline?: Date; publicUrl: string; now?: Date },
 ): Promise<Offer> {
   const now = opts.now ?? new Date();
-  let mail: Parameters<typeof offerMail>[0] | null = null;
   const offer = await db
     .transaction(async (trx) => {
       const season = await trx('seasons as s').join('clubs as c', 'c.id', 's.club_id').where('s.id', opts.seasonId).first('s.*', 'c.name as club_name', 'c.offer_days', 'c.allow_multiple_offers', 'c.currency');
@@ -100,7 +100,7 @@ export async function createOffer(
       });
       const quote = await quotePlotFee(trx, season.club_id, plot.id);
       const facts = await plotFacts(trx, plot.id);
-      mail = {
+      await enqueueMail(trx, { clubId: season.club_id, kind: 'offer' }, offerMail({
         to: app.email,
         name: app.name,
         clubName: season.club_name,
@@ -111,7 +111,7 @@ export async function createOffer(
         fee: `${formatMoney(quote.plotFeeMinor, quote.currency)} plus a refundable deposit of ${formatMoney(quote.depositMinor, quote.currency)}`,
         url: `${opts.publicUrl}/respond/offer?token=${encodeURIComponent(token)}`,
         deadline,
-      };
+      }));
       return toOffer(row);
     })
     .catch((err: { code?: string; constraint?: string }) => {
@@ -124,7 +124,7 @@ export async function createOffer(
       }
       throw err;
     });
-  if (mail) await mailer.send(offerMail(mail));
+  kickMail(db, mailer);
   return offer;
 }
 
@@ -191,8 +191,7 @@ export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: strin
     const fee = await trx('fees').where({ id: feeId }).first();
     const passwordUrl = user.password_hash ? null : await createPasswordLink(trx, { userId: user.id, publicUrl: opts.publicUrl, now });
     const facts = await plotFacts(trx, o.plot_id);
-    return {
-      mail: welcomeHolderMail({
+    await enqueueMail(trx, { clubId: o.club_id, kind: 'welcome_holder' }, welcomeHolderMail({
         to: o.email,
         name: o.name,
         clubName: o.club_name,
@@ -202,11 +201,12 @@ export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: strin
         feeDue: formatMoney(fee.plot_fee_minor + fee.deposit_minor, fee.currency),
         dueOn: fee.due_on,
         passwordUrl,
-      }),
+      }));
+    return {
       message: `Plot ${facts.label} is yours for ${o.year}. We have sent you an e-mail with what happens next.`,
     };
   });
-  await mailer.send(outcome.mail);
+  kickMail(db, mailer);
   return { status: 'accepted', message: outcome.message };
 }
 

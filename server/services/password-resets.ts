@@ -3,6 +3,7 @@ import { AppError } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { passwordResetMail } from '../mail/templates';
 import { hashPassword } from './auth';
+import { enqueueMail, kickMail } from './outbox';
 import { hashToken, newToken } from './tokens';
 
 const RESET_TTL_MS = 60 * 60 * 1000;
@@ -18,9 +19,12 @@ export async function requestPasswordReset(
   const now = opts.now ?? new Date();
   const { token, hash } = newToken();
   const expiresAt = new Date(now.getTime() + RESET_TTL_MS);
-  await db('password_resets').insert({ user_id: user.id, token_hash: hash, expires_at: expiresAt });
   const url = `${opts.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
-  await mailer.send(passwordResetMail({ to: user.email, name: user.name, url, expiresAt }));
+  await db.transaction(async (trx) => {
+    await trx('password_resets').insert({ user_id: user.id, token_hash: hash, expires_at: expiresAt });
+    await enqueueMail(trx, { clubId: null, kind: 'password_reset' }, passwordResetMail({ to: user.email, name: user.name, url, expiresAt }));
+  });
+  kickMail(db, mailer);
 }
 
 /** Sets a new password from a reset link; the link works once and only before it expires. */

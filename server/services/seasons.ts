@@ -4,6 +4,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { renewalMail } from '../mail/templates';
+import { enqueueMail, kickMail } from './outbox';
 import { recordPlotEvent } from './plot-events';
 import { newToken } from './tokens';
 
@@ -78,7 +79,8 @@ async function previousHolders(trx: Knex.Transaction, clubId: number, year: numb
 
 /**
  * Opens a season: last season's holders in good standing get a renewal link with the deadline;
- * holders who still owe fees get none, so their plots are free. E-mails go out after the commit.
+ * holders who still owe fees get none, so their plots are free. Each renewal e-mail is written to the
+ * outbox with its renewal, so a mail server that is down delays them but loses none.
  */
 export async function openSeason(
   db: Knex,
@@ -90,7 +92,7 @@ export async function openSeason(
     throw new AppError('validation_failed', 'The renewal deadline must be in the future.', { renewalDeadline: 'Choose a later date' });
   }
   const club = await db('clubs').where({ id: opts.clubId }).first('name');
-  const outgoing: Array<Parameters<typeof renewalMail>[0]> = [];
+  let renewalsSent = 0;
   const notRenewed: Array<{ name: string; plotLabel: string; reason: string }> = [];
   const season = await db.transaction(async (trx) => {
     const exists = await trx('seasons').where({ club_id: opts.clubId, year: opts.year }).first('id');
@@ -124,7 +126,8 @@ export async function openSeason(
         kind: 'renewal_sent',
         details: { summary: `Renewal for ${opts.year} sent to ${h.name}, answer by ${opts.renewalDeadline.toISOString().slice(0, 10)}` },
       });
-      outgoing.push({
+      renewalsSent++;
+      await enqueueMail(trx, { clubId: opts.clubId, kind: 'renewal' }, renewalMail({
         to: h.email,
         name: h.name,
         clubName: club.name,
@@ -133,10 +136,10 @@ export async function openSeason(
         siteName: h.site_name,
         url: `${opts.publicUrl}/respond/renewal?token=${encodeURIComponent(token)}`,
         deadline: opts.renewalDeadline,
-      });
+      }));
     }
     return row;
   });
-  for (const m of outgoing) await mailer.send(renewalMail(m));
-  return { season: await getSeason(db, season.id), renewalsSent: outgoing.length, notRenewed };
+  kickMail(db, mailer);
+  return { season: await getSeason(db, season.id), renewalsSent, notRenewed };
 }

@@ -1,4 +1,17 @@
-import { CalendarRange, Coins, HandHelping, House, LandPlot, ListOrdered, Mail, Map as MapIcon, Settings, Shovel, Users } from 'lucide-react';
+import {
+  CalendarRange,
+  Coins,
+  HandHelping,
+  House,
+  LandPlot,
+  ListOrdered,
+  Mail,
+  MailClock,
+  Map as MapIcon,
+  Settings,
+  Shovel,
+  Users,
+} from 'lucide-react';
 import type { ClubMembership } from '@shared/schemas/auth';
 import type { NavItem } from '@/components/layouts/app-layout';
 import { paths } from '@/lib/paths';
@@ -16,6 +29,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
       { to: paths.fees(id), label: 'Fees', icon: Coins },
       { to: paths.members(id), label: 'Members', icon: Users },
       { to: paths.messages(id), label: 'Messages', icon: Mail },
+      { to: paths.outgoingMail(id), label: 'Outgoing mail', icon: MailClock },
     );
   }
   if (club.roles.includes('plot_holder')) {

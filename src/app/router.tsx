@@ -83,6 +83,10 @@ export const router = createBrowserRouter([
               },
               { path: 'messages', lazy: () => import('./routes/messages').then((m) => ({ Component: m.MessagesRoute })) },
               {
+                path: 'outgoing-mail',
+                lazy: () => import('./routes/outgoing-mail').then((m) => ({ Component: m.OutgoingMailRoute })),
+              },
+              {
                 path: 'email-choices',
                 lazy: () => import('./routes/email-choices').then((m) => ({ Component: m.EmailChoicesRoute })),
               },

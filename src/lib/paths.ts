@@ -13,6 +13,7 @@ export const paths = {
   springRound: (clubId: number) => `/clubs/${clubId}/spring-round`,
   waitlist: (clubId: number) => `/clubs/${clubId}/waitlist`,
   messages: (clubId: number) => `/clubs/${clubId}/messages`,
+  outgoingMail: (clubId: number) => `/clubs/${clubId}/outgoing-mail`,
   emailChoices: (clubId: number) => `/clubs/${clubId}/email-choices`,
   /** The public application form; shared with people who want a plot. */
   apply: (clubSlug: string) => `/apply/${encodeURIComponent(clubSlug)}`,

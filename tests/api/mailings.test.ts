@@ -1,5 +1,6 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/schemas/auth';
+import { mailIdle } from '../../server/services/outbox';
 import { buildClub, buildMember } from '../factories';
 import { browserLikeAgent, mailUrl, setupTestApp, truncateAll } from '../helpers/app';
 import { listMail, waitForMail } from '../helpers/inbox';
@@ -109,6 +110,7 @@ describe('club messages', () => {
       expect(await listMail(mailUrl(), { to: who.email, subject: 'Water off' })).toEqual([]);
     }
 
+    await mailIdle(); // each copy is marked sent just after the inbox takes it
     const row = await t.db('mailings').where({ id: res.body.id }).first();
     expect(row).toMatchObject({ club_id: club.id, recipient_count: 2, sent_count: 2, sent_by_user_id: coordinator.person.id });
     expect(row.audience).toEqual({ kind: 'season', year: 2027 });

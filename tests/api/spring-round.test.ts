@@ -245,7 +245,7 @@ describe('offers', () => {
     const season = (await openSeason(agent, c.id, 2027)).season;
     await agent.post(`/api/seasons/${season.id}/offers`, { plotId: plots[0].id, applicationId: app }).expect(201);
     await t.db('offers').update({ deadline: new Date(Date.now() - 60_000) });
-    const jobs = await startJobs(t.config.databaseUrl, t.db, { info: () => {}, error: () => {} });
+    const jobs = await startJobs(t.config.databaseUrl, t.db, t.mailer, { info: () => {}, error: () => {} });
     try {
       const until = Date.now() + 20_000;
       let status = 'pending';

@@ -33,6 +33,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       ['/waitlist', 'Waitlist'],
       ['/fees', 'Fees'],
       ['/members', 'Members'],
+      ['/outgoing-mail', 'Outgoing mail'],
       ['/settings', 'Settings'],
     ];
     for (const width of [1280, 390]) {

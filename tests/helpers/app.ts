@@ -6,6 +6,7 @@ import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
 import { createDb } from '../../server/db/knex';
 import { createMailer } from '../../server/mail/mailer';
+import { mailIdle } from '../../server/services/outbox';
 
 export const mailUrl = () => inject('mailUrl');
 
@@ -42,9 +43,11 @@ export function setupTestApp(
   return {
     db,
     config,
+    mailer,
     app: built.app,
     async close() {
       await built.close();
+      await mailIdle();
       mailer.close();
       await db.destroy();
     },
@@ -53,6 +56,8 @@ export function setupTestApp(
 
 /** Empties every table the product writes (not the migrations' own bookkeeping). */
 export async function truncateAll(db: Knex) {
+  // Mail a test's requests are still sending belongs to that test, not the next one.
+  await mailIdle();
   const { rows } = await db.raw(
     "select tablename from pg_tables where schemaname = 'public' and tablename not like 'knex_%'",
   );

@@ -90,9 +90,9 @@ export function MailingForm({ clubId, sites }: { clubId: number; sites: Array<{ 
         <Alert tone="success" title="Message sent">
           {sent.recipients === 0
             ? 'Nobody was in that audience, so nothing was sent.'
-            : `Sent to ${sent.sent} of ${sent.recipients} ${sent.recipients === 1 ? 'person' : 'people'}, each in their own e-mail.`}
+            : `On its way to ${sent.sent} of ${sent.recipients} ${sent.recipients === 1 ? 'person' : 'people'}, each in their own e-mail.`}
           {sent.skipped > 0 && ` ${sent.skipped} turned club news off and were skipped.`}
-          {sent.sent < sent.recipients && ' Some could not be sent; the list below shows the count.'}
+          {sent.recipients > 0 && ' The list below counts each copy once the mail server takes it; any it cannot take appear on Outgoing mail.'}
         </Alert>
       )}
       {formError && <Alert tone="error">{formError}</Alert>}

@@ -1,0 +1,9 @@
+import type { OutboxQuery } from '@shared/schemas/outbox';
+
+/** Query keys for a club's outgoing mail: `['outbox', 'list', { clubId, status, page }]`. */
+export const outboxKeys = {
+  all: ['outbox'] as const,
+  lists: () => [...outboxKeys.all, 'list'] as const,
+  clubLists: (clubId: number) => [...outboxKeys.lists(), { clubId }] as const,
+  list: (filters: { clubId: number } & OutboxQuery) => [...outboxKeys.lists(), filters] as const,
+};
