@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { DestinationStream } from 'pino';
 import type { Config } from './config';
 import type { Mailer } from './mail/mailer';
 
@@ -7,4 +8,6 @@ export interface Deps {
   db: Knex;
   mailer: Mailer;
   config: Config;
+  /** Where the request log goes; tests pass a captured stream. Defaults to stdout. */
+  logDestination?: DestinationStream;
 }

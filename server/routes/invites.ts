@@ -48,7 +48,7 @@ export function inviteLinksRouter({ db, config }: Deps): Router {
     const input = parseInput(InviteAcceptBodySchema, req.body);
     const userId = await acceptInvite(db, { ...input, bcryptCost: config.bcryptCost });
     await signIn(req, userId);
-    const body: SessionInfo = { user: await loadSessionUser(db, userId), csrfToken: csrfToken(req) };
+    const body: SessionInfo = { user: await loadSessionUser(db, userId), csrfToken: csrfToken(req, res, config) };
     res.json(body);
   });
 

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { DestinationStream } from 'pino';
 import request from 'supertest';
 import { inject } from 'vitest';
 import { createApp } from '../../server/app';
@@ -17,6 +18,8 @@ export function testConfig(env: Record<string, string> = {}): Config {
     PUBLIC_URL: 'http://127.0.0.1:3999',
     BCRYPT_COST: '10',
     AUTH_RATE_LIMIT: '1000',
+    // Every test signs in from 127.0.0.1; tests of the limits set their own values.
+    SIGNIN_MAX_FAILURES_PER_ADDRESS: '1000',
     LOG_LEVEL: 'silent',
     STATIC_DIR: '/nonexistent',
     // Uploads from tests go to the throwaway temp folder, never into the checkout's .data.
@@ -26,11 +29,11 @@ export function testConfig(env: Record<string, string> = {}): Config {
 }
 
 /** A database handle, an app and a way to close them, for one test file. */
-export function setupTestApp(env: Record<string, string> = {}) {
+export function setupTestApp(env: Record<string, string> = {}, extra: { logDestination?: DestinationStream } = {}) {
   const config = testConfig(env);
   const db = createDb(config.databaseUrl);
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
-  const built = createApp({ db, mailer, config });
+  const built = createApp({ db, mailer, config, ...extra });
   return {
     db,
     config,
