@@ -8,9 +8,10 @@ import { csrfToken } from '../middleware/csrf';
 import { authRateLimit } from '../middleware/rate-limit';
 import { signIn } from '../middleware/session';
 import { loadSessionUser } from '../services/auth';
-import { acceptInvite, createInvite, listPendingInvites, previewInvite } from '../services/invites';
+import { acceptInvite, cancelInvite, createInvite, listPendingInvites, previewInvite } from '../services/invites';
 
 const PreviewQuerySchema = z.object({ token: z.string().min(20).max(200) });
+const InviteParamsSchema = z.object({ inviteId: z.coerce.number().int().positive() });
 
 /** A club's invitations (coordinators), mounted at /api/clubs/:clubId/invites. */
 export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
@@ -30,6 +31,12 @@ export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
       publicUrl: config.publicUrl,
     });
     res.status(201).json(invite);
+  });
+
+  router.delete('/:inviteId', async (req, res) => {
+    const { inviteId } = parseInput(InviteParamsSchema, req.params);
+    await cancelInvite(db, req.clubId!, inviteId);
+    res.status(204).end();
   });
 
   return router;
