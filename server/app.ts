@@ -10,6 +10,7 @@ import { pino } from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { Deps } from './deps';
 import { requireCsrf } from './middleware/csrf';
+import { LOG_REDACT_PATHS, refreshSession } from './middleware/session';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { applicationsRouter, applyRouter, clubWaitlistRouter } from './routes/applications';
 import { mailingsRouter, mailPreferencesRouter } from './routes/mailings';
@@ -42,7 +43,14 @@ export function createApp(deps: Deps): BuiltApp {
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);
 
-  const logger = pino({ level: config.logLevel }, deps.logDestination);
+  const logger = pino(
+    {
+      level: config.logLevel,
+      // A second guard beside the serializers: whatever reaches a log line under these paths is dropped.
+      redact: { paths: LOG_REDACT_PATHS, remove: true },
+    },
+    deps.logDestination ?? pino.destination(1),
+  );
   app.use(
     pinoHttp({
       logger,
@@ -52,9 +60,10 @@ export function createApp(deps: Deps): BuiltApp {
         res.setHeader('X-Request-Id', id);
         return id;
       },
-      // Keep cookies and tokens out of the logs.
+      // Keep cookies, tokens and headers out of the logs: a request is its id, method and path, a response its status.
       serializers: {
-        req: (req) => ({ id: req.id, method: req.method, url: String(req.url).replace(/token=[^&]+/, 'token=…') }),
+        req: (req) => ({ id: req.id, method: req.method, url: String(req.url).replace(/token=[^&]+/g, 'token=…') }),
+        res: (res) => ({ statusCode: res.statusCode }),
       },
     }),
   );
@@ -79,16 +88,19 @@ export function createApp(deps: Deps): BuiltApp {
   app.use(
     session({
       name: 'tillwell.sid',
+      // No touch on every request: a signed-in session is refreshed at most once a day (refreshSession).
       store: new PgStore({
         pool: sessionPool,
         tableName: 'session',
         pruneSessionInterval: 15 * 60,
+        disableTouch: true,
         errorLog: (...args: unknown[]) => logger.warn({ reason: String(args[0]) }, 'session store error'),
       }),
       secret: config.sessionSecret,
       resave: false,
+      // Nothing is stored for anonymous visitors: their CSRF token lives in a signed cookie.
       saveUninitialized: false,
-      rolling: true,
+      rolling: false,
       cookie: {
         httpOnly: true,
         sameSite: 'lax',
@@ -97,8 +109,9 @@ export function createApp(deps: Deps): BuiltApp {
       },
     }),
   );
+  app.use(refreshSession);
 
-  app.use('/api', requireCsrf);
+  app.use('/api', requireCsrf(config.sessionSecret));
   app.use('/api/session', sessionRouter(deps));
   app.use('/api/password-resets', passwordResetsRouter(deps));
   app.use('/api/invites', inviteLinksRouter(deps));

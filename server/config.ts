@@ -19,6 +19,9 @@ const EnvSchema = z
     MAIL_FROM: z.string().default('Tillwell <no-reply@tillwell.example.org>'),
     BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(12),
     AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+    SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().min(1).default(10),
+    SIGNIN_MAX_FAILURES_PER_ADDRESS: z.coerce.number().int().min(1).default(100),
+    SIGNIN_LOCK_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(15),
     APPLY_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
     TRUST_PROXY: boolish.default(false),
     LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -48,6 +51,12 @@ export interface Config {
   mailFrom: string;
   bcryptCost: number;
   authRateLimit: number;
+  /** Wrong passwords in a row for one e-mail address before sign-in to it is locked. */
+  signInMaxFailuresPerAccount: number;
+  /** Failed sign-ins from one client address before sign-in from it is locked. */
+  signInMaxFailuresPerAddress: number;
+  /** How long both counts run and a lock lasts. */
+  signInLockMinutes: number;
   /** Public waitlist applications per client address per hour. */
   applyRateLimit: number;
   trustProxy: boolean;
@@ -78,6 +87,9 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     bcryptCost: e.BCRYPT_COST,
     authRateLimit: e.AUTH_RATE_LIMIT,
+    signInMaxFailuresPerAccount: e.SIGNIN_MAX_FAILURES_PER_ACCOUNT,
+    signInMaxFailuresPerAddress: e.SIGNIN_MAX_FAILURES_PER_ADDRESS,
+    signInLockMinutes: e.SIGNIN_LOCK_MINUTES,
     applyRateLimit: e.APPLY_RATE_LIMIT,
     trustProxy: e.TRUST_PROXY,
     logLevel: e.LOG_LEVEL,

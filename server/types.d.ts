@@ -5,6 +5,8 @@ declare module 'express-session' {
   interface SessionData {
     userId?: number;
     csrfToken?: string;
+    /** When the signed-in session was last written (ms), so it is refreshed once a day. */
+    refreshedAt?: number;
   }
 }
 

@@ -28,3 +28,32 @@ export function applicationReceivedMail(p: {
     why: `You got this because this address was entered on the plot application form of ${p.clubName} on Tillwell. If it was not you, ignore this e-mail or ask the club to remove it.`,
   });
 }
+
+/**
+ * Sent instead of telling the form that an address is already waiting: the form answers as for a
+ * new application, and only the address's owner learns they were already on the list, and where.
+ */
+export function alreadyOnWaitlistMail(p: {
+  to: string;
+  name: string;
+  clubName: string;
+  /** Their place while waiting; null when a plot is on offer to them. */
+  position: number | null;
+}): OutgoingMail {
+  return renderMail({
+    to: p.to,
+    subject:
+      p.position === null
+        ? `You're already on the ${p.clubName} waitlist, with a plot on offer`
+        : `You're already on the ${p.clubName} waitlist: number ${p.position}`,
+    greeting: `Hello ${p.name},`,
+    paragraphs: [
+      `This address was entered again on the plot application form of ${p.clubName}. It was already on the waitlist, so the new form was not kept: your earlier application and its date stand.`,
+      p.position === null
+        ? 'A plot is on offer to you at the moment. The e-mail with the offer has the link to accept or decline it.'
+        : `You are number ${p.position} on the waitlist. When a plot comes free for you, you get an e-mail with a link to accept or decline it.`,
+      'To change your details or leave the waitlist, reply to the club coordinator.',
+    ],
+    why: `You got this because this address was entered on the plot application form of ${p.clubName} on Tillwell. If it was not you, ignore this e-mail or ask the club to remove it.`,
+  });
+}

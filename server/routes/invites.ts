@@ -8,9 +8,10 @@ import { csrfToken } from '../middleware/csrf';
 import { authRateLimit } from '../middleware/rate-limit';
 import { signIn } from '../middleware/session';
 import { loadSessionUser } from '../services/auth';
-import { acceptInvite, createInvite, listPendingInvites, previewInvite } from '../services/invites';
+import { acceptInvite, cancelInvite, createInvite, listPendingInvites, previewInvite } from '../services/invites';
 
 const PreviewQuerySchema = z.object({ token: z.string().min(20).max(200) });
+const InviteParamsSchema = z.object({ inviteId: z.coerce.number().int().positive() });
 
 /** A club's invitations (coordinators), mounted at /api/clubs/:clubId/invites. */
 export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
@@ -32,6 +33,12 @@ export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
     res.status(201).json(invite);
   });
 
+  router.delete('/:inviteId', async (req, res) => {
+    const { inviteId } = parseInput(InviteParamsSchema, req.params);
+    await cancelInvite(db, req.clubId!, inviteId);
+    res.status(204).end();
+  });
+
   return router;
 }
 
@@ -48,7 +55,7 @@ export function inviteLinksRouter({ db, config }: Deps): Router {
     const input = parseInput(InviteAcceptBodySchema, req.body);
     const userId = await acceptInvite(db, { ...input, bcryptCost: config.bcryptCost });
     await signIn(req, userId);
-    const body: SessionInfo = { user: await loadSessionUser(db, userId), csrfToken: csrfToken(req) };
+    const body: SessionInfo = { user: await loadSessionUser(db, userId), csrfToken: csrfToken(req, res, config) };
     res.json(body);
   });
 

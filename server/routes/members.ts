@@ -4,12 +4,16 @@ import { MAX_INT4 } from '@shared/schemas/common';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole } from '../middleware/auth';
-import { listMembers } from '../services/memberships';
+import { roles } from '@shared/schemas/auth';
+import { listMembers, removeMembership } from '../services/memberships';
 
 const ListQuerySchema = z.object({
   page: z.coerce.number().int().min(1).max(MAX_INT4).default(1),
   pageSize: z.coerce.number().int().min(1).max(500).default(100),
 });
+
+const MemberParamsSchema = z.object({ userId: z.coerce.number().int().positive() });
+const RoleParamsSchema = MemberParamsSchema.extend({ role: z.enum(roles, { message: `One of ${roles.join(', ')}` }) });
 
 /** A club's members and their roles (coordinators), mounted at /api/clubs/:clubId/members. */
 export function membersRouter({ db }: Deps): Router {
@@ -19,6 +23,20 @@ export function membersRouter({ db }: Deps): Router {
   router.get('/', async (req, res) => {
     const q = parseInput(ListQuerySchema, req.query);
     res.json(await listMembers(db, req.clubId!, q));
+  });
+
+  // Removes the member from the club (every role).
+  router.delete('/:userId', async (req, res) => {
+    const { userId } = parseInput(MemberParamsSchema, req.params);
+    await removeMembership(db, { clubId: req.clubId!, userId, actorId: req.session.userId! });
+    res.status(204).end();
+  });
+
+  // Takes one role from the member.
+  router.delete('/:userId/roles/:role', async (req, res) => {
+    const { userId, role } = parseInput(RoleParamsSchema, req.params);
+    await removeMembership(db, { clubId: req.clubId!, userId, role, actorId: req.session.userId! });
+    res.status(204).end();
   });
 
   return router;

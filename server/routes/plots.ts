@@ -16,7 +16,7 @@ export function plotsRouter({ db }: Deps): Router {
   const coordinator = requireRoleVia(db, 'plotId', clubOfPlot, 'The plot', 'coordinator');
 
   router.get('/:plotId', member, async (req, res) => {
-    res.json(await getPlotDetail(db, Number(req.params.plotId)));
+    res.json(await getPlotDetail(db, Number(req.params.plotId), { userId: req.session.userId!, roles: req.clubRoles! }));
   });
 
   router.patch('/:plotId', coordinator, async (req, res) => {

@@ -47,7 +47,7 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
     const { siteId } = parseInput(PlotStatesQuerySchema, req.query);
     const site = await db('sites').where({ id: siteId, club_id: req.clubId }).first('id');
     if (!site) return res.json({ items: [], page: 1, total: 0 });
-    const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId);
+    const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId, { userId: req.session.userId!, roles: req.clubRoles! });
     res.json({ items, page: 1, total: items.length });
   });
 

@@ -11,7 +11,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { enqueueMail, kickMail } from './outbox';
-import { applicationReceivedMail } from '../mail/waitlist-templates';
+import { alreadyOnWaitlistMail, applicationReceivedMail } from '../mail/waitlist-templates';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 // Gaps used when someone is moved to either end of the queue, and the least gap kept when the
@@ -93,11 +93,6 @@ async function positionOf(db: Db, app: { id: number; club_id: number }): Promise
   return Number(n);
 }
 
-const duplicate = () =>
-  new AppError('conflict', 'This e-mail address is already on the waitlist of this club.', {
-    email: 'Already on the waitlist. To change your application, contact the club.',
-  });
-
 const isLiveEmailClash = (err: unknown) =>
   (err as { code?: string; constraint?: string })?.code === '23505' &&
   (err as { constraint?: string }).constraint === 'applications_live_email_unique';
@@ -129,12 +124,24 @@ export async function submitApplication(
     }
     siteName = site.name;
   }
-  const live = await db('applications')
-    .where({ club_id: club.id })
-    .whereIn('status', ['waiting', 'offered'])
-    .whereRaw('lower(email) = lower(?)', [body.email])
-    .first('id');
-  if (live) throw duplicate();
+  /**
+   * An address already waiting (or with a plot on offer) gets the answer a new application gets, so
+   * the form tells nobody who is on the list; the address's owner is told by e-mail instead.
+   */
+  const alreadyListed = async () => {
+    const live = await db('applications')
+      .where({ club_id: club.id })
+      .whereIn('status', ['waiting', 'offered'])
+      .whereRaw('lower(email) = lower(?)', [body.email])
+      .first('id', 'club_id', 'name', 'email', 'status');
+    if (!live) return null;
+    const place = live.status === 'waiting' ? await positionOf(db, live) : null;
+    await enqueueMail(db, { clubId: club.id, kind: 'application_received' }, alreadyOnWaitlistMail({ to: live.email, name: live.name, clubName: club.name, position: place }));
+    kickMail(db, mailer);
+    return receipt((await waitingCount(db, club.id)) + 1);
+  };
+  const listed = await alreadyListed();
+  if (listed) return listed;
 
   const account = await db('users').whereRaw('lower(email) = lower(?)', [body.email]).first('id');
   try {
@@ -174,7 +181,10 @@ export async function submitApplication(
     kickMail(db, mailer);
     return result;
   } catch (err) {
-    if (isLiveEmailClash(err)) throw duplicate();
+    if (isLiveEmailClash(err)) {
+      const listedMeanwhile = await alreadyListed();
+      if (listedMeanwhile) return listedMeanwhile;
+    }
     throw err;
   }
 }

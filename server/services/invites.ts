@@ -19,6 +19,7 @@ interface InviteRow {
   roles: Role[];
   expires_at: Date;
   accepted_at: Date | null;
+  cancelled_at: Date | null;
   created_at: Date;
 }
 
@@ -114,6 +115,7 @@ export async function listPendingInvites(db: Knex, clubId: number, now = new Dat
   const rows: InviteRow[] = await db('invites')
     .where({ club_id: clubId })
     .whereNull('accepted_at')
+    .whereNull('cancelled_at')
     .where('expires_at', '>', now)
     .orderBy('created_at', 'desc');
   return { items: rows.map(toInvite), page: 1, total: rows.length };
@@ -128,6 +130,7 @@ async function liveInvite(db: Knex | Knex.Transaction, token: string, now: Date,
   const row = await q;
   if (!row) throw notFound('That invitation');
   if (row.accepted_at) throw new AppError('gone', 'This invitation has already been used.');
+  if (row.cancelled_at) throw new AppError('gone', 'This invitation is no longer valid. Ask the coordinator for a new one.');
   if (row.expires_at <= now) throw new AppError('gone', 'This invitation has expired. Ask the coordinator for a new one.');
   return row as InviteRow & { club_name: string };
 }
@@ -180,4 +183,18 @@ export async function acceptInvite(
     await trx('invites').where({ id: invite.id }).update({ accepted_at: now, accepted_by_user_id: userId });
     return userId;
   });
+}
+
+/** Cancels a pending invitation of the club: its link then answers that it is no longer valid. */
+export async function cancelInvite(db: Knex, clubId: number, inviteId: number, now = new Date()): Promise<void> {
+  const updated = await db('invites')
+    .where({ id: inviteId, club_id: clubId })
+    .whereNull('accepted_at')
+    .whereNull('cancelled_at')
+    .update({ cancelled_at: now });
+  if (updated === 0) {
+    const row = await db('invites').where({ id: inviteId, club_id: clubId }).first('accepted_at');
+    if (!row) throw notFound('That invitation');
+    throw new AppError('conflict', row.accepted_at ? 'This invitation has already been accepted.' : 'This invitation is already cancelled.');
+  }
 }

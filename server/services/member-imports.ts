@@ -117,7 +117,7 @@ function parseMembersCsv(csv: string) {
 }
 
 async function accountsByEmail(db: Db, clubId: number, emails: string[]) {
-  const found = new Map<string, { id: number; hasPassword: boolean; isMember: boolean }>();
+  const found = new Map<string, { id: number; hasPassword: boolean; isMember: boolean; held: Role[] }>();
   for (let i = 0; i < emails.length; i += 500) {
     const rows = await db('users as u')
       .whereRaw('lower(u.email) = any(?)', [emails.slice(i, i + 500)])
@@ -125,16 +125,22 @@ async function accountsByEmail(db: Db, clubId: number, emails: string[]) {
         'u.id',
         db.raw('lower(u.email) as email'),
         db.raw('u.password_hash is not null as has_password'),
-        db.raw('exists (select 1 from memberships m where m.user_id = u.id and m.club_id = ?) as is_member', [clubId]),
+        db.raw('array(select m.role from memberships m where m.user_id = u.id and m.club_id = ? order by m.role) as held', [clubId]),
       );
-    for (const r of rows) found.set(r.email, { id: r.id, hasPassword: r.has_password, isMember: r.is_member });
+    for (const r of rows) {
+      const held = (r.held ?? []) as Role[];
+      found.set(r.email, { id: r.id, hasPassword: r.has_password, isMember: held.length > 0, held });
+    }
   }
   return found;
 }
 
 /**
- * Checks a members CSV and, with commit, adds every row or none: new people get an account without a
- * password, everyone gets their roles, and rows asking for it get an invitation to choose a password.
+ * Checks a members CSV and, with commit, adds every row or none. Roles are granted only to accounts
+ * the import itself creates (addresses new to Tillwell); anyone whose address already has an
+ * account, and a member given new roles, gets an invitation and holds the roles only once they
+ * accept it. Rows asking for it get an invitation to choose a password. The preview words a new
+ * address and an existing account the same way.
  */
 export async function importMembers(
   db: Knex,
@@ -148,36 +154,47 @@ export async function importMembers(
     const accounts = await accountsByEmail(trx, opts.clubId, parsed.rows.map((r) => r.email).filter(Boolean));
     const rows = parsed.rows.map((r) => {
       const account = accounts.get(r.email);
-      const member: ImportedMember | null =
+      const member = account?.isMember ? account : null;
+      const newRoles = r.roles && member ? r.roles.filter((role) => !member.held.includes(role)) : [];
+      const shown: ImportedMember | null =
         r.ok && r.roles
           ? {
               name: r.name,
               email: r.email,
               roles: r.roles,
-              sendInvite: r.sendInvite && !account?.hasPassword,
-              hasPassword: account?.hasPassword ?? false,
-              outcome: !account ? 'new_account' : account.isMember ? 'member' : 'existing_account',
+              sendInvite: member ? newRoles.length > 0 || (r.sendInvite && !member.hasPassword) : r.sendInvite,
+              hasPassword: member?.hasPassword ?? false,
+              outcome: member ? 'member' : 'joins',
             }
           : null;
-      return { row: r.row, name: r.name, email: r.email, member };
+      // What the commit does, kept out of the answer.
+      const plan = !r.roles
+        ? null
+        : !account
+          ? ({ kind: 'create', invite: r.sendInvite, inviteRoles: r.roles } as const)
+          : member
+            ? ({ kind: 'none', invite: shown?.sendInvite ?? false, inviteRoles: newRoles.length > 0 ? newRoles : r.roles } as const)
+            : ({ kind: 'none', invite: true, inviteRoles: r.roles } as const);
+      return { row: { row: r.row, name: r.name, email: r.email, member: shown }, plan };
     });
     return { rows, errors: sortProblems(parsed.errors, memberCsvColumns) };
   };
   const noCounts = { imported: 0, newAccounts: 0, invitesSent: 0, invitesFailed: 0 };
 
-  if (!opts.commit) return { kind: 'members', ...(await describe(db)), committed: false, counts: noCounts };
+  if (!opts.commit) {
+    const described = await describe(db);
+    return { kind: 'members', rows: described.rows.map((r) => r.row), errors: described.errors, committed: false, counts: noCounts };
+  }
   if (parsed.errors.length > 0) throw importRefusal(sortProblems(parsed.errors, memberCsvColumns));
 
   const { rows, newAccounts } = await db.transaction(async (trx) => {
     const described = await describe(trx);
     let created = 0;
     for (const r of described.rows) {
-      const m = r.member!;
-      let user = await trx('users').whereRaw('lower(email) = lower(?)', [m.email]).first('id');
-      if (!user) {
-        [user] = await trx('users').insert({ email: m.email, name: m.name, password_hash: null }).returning('id');
-        created++;
-      }
+      const m = r.row.member!;
+      if (r.plan?.kind !== 'create') continue;
+      const [user] = await trx('users').insert({ email: m.email, name: m.name, password_hash: null }).returning('id');
+      created++;
       await grantRoles(trx, opts.clubId, user.id, m.roles);
     }
     return { rows: described.rows, newAccounts: created };
@@ -187,8 +204,8 @@ export async function importMembers(
   let invitesSent = 0;
   let invitesFailed = 0;
   for (const r of rows) {
-    const m = r.member!;
-    if (!m.sendInvite) continue;
+    const m = r.row.member!;
+    if (!r.plan?.invite) continue;
     try {
       await issueInvite(db, mailer, {
         clubId: opts.clubId,
@@ -196,7 +213,7 @@ export async function importMembers(
         invitedBy: opts.userId,
         name: m.name,
         email: m.email,
-        roles: m.roles,
+        roles: r.plan.inviteRoles,
         publicUrl: opts.publicUrl,
       });
       invitesSent++;
@@ -206,7 +223,7 @@ export async function importMembers(
   }
   return {
     kind: 'members',
-    rows,
+    rows: rows.map((r) => r.row),
     errors: [],
     committed: true,
     counts: { imported: rows.length, newAccounts, invitesSent, invitesFailed },

@@ -1,5 +1,8 @@
+import type { Knex } from 'knex';
 import type { ClubMembership, Member, Role } from '@shared/schemas/auth';
+import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
+import { recordPlotEvent } from './plot-events';
 
 /** The roles a person holds in one club (empty when they are not a member). */
 export async function rolesInClub(db: Db, clubId: number, userId: number): Promise<Role[]> {
@@ -59,4 +62,72 @@ export async function listMembers(
     page: opts.page,
     total: Number(count),
   };
+}
+
+/**
+ * Takes one role (or, without role, every role) from a member of a club, in one transaction.
+ * A club keeps at least one coordinator. Someone who stops being a plot holder gives up what they
+ * hold in the club's newest season: their pending renewals are released and their plots there freed
+ * (history and fees stay). Removing the whole member also cancels their pending invitations to the
+ * club. Roles are read on every request, so their open sessions lose the club at once.
+ */
+export async function removeMembership(
+  db: Knex,
+  opts: { clubId: number; userId: number; role?: Role; actorId: number; now?: Date },
+): Promise<void> {
+  const now = opts.now ?? new Date();
+  await db.transaction(async (trx) => {
+    // Serialises removals in a club, so two coordinators removing each other leave one.
+    await trx('clubs').where({ id: opts.clubId }).forUpdate().first('id');
+    const held = await rolesInClub(trx, opts.clubId, opts.userId);
+    if (held.length === 0 || (opts.role && !held.includes(opts.role))) throw notFound(opts.role ? 'That role of the member' : 'The member');
+    const removing = opts.role ? [opts.role] : held;
+    if (removing.includes('coordinator')) {
+      const [{ n }] = await trx('memberships').where({ club_id: opts.clubId, role: 'coordinator' }).count({ n: '*' });
+      if (Number(n) <= 1) {
+        throw new AppError('conflict', 'A club needs at least one coordinator. Make someone else coordinator first.');
+      }
+    }
+    await trx('memberships').where({ club_id: opts.clubId, user_id: opts.userId }).whereIn('role', removing).delete();
+
+    if (removing.includes('plot_holder')) {
+      const renewals = await trx('renewals as r')
+        .join('seasons as s', 's.id', 'r.season_id')
+        .where({ 's.club_id': opts.clubId, 'r.user_id': opts.userId, 'r.status': 'pending' })
+        .select('r.id', 'r.plot_id', 's.year');
+      for (const r of renewals) {
+        await trx('renewals').where({ id: r.id }).update({ status: 'released', answered_at: now });
+        await recordPlotEvent(trx, {
+          plotId: r.plot_id,
+          userId: opts.actorId,
+          kind: 'renewal_withdrawn',
+          details: { summary: `Renewal for ${r.year} withdrawn: the holder was removed from the club` },
+        });
+      }
+      const newest = await trx('seasons').where({ club_id: opts.clubId }).orderBy('year', 'desc').first('id', 'year');
+      if (newest) {
+        const held = await trx('allocations')
+          .where({ season_id: newest.id, user_id: opts.userId, status: 'active' })
+          .select('id', 'plot_id');
+        for (const a of held) {
+          await trx('allocations').where({ id: a.id }).update({ status: 'released', released_at: now });
+          await recordPlotEvent(trx, {
+            plotId: a.plot_id,
+            userId: opts.actorId,
+            kind: 'allocation_released',
+            details: { summary: `Freed for ${newest.year}: the holder was removed from the club` },
+          });
+        }
+      }
+    }
+    if (!opts.role) {
+      const user = await trx('users').where({ id: opts.userId }).first('email');
+      await trx('invites')
+        .where({ club_id: opts.clubId })
+        .whereRaw('lower(email) = lower(?)', [user.email])
+        .whereNull('accepted_at')
+        .whereNull('cancelled_at')
+        .update({ cancelled_at: now });
+    }
+  });
 }

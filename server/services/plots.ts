@@ -5,6 +5,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { plotColumns, plotRect, STORED_LENGTH_EPS, toPlot, type PlotRow } from '../db/mappers';
 import { listPlotEvents, recordPlotEvent } from './plot-events';
+import { physicalPlotEvents, seesPeople, type Viewer } from './visibility';
 
 const EPS = STORED_LENGTH_EPS;
 
@@ -136,7 +137,11 @@ export async function siteNeighbours(db: Db, siteId: number): Promise<{ items: N
 }
 
 /** A plot with its site, neighbours and history, for its own page. */
-export async function getPlotDetail(db: Db, plotId: number): Promise<PlotDetail> {
+/**
+ * One plot with its neighbours and history. A coordinator sees the holder and the whole history; anyone
+ * else sees the holder only when it is them, and only the history of the plot itself, without names.
+ */
+export async function getPlotDetail(db: Db, plotId: number, viewer: Viewer): Promise<PlotDetail> {
   const row: (PlotRow & { site_name: string; units: 'metric' | 'us'; path_width_m_site: number }) | undefined = await db(
     'plots as p',
   )
@@ -155,16 +160,18 @@ export async function getPlotDetail(db: Db, plotId: number): Promise<PlotDetail>
   const byId = new Map(siblings.map((s) => [s.id, s]));
   const pairs = neighbours(siblings.map(plotRect), row.path_width_m_site, STORED_LENGTH_EPS).filter((n) => n.a === plotId || n.b === plotId);
   const opposite = { north: 'south', south: 'north', east: 'west', west: 'east' } as const;
+  const full = seesPeople(viewer);
+  const history = await listPlotEvents(db, plotId);
   return {
     ...toPlot(row),
     siteName: row.site_name,
     units: row.units,
-    holder: holder ? { userId: holder.id, name: holder.name, season: holder.year } : null,
+    holder: holder && (full || holder.id === viewer.userId) ? { userId: holder.id, name: holder.name, season: holder.year } : null,
     neighbours: pairs.map((n) => {
       const otherId = (n.a === plotId ? n.b : n.a) as number;
       const other = byId.get(otherId)!;
       return { plotId: otherId, label: other.label, kind: n.kind, side: n.a === plotId ? n.side : opposite[n.side], gap: n.gap };
     }),
-    history: await listPlotEvents(db, plotId),
+    history: full ? history : history.filter((e) => physicalPlotEvents.has(e.kind)).map((e) => ({ ...e, byName: null })),
   };
 }

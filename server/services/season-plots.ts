@@ -1,9 +1,13 @@
 import type { Knex } from 'knex';
 import type { PlotSeasonState } from '@shared/schemas/seasons';
 import type { Db } from '../db/knex';
+import { seesPeople, type Viewer } from './visibility';
 
-/** Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free. */
-export async function seasonPlotStates(db: Db, seasonId: number, siteId: number): Promise<PlotSeasonState[]> {
+/**
+ * Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free.
+ * A coordinator sees who; anyone else sees free or taken, and names only on their own holding or renewal.
+ */
+export async function seasonPlotStates(db: Db, seasonId: number, siteId: number, viewer: Viewer): Promise<PlotSeasonState[]> {
   const plots = await db('plots').where({ site_id: siteId }).whereNull('deleted_at').select('id');
   const holders = await db('allocations as a')
     .join('users as u', 'u.id', 'a.user_id')
@@ -16,15 +20,27 @@ export async function seasonPlotStates(db: Db, seasonId: number, siteId: number)
   const renewals = await db('renewals as r')
     .join('users as u', 'u.id', 'r.user_id')
     .where({ 'r.season_id': seasonId, 'r.status': 'pending' })
-    .select('r.id', 'r.plot_id', 'r.deadline', 'u.name');
+    .select('r.id', 'r.plot_id', 'r.deadline', 'u.id as user_id', 'u.name');
   const byPlot = <T extends { plot_id: number }>(rows: T[]) => new Map(rows.map((r) => [r.plot_id, r]));
   const h = byPlot(holders);
   const o = byPlot(offers);
   const r = byPlot(renewals);
-  return plots.map(({ id }) => {
+  const full = seesPeople(viewer);
+  return plots.map(({ id }): PlotSeasonState => {
     const holder = h.get(id);
     const offer = o.get(id);
     const renewal = r.get(id);
+    if (!full) {
+      const ownHolding = holder?.user_id === viewer.userId;
+      const ownRenewal = !holder && !offer && renewal?.user_id === viewer.userId;
+      return {
+        plotId: id,
+        status: ownRenewal ? 'renewal_pending' : holder || offer || renewal ? 'taken' : 'free',
+        holder: ownHolding ? { userId: holder.user_id, name: holder.name } : null,
+        offer: null,
+        renewal: ownRenewal ? { id: renewal.id, name: renewal.name, deadline: new Date(renewal.deadline).toISOString() } : null,
+      };
+    }
     return {
       plotId: id,
       status: holder ? 'taken' : offer ? 'offered' : renewal ? 'renewal_pending' : 'free',

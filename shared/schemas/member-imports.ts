@@ -39,11 +39,14 @@ export type MemberImportBody = z.infer<typeof MemberImportBodySchema>;
 export const ImportProblemSchema = z.object({ row: z.number().int(), field: z.string(), message: z.string() });
 export type ImportProblem = z.infer<typeof ImportProblemSchema>;
 
-export const memberImportOutcomes = ['new_account', 'existing_account', 'member'] as const;
+/**
+ * What an import does with a row. "joins" reads the same whether or not the address already has an
+ * account, so the preview tells nobody who uses Tillwell elsewhere.
+ */
+export const memberImportOutcomes = ['joins', 'member'] as const;
 export const memberImportOutcomeLabels: Record<(typeof memberImportOutcomes)[number], string> = {
-  new_account: 'New person',
-  existing_account: 'Has an account; joins the club',
-  member: 'Already a member; roles added',
+  joins: 'Joins the club (anyone already on Tillwell gets an invitation to accept instead)',
+  member: 'Already a member; new roles only by an invitation they accept',
 };
 
 /** A members row as the import reads it. */
@@ -51,11 +54,14 @@ export const ImportedMemberSchema = z.object({
   name: z.string(),
   email: z.string(),
   roles: z.array(RoleSchema),
-  /** An invitation goes out after the import (asked for, and the person has no password yet). */
+  /**
+   * An invitation goes out after the import: asked for, or a member is given new roles. Anyone whose
+   * address already has an account is invited too (not shown here, so the preview reveals nothing).
+   */
   sendInvite: z.boolean(),
-  /** They can already sign in, so no invitation is needed. */
+  /** A member of this club who can already sign in (always false for people joining). */
   hasPassword: z.boolean(),
-  /** What the import does with them: a new account, club roles for an existing account, or roles added to a member. */
+  /** What the import does with them: joins the club, or a member of it already. */
   outcome: z.enum(memberImportOutcomes),
 });
 export type ImportedMember = z.infer<typeof ImportedMemberSchema>;

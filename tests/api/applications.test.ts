@@ -111,19 +111,32 @@ describe('the public application form', () => {
     expect(await listMail(mailUrl(), { to: 'bot@example.org' })).toEqual([]);
   });
 
-  it('refuses a second live application with the same address (any case) with 409 on the e-mail field', async () => {
-    const club = await buildClub(t.db, { slug: 'elm-row' });
+  it('answers a second live application with the same address (any case) exactly as a new one, and tells the address by e-mail', async () => {
+    const club = await buildClub(t.db, { name: 'Elm Row Growers', slug: 'elm-row' });
     const visitor = await browserLikeAgent(t.app);
+    await buildApplication(t.db, { clubId: club.id, appliedAt: new Date(Date.now() - 9 * DAY) });
     expect((await visitor.post('/api/apply/elm-row', application())).status).toBe(201);
-    const again = await visitor.post('/api/apply/elm-row', application({ email: 'HANA@example.org', name: 'Hana O.' }));
-    expect(again.status).toBe(409);
-    expect(again.body.error.code).toBe('conflict');
-    expect(Object.keys(again.body.error.fields)).toEqual(['email']);
-    expect(await t.db('applications').where({ club_id: club.id }).count({ n: '*' })).toEqual([{ n: 1 }]);
+    await buildApplication(t.db, { clubId: club.id });
+
+    // A stranger's address and Hana's, each sent now: the answers must not tell them apart.
+    const since = Date.now();
+    const fresh = await visitor.post('/api/apply/elm-row', application({ email: 'someone.new@example.org', name: 'Sam New' }));
+    await t.db('applications').where({ email: 'someone.new@example.org' }).delete();
+    const again = await visitor.post('/api/apply/elm-row', application({ email: 'HANA@example.org', name: 'Sam New' }));
+    expect(again.status).toBe(fresh.status);
+    expect(again.status).toBe(201);
+    expect(again.body).toEqual({ ...fresh.body, message: fresh.body.message.replace('someone.new@example.org', 'hana@example.org') });
+    expect(await t.db('applications').where({ club_id: club.id }).count({ n: '*' })).toEqual([{ n: 3 }]);
+
+    const mail = await waitForMail(mailUrl(), { to: 'hana@example.org', subject: 'already on the', after: since });
+    expect(mail.subject).toBe("You're already on the Elm Row Growers waitlist: number 2");
+    expect(mail.text).toContain('Hello Hana Okoro,');
+    expect(mail.text).toContain('your earlier application and its date stand');
 
     // Once removed, the same person may apply again: only live applications count.
-    await t.db('applications').where({ club_id: club.id }).update({ status: 'removed' });
+    await t.db('applications').where({ club_id: club.id, email: 'hana@example.org' }).update({ status: 'removed' });
     expect((await visitor.post('/api/apply/elm-row', application())).status).toBe(201);
+    expect(await t.db('applications').where({ club_id: club.id, status: 'waiting' }).count({ n: '*' })).toEqual([{ n: 3 }]);
   });
 
   it('answers bad input with 400 naming each field, including unknown fields and another club\'s site', async () => {

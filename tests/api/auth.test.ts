@@ -35,10 +35,14 @@ describe('sign-in and sessions', () => {
 
   it('gives a new session id at sign-in (no fixation)', async () => {
     const person = await buildUser(t.db);
+    const other = await buildUser(t.db);
     const c = await browserLikeAgent(t.app);
+    // Anonymous visitors have no stored session; the first sign-in makes one.
+    expect(await t.db('session').pluck('sid')).toHaveLength(0);
+    await c.signIn(person.email, person.password!);
     const before = await t.db('session').pluck('sid');
     expect(before).toHaveLength(1);
-    await c.signIn(person.email, person.password!);
+    await c.signIn(other.email, other.password!);
     const after = await t.db('session').pluck('sid');
     expect(after).toHaveLength(1);
     expect(after[0]).not.toBe(before[0]);
@@ -83,7 +87,7 @@ describe('sign-in and sessions', () => {
   });
 
   it('rate-limits repeated sign-in attempts with 429', async () => {
-    const limited = setupTestApp({ AUTH_RATE_LIMIT: '3' });
+    const limited = setupTestApp({ SIGNIN_MAX_FAILURES_PER_ADDRESS: '3' });
     try {
       const c = await browserLikeAgent(limited.app);
       const statuses: number[] = [];

@@ -264,6 +264,7 @@ function paramValue(name: string, x: Fixture): string | null {
     feeId: x.feeId,
     applicationId: x.applicationId,
     offerId: 1,
+    messageId: 1,
     clubSlug: x.slug,
   };
   return name in known ? String(known[name]) : null;

@@ -6,7 +6,7 @@ import { memberCsvColumns, waitlistCsvColumns } from '@shared/schemas/member-imp
 import { buildApplication, buildClub, buildMember, buildUser } from '../factories';
 import { addSite, signedInMember, type Agent } from '../helpers/api';
 import { browserLikeAgent, mailUrl, setupTestApp, truncateAll } from '../helpers/app';
-import { extractLink, listMail, waitForMail } from '../helpers/inbox';
+import { extractLink, waitForMail } from '../helpers/inbox';
 
 const t = setupTestApp();
 afterAll(() => t.close());
@@ -69,7 +69,7 @@ describe('members import', () => {
       roles: ['plot_holder'],
       sendInvite: false,
       hasPassword: false,
-      outcome: 'new_account',
+      outcome: 'joins',
     });
 
     const commit = await importCsv(c, club.id, 'members', csv, true);
@@ -110,7 +110,7 @@ describe('members import', () => {
     ]);
   });
 
-  it('adds new people without a password, gives existing ones their roles, and invites those who ask', async () => {
+  it('gives roles only to accounts it creates: an existing account or a member given new roles gets an invitation to accept', async () => {
     const club = await buildClub(t.db, { name: 'Elm Row Growers' });
     const c = await signedIn(club.id, ['coordinator']);
     const member = await buildMember(t.db, { clubId: club.id, roles: ['volunteer'], user: { email: 'kit@example.org' } });
@@ -119,29 +119,37 @@ describe('members import', () => {
       'name,email,roles,send_invite',
       'Rosa Field,rosa@example.org,plot_holder,yes',
       'Kit Member,kit@example.org,plot_holder;volunteer,no',
-      'Lee Account,lee@example.org,volunteer,yes',
+      'Lee Account,lee@example.org,coordinator;volunteer,yes',
+      'Noor New,noor@example.org,coordinator;volunteer,yes',
     ].join('\n');
     const preview = await importCsv(c, club.id, 'members', csv);
     expect(preview.body.errors).toEqual([]);
-    expect(preview.body.rows.map((r: { member: { outcome: string; sendInvite: boolean } }) => [r.member.outcome, r.member.sendInvite])).toEqual([
-      ['new_account', true],
-      ['member', false],
-      ['existing_account', false], // Lee can already sign in, so no invitation is needed
+    const shown = preview.body.rows.map((r: { member: { outcome: string; sendInvite: boolean } }) => [r.member.outcome, r.member.sendInvite]);
+    expect(shown).toEqual([
+      ['joins', true],
+      ['member', true], // Kit is given a new role: only by an invitation
+      ['joins', true],
+      ['joins', true],
     ]);
+    // An address with an account and one without read the same, apart from the name and address.
+    const strip = (m: Record<string, unknown>) => ({ ...m, name: '', email: '' });
+    expect(strip(preview.body.rows[2].member)).toEqual(strip(preview.body.rows[3].member));
 
     const after = Date.now();
     const res = await importCsv(c, club.id, 'members', csv, true);
     expect(res.status).toBe(201);
     expect(res.body.committed).toBe(true);
-    expect(res.body.counts).toEqual({ imported: 3, newAccounts: 1, invitesSent: 1, invitesFailed: 0 });
+    expect(res.body.counts).toEqual({ imported: 4, newAccounts: 2, invitesSent: 4, invitesFailed: 0 });
 
     const rosa = await t.db('users').where({ email: 'rosa@example.org' }).first();
+    const noor = await t.db('users').where({ email: 'noor@example.org' }).first();
     expect(rosa).toMatchObject({ name: 'Rosa Field', password_hash: null });
     const rolesOf = async (userId: number) =>
       (await t.db('memberships').where({ club_id: club.id, user_id: userId }).orderBy('role').pluck('role')) as string[];
     expect(await rolesOf(rosa.id)).toEqual(['plot_holder']);
-    expect(await rolesOf(member.id)).toEqual(['plot_holder', 'volunteer']);
-    expect(await rolesOf(elsewhere.id)).toEqual(['volunteer']);
+    expect(await rolesOf(noor.id)).toEqual(['coordinator', 'volunteer']);
+    expect(await rolesOf(member.id)).toEqual(['volunteer']);
+    expect(await rolesOf(elsewhere.id)).toEqual([]);
     expect(await t.db('users').where({ id: elsewhere.id }).first('name')).toEqual({ name: 'Test Person' });
 
     // The invitation works: Rosa sets a password and signs in.
@@ -152,7 +160,14 @@ describe('members import', () => {
     const accepted = await rosaAgent.post('/api/invites/accept', { token, name: 'Rosa Field', password: 'a-long-garden-password' });
     expect(accepted.status).toBe(200);
     expect(accepted.body.user.clubs[0]).toMatchObject({ clubId: club.id, roles: ['plot_holder'] });
-    expect(await listMail(mailUrl(), { to: 'lee@example.org' })).toEqual([]);
+
+    // Lee holds the roles only after accepting with his own password; Kit's invitation is for the new role.
+    const leeMail = await waitForMail(mailUrl(), { to: 'lee@example.org', subject: 'invited', after });
+    const leeToken = new URL(extractLink(leeMail, '/invite')).searchParams.get('token')!;
+    const lee = await browserLikeAgent(t.app);
+    expect((await lee.post('/api/invites/accept', { token: leeToken, name: 'Lee', password: elsewhere.password })).status).toBe(200);
+    expect(await rolesOf(elsewhere.id)).toEqual(['coordinator', 'volunteer']);
+    expect(await t.db('invites').where({ email: 'kit@example.org' }).pluck('roles')).toEqual([['plot_holder']]);
   });
 });
 
@@ -279,7 +294,9 @@ describe('exports', () => {
     const imported = await importCsv(c, to.id, 'members', members, true);
     expect(imported.status).toBe(201);
     const roles = await t.db('memberships as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.club_id': to.id, 'u.email': 'pat@example.org' }).orderBy('role').pluck('role');
-    expect(roles).toEqual(['plot_holder', 'volunteer']);
+    // Pat has an account (in the first club), so the second club invites Pat rather than granting roles.
+    expect(roles).toEqual([]);
+    expect(await t.db('invites').where({ club_id: to.id, email: 'pat@example.org' }).pluck('roles')).toEqual([['plot_holder', 'volunteer']]);
   });
 
   it('exports allocations by year, with just the header when there are none', async () => {

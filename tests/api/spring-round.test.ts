@@ -351,7 +351,7 @@ describe('guarantees and guards', () => {
     const bad = await agent.post(`/api/seasons/${season.id}/offers`, { plotId: 'A-1', applicationId: app });
     expect(bad.status).toBe(400);
     // zod's own message for a number given as text (the schema sets none).
-    expect(bad.body.error.fields).toEqual({ plotId: 'Invalid input: expected number, received string' });
+    expect(bad.body.error.fields).toEqual({ plotId: 'Must be a whole number from 1 to 2147483647' });
     expect(await t.db('offers').count()).toEqual([{ count: 0 }]);
   });
 });

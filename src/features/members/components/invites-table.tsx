@@ -1,10 +1,12 @@
+import { useMemo } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Invite } from '@shared/schemas/auth';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDate } from '@/lib/format';
+import { InviteActions } from './member-actions';
 import { RoleBadges, rolesText } from './role-badges';
 
-const columns: ColumnDef<Invite>[] = [
+const baseColumns: ColumnDef<Invite>[] = [
   {
     id: 'email',
     header: 'E-mail',
@@ -33,7 +35,20 @@ const columns: ColumnDef<Invite>[] = [
 ];
 
 /** Invites sent but not yet accepted. */
-export function InvitesTable({ invites }: { invites: Invite[] }) {
+export function InvitesTable({ clubId, invites }: { clubId: number; invites: Invite[] }) {
+  const columns = useMemo<ColumnDef<Invite>[]>(
+    () => [
+      ...baseColumns,
+      {
+        id: 'actions',
+        header: 'Actions',
+        enableSorting: false,
+        enableGlobalFilter: false,
+        cell: ({ row }) => <InviteActions clubId={clubId} invite={row.original} />,
+      },
+    ],
+    [clubId],
+  );
   return (
     <DataTable
       data={invites}

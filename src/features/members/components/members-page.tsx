@@ -65,7 +65,7 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
           ) : (
             <>
               <PartialNote shown={members.data.items.length} total={members.data.total} noun="members" />
-              <MembersTable members={members.data.items} />
+              <MembersTable clubId={clubId} members={members.data.items} />
             </>
           )}
         </PageSection>
@@ -89,7 +89,7 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
             ) : (
               <>
                 <PartialNote shown={invites.data.items.length} total={invites.data.total} noun="invites" />
-                <InvitesTable invites={invites.data.items} />
+                <InvitesTable clubId={clubId} invites={invites.data.items} />
               </>
             )}
           </PageSection>

@@ -1,10 +1,12 @@
+import { useMemo } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Member } from '@shared/schemas/auth';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDate } from '@/lib/format';
+import { MemberActions } from './member-actions';
 import { RoleBadges, rolesText } from './role-badges';
 
-const columns: ColumnDef<Member>[] = [
+const baseColumns: ColumnDef<Member>[] = [
   {
     id: 'name',
     header: 'Name',
@@ -34,7 +36,20 @@ const columns: ColumnDef<Member>[] = [
 ];
 
 /** Everyone in the club: sortable, filterable and paged. */
-export function MembersTable({ members }: { members: Member[] }) {
+export function MembersTable({ clubId, members }: { clubId: number; members: Member[] }) {
+  const columns = useMemo<ColumnDef<Member>[]>(
+    () => [
+      ...baseColumns,
+      {
+        id: 'actions',
+        header: 'Actions',
+        enableSorting: false,
+        enableGlobalFilter: false,
+        cell: ({ row }) => <MemberActions clubId={clubId} member={row.original} />,
+      },
+    ],
+    [clubId],
+  );
   return (
     <DataTable
       data={members}
