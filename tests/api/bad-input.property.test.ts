@@ -265,6 +265,10 @@ function paramValue(name: string, x: Fixture): string | null {
     applicationId: x.applicationId,
     offerId: 1,
     messageId: 1,
+    // Records that do not exist: the destructive member and invite routes then answer 404, never 5xx.
+    inviteId: 999999,
+    userId: 999999,
+    role: 'volunteer',
     clubSlug: x.slug,
   };
   return name in known ? String(known[name]) : null;
