@@ -42,7 +42,7 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
 
   router.get('/:seasonId/plot-states', member, async (req, res) => {
     const { siteId } = parseInput(PlotStatesQuerySchema, req.query);
-    const site = await db('sites').where({ id: siteId, club_id: req.clubId }).first('id');
+    const site = await db('sites').where({ id: siteId, club_id: req.clubId }).whereNull('archived_at').first('id');
     if (!site) return res.json({ items: [], page: 1, total: 0 });
     const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId);
     res.json({ items, page: 1, total: items.length });

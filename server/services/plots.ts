@@ -14,6 +14,7 @@ export async function clubOfPlot(db: Db, plotId: number): Promise<number | null>
     .join('sites as s', 's.id', 'p.site_id')
     .where('p.id', plotId)
     .whereNull('p.deleted_at')
+    .whereNull('s.archived_at')
     .first('s.club_id');
   return row ? row.club_id : null;
 }
