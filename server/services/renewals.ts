@@ -3,6 +3,7 @@ import type { LinkPreview } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
 import { createFeeForAllocation, quotePlotFee } from './fees';
 import { plotFacts } from './link-preview';
+import { plotStillThere } from './offers';
 import { recordPlotEvent } from './plot-events';
 import { hashToken } from './tokens';
 
@@ -46,6 +47,9 @@ export async function keepPlot(db: Knex, opts: { token: string; now?: Date }) {
   return db.transaction(async (trx) => {
     const r = await findRenewal(trx, opts.token, true);
     assertOpen(r, now);
+    if (!(await plotStillThere(trx, r.plot_id))) {
+      throw new AppError('gone', 'The club has taken this plot off its map, so it cannot be kept for the new season. Please ask your coordinator about another plot.');
+    }
     await trx('renewals').where({ id: r.id }).update({ status: 'kept', answered_at: now });
     const [allocation] = await trx('allocations')
       .insert({ season_id: r.season_id, plot_id: r.plot_id, user_id: r.user_id, source: 'renewal' })

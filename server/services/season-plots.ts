@@ -2,8 +2,11 @@ import type { Knex } from 'knex';
 import type { PlotSeasonState } from '@shared/schemas/seasons';
 import type { Db } from '../db/knex';
 
-/** Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free. */
-export async function seasonPlotStates(db: Db, seasonId: number, siteId: number): Promise<PlotSeasonState[]> {
+/**
+ * Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free.
+ * An offer or renewal past its deadline at `now` has lapsed, whether or not the sweep has run.
+ */
+export async function seasonPlotStates(db: Db, seasonId: number, siteId: number, now: Date = new Date()): Promise<PlotSeasonState[]> {
   const plots = await db('plots').where({ site_id: siteId }).whereNull('deleted_at').select('id');
   const holders = await db('allocations as a')
     .join('users as u', 'u.id', 'a.user_id')
@@ -12,10 +15,12 @@ export async function seasonPlotStates(db: Db, seasonId: number, siteId: number)
   const offers = await db('offers as o')
     .join('applications as ap', 'ap.id', 'o.application_id')
     .where({ 'o.season_id': seasonId, 'o.status': 'pending' })
+    .where('o.deadline', '>', now)
     .select('o.id', 'o.plot_id', 'o.application_id', 'o.deadline', 'ap.name');
   const renewals = await db('renewals as r')
     .join('users as u', 'u.id', 'r.user_id')
     .where({ 'r.season_id': seasonId, 'r.status': 'pending' })
+    .where('r.deadline', '>', now)
     .select('r.id', 'r.plot_id', 'r.deadline', 'u.name');
   const byPlot = <T extends { plot_id: number }>(rows: T[]) => new Map(rows.map((r) => [r.plot_id, r]));
   const h = byPlot(holders);
@@ -38,7 +43,7 @@ export async function seasonPlotStates(db: Db, seasonId: number, siteId: number)
 }
 
 /** Refuses, with a 409-worthy message, a plot that is not free in the season (call with the plot row locked). */
-export async function plotBlocker(trx: Knex.Transaction, seasonId: number, plotId: number): Promise<string | null> {
+export async function plotBlocker(trx: Knex.Transaction, seasonId: number, plotId: number, now: Date = new Date()): Promise<string | null> {
   const taken = await trx('allocations as a')
     .join('users as u', 'u.id', 'a.user_id')
     .where({ 'a.season_id': seasonId, 'a.plot_id': plotId, 'a.status': 'active' })
@@ -47,11 +52,13 @@ export async function plotBlocker(trx: Knex.Transaction, seasonId: number, plotI
   const offered = await trx('offers as o')
     .join('applications as ap', 'ap.id', 'o.application_id')
     .where({ 'o.season_id': seasonId, 'o.plot_id': plotId, 'o.status': 'pending' })
+    .where('o.deadline', '>', now)
     .first('ap.name');
   if (offered) return `it is already offered to ${offered.name}`;
   const renewing = await trx('renewals as r')
     .join('users as u', 'u.id', 'r.user_id')
     .where({ 'r.season_id': seasonId, 'r.plot_id': plotId, 'r.status': 'pending' })
+    .where('r.deadline', '>', now)
     .first('u.name');
   if (renewing) return `${renewing.name} has not yet answered the renewal for it`;
   return null;

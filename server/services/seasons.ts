@@ -13,13 +13,22 @@ export async function clubOfSeason(db: Db, seasonId: number): Promise<number | n
   return row ? row.club_id : null;
 }
 
-async function withCounts(db: Db, rows: Array<{ id: number; club_id: number; year: number; renewal_deadline: Date | null; created_at: Date }>): Promise<Season[]> {
+async function withCounts(
+  db: Db,
+  rows: Array<{ id: number; club_id: number; year: number; renewal_deadline: Date | null; created_at: Date }>,
+  now: Date = new Date(),
+): Promise<Season[]> {
   const ids = rows.map((r) => r.id);
-  const renewals = await db('renewals').whereIn('season_id', ids).groupBy('season_id', 'status').select('season_id', 'status').count({ n: '*' });
-  const offers = await db('offers').whereIn('season_id', ids).where({ status: 'pending' }).groupBy('season_id').select('season_id').count({ n: '*' });
+  // A renewal still pending past its deadline counts as lapsed, swept or not.
+  const renewals = await db('renewals')
+    .whereIn('season_id', ids)
+    .groupBy('season_id', 'shown_status')
+    .select('season_id', db.raw("case when status = 'pending' and deadline <= ? then 'lapsed' else status end as shown_status", [now]))
+    .count({ n: '*' });
+  const offers = await db('offers').whereIn('season_id', ids).where({ status: 'pending' }).where('deadline', '>', now).groupBy('season_id').select('season_id').count({ n: '*' });
   const taken = await db('allocations').whereIn('season_id', ids).where({ status: 'active' }).groupBy('season_id').select('season_id').count({ n: '*' });
   const pick = (list: Array<Record<string, unknown>>, id: number, status?: string) =>
-    Number(list.find((r) => r.season_id === id && (status === undefined || r.status === status))?.n ?? 0);
+    Number(list.find((r) => r.season_id === id && (status === undefined || r.shown_status === status))?.n ?? 0);
   return rows.map((r) => ({
     id: r.id,
     clubId: r.club_id,
@@ -60,8 +69,9 @@ async function previousHolders(trx: Knex.Transaction, clubId: number, year: numb
     .join('sites as s', 's.id', 'p.site_id')
     .leftJoin('fees as f', 'f.allocation_id', 'a.id')
     .where({ 'a.season_id': prev.id, 'a.status': 'active' })
-    .whereNull('p.deleted_at')
     .select(
+      'p.deleted_at as plot_removed_at',
+      's.archived_at as site_archived_at',
       'a.id as allocation_id',
       'a.plot_id',
       'u.id as user_id',
@@ -99,6 +109,15 @@ export async function openSeason(
       .insert({ club_id: opts.clubId, year: opts.year, renewal_deadline: opts.renewalDeadline, opened_by_user_id: opts.userId })
       .returning('*');
     for (const h of await previousHolders(trx, opts.clubId, opts.year)) {
+      // A holder whose plot has left the map gets no renewal, and the coordinator is told why.
+      if (h.plot_removed_at || h.site_archived_at) {
+        notRenewed.push({
+          name: h.name,
+          plotLabel: h.label,
+          reason: h.plot_removed_at ? 'The plot was removed from the map' : `The site ${h.site_name} is archived`,
+        });
+        continue;
+      }
       if (h.owed > 0) {
         notRenewed.push({ name: h.name, plotLabel: h.label, reason: 'Last season’s fee is not fully paid' });
         await recordPlotEvent(trx, {
