@@ -4,6 +4,7 @@ import { OfferCreateBodySchema, SeasonCreateBodySchema } from '@shared/schemas/s
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
+import { idempotent } from '../middleware/idempotency';
 import { createOffer } from '../services/offers';
 import { seasonPlotStates } from '../services/season-plots';
 import { clubOfSeason, getSeason, listSeasons, openSeason } from '../services/seasons';
@@ -16,7 +17,7 @@ export function clubSeasonsRouter({ db, mailer, config }: Deps): Router {
   router.get('/', requireClubRole(db), async (req, res) => {
     res.json(await listSeasons(db, req.clubId!));
   });
-  router.post('/', requireClubRole(db, 'coordinator'), async (req, res) => {
+  router.post('/', requireClubRole(db, 'coordinator'), idempotent(db), async (req, res) => {
     const body = parseInput(SeasonCreateBodySchema, req.body);
     const result = await openSeason(db, mailer, {
       clubId: req.clubId!,
@@ -48,7 +49,7 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
     res.json({ items, page: 1, total: items.length });
   });
 
-  router.post('/:seasonId/offers', coordinator, async (req, res) => {
+  router.post('/:seasonId/offers', coordinator, idempotent(db), async (req, res) => {
     const body = parseInput(OfferCreateBodySchema, req.body);
     const offer = await createOffer(db, mailer, {
       seasonId: Number(req.params.seasonId),
