@@ -23,7 +23,7 @@ export function clubSeasonsRouter({ db, mailer, config }: Deps): Router {
       clubId: req.clubId!,
       userId: req.session.userId!,
       year: body.year,
-      renewalDeadline: new Date(body.renewalDeadline),
+      renewalDeadline: body.renewalDeadline ? new Date(body.renewalDeadline) : undefined,
       publicUrl: config.publicUrl,
     });
     res.status(201).json(result);

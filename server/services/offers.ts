@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { addCalendarDays, endOfLocalDay, formatDate, localToday } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
 import type { LinkPreview, Offer } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
@@ -12,8 +13,6 @@ import { createPasswordLink } from './password-resets';
 import { recordPlotEvent } from './plot-events';
 import { plotBlocker } from './season-plots';
 import { hashToken, newToken } from './tokens';
-
-const DAY = 24 * 60 * 60 * 1000;
 
 function toOffer(r: { id: number; season_id: number; plot_id: number; application_id: number; status: Offer['status']; deadline: Date; created_at: Date }): Offer {
   return {
@@ -46,7 +45,7 @@ export async function createOffer(
   let mail: Parameters<typeof offerMail>[0] | null = null;
   const offer = await db
     .transaction(async (trx) => {
-      const season = await trx('seasons as s').join('clubs as c', 'c.id', 's.club_id').where('s.id', opts.seasonId).first('s.*', 'c.name as club_name', 'c.offer_days', 'c.allow_multiple_offers', 'c.currency');
+      const season = await trx('seasons as s').join('clubs as c', 'c.id', 's.club_id').where('s.id', opts.seasonId).first('s.*', 'c.name as club_name', 'c.offer_days', 'c.allow_multiple_offers', 'c.currency', 'c.time_zone');
       if (!season) throw notFound('The season');
       const plot = await trx('plots as p')
         .join('sites as st', 'st.id', 'p.site_id')
@@ -81,7 +80,8 @@ export async function createOffer(
             : `${app.name} is no longer waiting (${app.status}).`,
         );
       }
-      const deadline = opts.deadline ?? new Date(now.getTime() + season.offer_days * DAY);
+      // By default the offer stays open to the end of the club's day, offer_days from today.
+      const deadline = opts.deadline ?? endOfLocalDay(addCalendarDays(localToday(season.time_zone, now), season.offer_days), season.time_zone);
       if (deadline <= now) throw new AppError('validation_failed', 'The deadline must be in the future.', { deadline: 'Choose a later date' });
       const { token, hash } = newToken();
       const [row] = await trx('offers')
@@ -100,7 +100,7 @@ export async function createOffer(
         plotId: plot.id,
         userId: opts.userId,
         kind: 'offered',
-        details: { summary: `Offered to ${app.name} for ${season.year}, answer by ${deadline.toISOString().slice(0, 10)}` },
+        details: { summary: `Offered to ${app.name} for ${season.year}, answer by ${formatDate(deadline, season.time_zone)}` },
       });
       const quote = await quotePlotFee(trx, season.club_id, plot.id);
       const facts = await plotFacts(trx, plot.id);
@@ -115,6 +115,7 @@ export async function createOffer(
         fee: `${formatMoney(quote.plotFeeMinor, quote.currency)} plus a refundable deposit of ${formatMoney(quote.depositMinor, quote.currency)}`,
         url: `${opts.publicUrl}/respond/offer?token=${encodeURIComponent(token)}`,
         deadline,
+        timeZone: season.time_zone,
       };
       return toOffer(row);
     })
@@ -138,7 +139,7 @@ async function findOffer(db: Knex | Knex.Transaction, token: string, lock = fals
     .join('seasons as s', 's.id', 'o.season_id')
     .join('clubs as c', 'c.id', 's.club_id')
     .where('o.token_hash', hashToken(token))
-    .first('o.*', 'a.name', 'a.email', 'a.user_id', 's.year', 's.club_id', 'c.name as club_name', 'c.declined_offer_policy');
+    .first('o.*', 'a.name', 'a.email', 'a.user_id', 's.year', 's.club_id', 'c.name as club_name', 'c.declined_offer_policy', 'c.time_zone');
   if (lock) q.forUpdate('o');
   const row = await q;
   if (!row) throw notFound('That offer link');
@@ -243,6 +244,7 @@ export async function previewOffer(db: Knex, token: string): Promise<LinkPreview
     year: o.year,
     plot: await plotFacts(db, o.plot_id),
     deadline: o.deadline.toISOString(),
+    timeZone: o.time_zone,
     fee: { plotFeeMinor: quote.plotFeeMinor, depositMinor: quote.depositMinor, currency: quote.currency },
   };
 }
@@ -303,6 +305,7 @@ export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: strin
         year: o.year,
         feeDue: formatMoney(fee.plot_fee_minor + fee.deposit_minor, fee.currency),
         dueOn: fee.due_on,
+        timeZone: o.time_zone,
         passwordUrl,
       }),
       message: `Plot ${facts.label} is yours for ${o.year}. We have sent you an e-mail with what happens next.`,

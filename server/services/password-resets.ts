@@ -20,7 +20,9 @@ export async function requestPasswordReset(
   const expiresAt = new Date(now.getTime() + RESET_TTL_MS);
   await db('password_resets').insert({ user_id: user.id, token_hash: hash, expires_at: expiresAt });
   const url = `${opts.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
-  await mailer.send(passwordResetMail({ to: user.email, name: user.name, url, expiresAt }));
+  // A person belongs to clubs, not to a zone: the time is shown in their first club's zone.
+  const club = await db('memberships as m').join('clubs as c', 'c.id', 'm.club_id').where('m.user_id', user.id).orderBy('m.club_id').first('c.time_zone');
+  await mailer.send(passwordResetMail({ to: user.email, name: user.name, url, expiresAt, timeZone: club?.time_zone ?? 'UTC' }));
 }
 
 /** Sets a new password from a reset link; the link works once and only before it expires. */

@@ -13,7 +13,7 @@ async function findRenewal(db: Knex | Knex.Transaction, token: string, lock = fa
     .join('clubs as c', 'c.id', 's.club_id')
     .join('users as u', 'u.id', 'r.user_id')
     .where('r.token_hash', hashToken(token))
-    .first('r.*', 's.year', 's.club_id', 'c.name as club_name', 'u.name as user_name');
+    .first('r.*', 's.year', 's.club_id', 'c.name as club_name', 'c.time_zone', 'u.name as user_name');
   if (lock) q.forUpdate('r');
   const row = await q;
   if (!row) throw notFound('That renewal link');
@@ -37,6 +37,7 @@ export async function previewRenewal(db: Knex, token: string): Promise<LinkPrevi
     year: r.year,
     plot: await plotFacts(db, r.plot_id),
     deadline: r.deadline.toISOString(),
+    timeZone: r.time_zone,
     fee: { plotFeeMinor: quote.plotFeeMinor, depositMinor: quote.depositMinor, currency: quote.currency },
   };
 }

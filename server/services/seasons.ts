@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { addCalendarDays, endOfLocalDay, formatDate, localToday } from '@shared/dates';
 import type { Season } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
@@ -93,20 +94,23 @@ async function previousHolders(trx: Knex.Transaction, clubId: number, year: numb
 export async function openSeason(
   db: Knex,
   mailer: Mailer,
-  opts: { clubId: number; userId: number; year: number; renewalDeadline: Date; publicUrl: string; now?: Date },
+  opts: { clubId: number; userId: number; year: number; renewalDeadline?: Date; publicUrl: string; now?: Date },
 ) {
   const now = opts.now ?? new Date();
-  if (opts.renewalDeadline <= now) {
+  const club = await db('clubs').where({ id: opts.clubId }).first('name', 'renewal_days', 'time_zone');
+  if (!club) throw notFound('The club');
+  // By default renewals stay open to the end of the club's day, renewal_days from today.
+  const renewalDeadline = opts.renewalDeadline ?? endOfLocalDay(addCalendarDays(localToday(club.time_zone, now), club.renewal_days), club.time_zone);
+  if (renewalDeadline <= now) {
     throw new AppError('validation_failed', 'The renewal deadline must be in the future.', { renewalDeadline: 'Choose a later date' });
   }
-  const club = await db('clubs').where({ id: opts.clubId }).first('name');
   const outgoing: Array<Parameters<typeof renewalMail>[0]> = [];
   const notRenewed: Array<{ name: string; plotLabel: string; reason: string }> = [];
   const season = await db.transaction(async (trx) => {
     const exists = await trx('seasons').where({ club_id: opts.clubId, year: opts.year }).first('id');
     if (exists) throw new AppError('conflict', `The ${opts.year} season is already open.`, { year: 'Already open' });
     const [row] = await trx('seasons')
-      .insert({ club_id: opts.clubId, year: opts.year, renewal_deadline: opts.renewalDeadline, opened_by_user_id: opts.userId })
+      .insert({ club_id: opts.clubId, year: opts.year, renewal_deadline: renewalDeadline, opened_by_user_id: opts.userId })
       .returning('*');
     for (const h of await previousHolders(trx, opts.clubId, opts.year)) {
       // A holder whose plot has left the map gets no renewal, and the coordinator is told why.
@@ -135,13 +139,13 @@ export async function openSeason(
         plot_id: h.plot_id,
         user_id: h.user_id,
         token_hash: hash,
-        deadline: opts.renewalDeadline,
+        deadline: renewalDeadline,
       });
       await recordPlotEvent(trx, {
         plotId: h.plot_id,
         userId: opts.userId,
         kind: 'renewal_sent',
-        details: { summary: `Renewal for ${opts.year} sent to ${h.name}, answer by ${opts.renewalDeadline.toISOString().slice(0, 10)}` },
+        details: { summary: `Renewal for ${opts.year} sent to ${h.name}, answer by ${formatDate(renewalDeadline, club.time_zone)}` },
       });
       outgoing.push({
         to: h.email,
@@ -151,7 +155,8 @@ export async function openSeason(
         plotLabel: h.label,
         siteName: h.site_name,
         url: `${opts.publicUrl}/respond/renewal?token=${encodeURIComponent(token)}`,
-        deadline: opts.renewalDeadline,
+        deadline: renewalDeadline,
+        timeZone: club.time_zone,
       });
     }
     return row;

@@ -46,6 +46,16 @@ export function zoneName(timeZone: string, at: Date): string {
   return tzName(timeZone, at, 'short');
 }
 
+/** Whether `timeZone` is a zone name this runtime knows (IANA names such as "Europe/London", or "UTC"). */
+export function isTimeZone(timeZone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
 /** Today's date in `timeZone` as YYYY-MM-DD. */
 export function localToday(timeZone: string, now: Date = new Date()): string {
   return format(new TZDate(now, timeZone), 'yyyy-MM-dd');

@@ -5,6 +5,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
 import { AllocationMap, type AllocationPerson } from '@/features/plots/components/map/allocation-map';
+import { useClubSettings } from '@/features/club-settings/api/get-club-settings';
 import { useSites } from '@/features/sites/api/get-sites';
 import { useCreateOffer } from '@/features/spring-round/api/create-offer';
 import { usePlotStates } from '@/features/spring-round/api/get-plot-states';
@@ -62,6 +63,7 @@ export function SpringRoundRoute() {
   const { club } = useClubContext();
   const seasons = useSeasons(club.clubId);
   const sites = useSites(club.clubId);
+  const settings = useClubSettings(club.clubId);
   const [params, setParams] = useSearchParams();
 
   if (seasons.isPending || sites.isPending) return <LoadingState label="Loading the spring round…" />;
@@ -123,7 +125,7 @@ export function SpringRoundRoute() {
           Holders of {current ? current.year : 'last season'} whose fees are paid get an e-mail to keep or give up their plot
           by the deadline; plots not kept by then become free.
         </p>
-        <OpenSeasonForm clubId={club.clubId} suggestedYear={nextYear} />
+        <OpenSeasonForm key={settings.data?.renewalDays ?? 'loading'} clubId={club.clubId} suggestedYear={nextYear} renewalDays={settings.data?.renewalDays ?? 14} />
       </section>
     </div>
   );

@@ -1,7 +1,7 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Invite } from '@shared/schemas/auth';
 import { DataTable } from '@/components/ui/data-table';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { RoleBadges, rolesText } from './role-badges';
 
 const columns: ColumnDef<Invite>[] = [
@@ -27,7 +27,7 @@ const columns: ColumnDef<Invite>[] = [
     id: 'expires',
     header: 'Expires',
     accessorFn: (invite) => invite.expiresAt,
-    cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.expiresAt)}</span>,
+    cell: ({ row }) => <span className="whitespace-nowrap"><LocalDate value={row.original.expiresAt} /></span>,
     enableGlobalFilter: false,
   },
 ];

@@ -1,7 +1,7 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Member } from '@shared/schemas/auth';
 import { DataTable } from '@/components/ui/data-table';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { RoleBadges, rolesText } from './role-badges';
 
 const columns: ColumnDef<Member>[] = [
@@ -28,7 +28,7 @@ const columns: ColumnDef<Member>[] = [
     header: 'Joined',
     // ISO strings sort in date order; filtering them would match digits nobody sees, so it is off.
     accessorFn: (member) => member.joinedAt,
-    cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.joinedAt)}</span>,
+    cell: ({ row }) => <span className="whitespace-nowrap"><LocalDate value={row.original.joinedAt} /></span>,
     enableGlobalFilter: false,
   },
 ];
