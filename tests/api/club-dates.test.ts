@@ -91,4 +91,16 @@ describe('dates in the club’s time zone', () => {
     const preview = await (await browserLikeAgent(t.app)).get(`/api/offers/preview?token=${encodeURIComponent(token)}`).expect(200);
     expect(preview.body.timeZone).toBe('America/New_York');
   });
+  it('lets a coordinator set the club’s zone, and refuses one that does not exist', async () => {
+    const { club, coord } = await clubIn('Europe/London');
+    const c = await browserLikeAgent(t.app);
+    await c.signIn(coord.email, coord.password!);
+    const bad = await c.patch(`/api/clubs/${club.id}`, { timeZone: 'Europe/Atlantis' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toEqual({ timeZone: 'Unknown time zone (use a name like Europe/London)' });
+    const ok = await c.patch(`/api/clubs/${club.id}`, { timeZone: 'Europe/Dublin' });
+    expect(ok.status).toBe(200);
+    expect(ok.body.timeZone).toBe('Europe/Dublin');
+    expect((await t.db('clubs').where({ id: club.id }).first('time_zone')).time_zone).toBe('Europe/Dublin');
+  });
 });
