@@ -362,6 +362,8 @@ export async function withdrawOffer(db: Knex, opts: { offerId: number; userId: n
     const o = await trx('offers as o').join('applications as a', 'a.id', 'o.application_id').where('o.id', opts.offerId).forUpdate('o').first('o.*', 'a.name');
     if (!o) throw notFound('The offer');
     if (o.status !== 'pending') throw new AppError('conflict', `This offer has already been ${o.status}.`);
+    // Past its deadline it has lapsed, swept or not; withdrawing would wrongly keep the person's place.
+    if (o.deadline <= now) throw new AppError('conflict', 'This offer has already lapsed at its deadline.');
     await trx('offers').where({ id: o.id }).update({ status: 'withdrawn', answered_at: now });
     await restoreWaiting(trx, o.application_id, now);
     await recordPlotEvent(trx, { plotId: o.plot_id, userId: opts.userId, kind: 'offer_withdrawn', details: { summary: `Offer to ${o.name} withdrawn` } });

@@ -228,4 +228,15 @@ describe('deadlines decide, not the sweep', () => {
     expect(res.status).toBe(409);
     expect(res.body.error.message).toBe('Late Answer is no longer waiting (removed).');
   });
+  it('an overdue offer cannot be withdrawn as if it were still open', async () => {
+    const { club: c, agent, plots } = await club();
+    const season = (await openSeason(agent, c.id, 2027)).season;
+    const appId = await apply(c.id, 'Late Answer', 'late@example.org', 60);
+    const { id } = await offer(agent, season.id, plots[0], appId, 'late@example.org');
+    await t.db('offers').update({ deadline: new Date(Date.now() - 1000) });
+    const res = await agent.post(`/api/offers/${id}/withdraw`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toBe('This offer has already lapsed at its deadline.');
+    expect((await t.db('offers').where({ id }).first('status')).status).toBe('pending');
+  });
 });
