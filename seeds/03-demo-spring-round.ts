@@ -39,7 +39,7 @@ export async function seed(knex: Knex): Promise<void> {
   await knex('applications').where({ club_id: club.id }).delete();
   await knex('fee_schedules').where({ club_id: club.id }).delete();
 
-  await knex('clubs').where({ id: club.id }).update({ currency: 'GBP', offer_days: 7, renewal_days: 14 });
+  await knex('clubs').where({ id: club.id }).update({ currency: 'GBP', offer_days: 7, renewal_days: 14, time_zone: 'Europe/London' });
   // £2.50 a square metre, half price for concessions, a £15 deposit.
   await knex('fee_schedules').insert({
     club_id: club.id,

@@ -1,6 +1,5 @@
 import type { Knex } from 'knex';
-import { applyDeclinePolicy } from '../services/offers';
-import { recordPlotEvent } from '../services/plot-events';
+import { lapseOffer, lapseRenewal } from '../services/offers';
 
 /**
  * Lapses every open offer and renewal whose deadline has passed at `now`. Rows are claimed
@@ -17,11 +16,7 @@ export async function sweepDeadlines(db: Knex, now: Date): Promise<{ offersLapse
       .forUpdate('o')
       .skipLocked()
       .select('o.id', 'o.plot_id', 'o.application_id', 'a.name', 'c.declined_offer_policy');
-    for (const o of offers) {
-      await trx('offers').where({ id: o.id }).update({ status: 'lapsed', answered_at: now });
-      await applyDeclinePolicy(trx, o, 'lapsed', now);
-      await recordPlotEvent(trx, { plotId: o.plot_id, userId: null, kind: 'offer_lapsed', details: { summary: `Offer to ${o.name} lapsed at its deadline; the plot is free` } });
-    }
+    for (const o of offers) await lapseOffer(trx, o, now);
     const renewals = await trx('renewals as r')
       .join('users as u', 'u.id', 'r.user_id')
       .where('r.status', 'pending')
@@ -29,10 +24,7 @@ export async function sweepDeadlines(db: Knex, now: Date): Promise<{ offersLapse
       .forUpdate('r')
       .skipLocked()
       .select('r.id', 'r.plot_id', 'u.name');
-    for (const r of renewals) {
-      await trx('renewals').where({ id: r.id }).update({ status: 'lapsed', answered_at: now });
-      await recordPlotEvent(trx, { plotId: r.plot_id, userId: null, kind: 'renewal_lapsed', details: { summary: `${r.name} did not answer the renewal in time; the plot is free` } });
-    }
+    for (const r of renewals) await lapseRenewal(trx, r, now);
     return { offersLapsed: offers.length, renewalsLapsed: renewals.length };
   });
 }

@@ -1,13 +1,8 @@
+import { formatDate } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
 import { paymentMethodLabels, type PaymentBody } from '@shared/schemas/fees';
 import { renderMail } from './templates';
 
-const longDate = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
-
-/** "2027-03-14" → "14 March 2027"; calendar dates are read as UTC so no zone shifts the day. */
-function calendarDate(isoDate: string): string {
-  return longDate.format(new Date(`${isoDate}T00:00:00Z`));
-}
 
 /** The receipt a plot holder gets when the coordinator records a payment or hands a deposit back. */
 export function paymentReceiptMail(p: {
@@ -23,7 +18,8 @@ export function paymentReceiptMail(p: {
   const money = (minor: number) => formatMoney(minor, p.currency);
   const amount = money(p.payment.amountMinor);
   const method = paymentMethodLabels[p.payment.method].toLowerCase();
-  const date = calendarDate(p.payment.paidOn);
+  // A calendar date shows as that day in every zone.
+  const date = formatDate(p.payment.paidOn, 'UTC');
   const refund = p.payment.kind === 'refund';
   const owed =
     p.balanceMinor > 0

@@ -1,3 +1,4 @@
+import { formatDate, formatDateTime } from '@shared/dates';
 import type { OutgoingMail } from './mailer';
 
 const escape = (s: string) =>
@@ -40,14 +41,14 @@ ${
 }
 
 /** The e-mail that invites someone to a club. */
-export function inviteMail(p: { to: string; name: string; clubName: string; roles: string[]; url: string; expiresAt: Date }) {
+export function inviteMail(p: { to: string; name: string; clubName: string; roles: string[]; url: string; expiresAt: Date; timeZone: string }) {
   return renderMail({
     to: p.to,
     subject: `You're invited to ${p.clubName} on Tillwell`,
     greeting: `Hello ${p.name},`,
     paragraphs: [
       `The coordinator of ${p.clubName} has invited you to join as ${p.roles.join(', ')}.`,
-      `Follow the link to choose your password. The link works once and expires on ${p.expiresAt.toUTCString()}.`,
+      `Follow the link to choose your password. The link works once and expires on ${formatDateTime(p.expiresAt, p.timeZone)}.`,
     ],
     action: { label: 'Accept the invitation', url: p.url },
     why: `You got this because a coordinator of ${p.clubName} entered your address. If you did not expect it, ignore it.`,
@@ -55,14 +56,14 @@ export function inviteMail(p: { to: string; name: string; clubName: string; role
 }
 
 /** The e-mail with a password reset link. */
-export function passwordResetMail(p: { to: string; name: string; url: string; expiresAt: Date }) {
+export function passwordResetMail(p: { to: string; name: string; url: string; expiresAt: Date; timeZone: string }) {
   return renderMail({
     to: p.to,
     subject: 'Reset your Tillwell password',
     greeting: `Hello ${p.name},`,
     paragraphs: [
       'Someone asked to reset the password of your Tillwell account.',
-      `The link works once and expires on ${p.expiresAt.toUTCString()}. If it was not you, ignore this e-mail: your password stays as it is.`,
+      `The link works once and expires on ${formatDateTime(p.expiresAt, p.timeZone)}. If it was not you, ignore this e-mail: your password stays as it is.`,
     ],
     action: { label: 'Choose a new password', url: p.url },
     why: 'You got this because a password reset was asked for this address on Tillwell.',
@@ -79,14 +80,15 @@ export function renewalMail(p: {
   siteName: string;
   url: string;
   deadline: Date;
+  timeZone: string;
 }) {
   return renderMail({
     to: p.to,
-    subject: `Keep plot ${p.plotLabel} for ${p.year}? Please answer by ${p.deadline.toUTCString().slice(0, 16)}`,
+    subject: `Keep plot ${p.plotLabel} for ${p.year}? Please answer by ${formatDate(p.deadline, p.timeZone)}`,
     greeting: `Hello ${p.name},`,
     paragraphs: [
       `${p.clubName} is opening the ${p.year} season. You held plot ${p.plotLabel} at ${p.siteName} last season and are in good standing, so it is yours to keep.`,
-      `Follow the link to keep it or give it up. If we have no answer by ${p.deadline.toUTCString()}, the plot goes to the next person on the waitlist.`,
+      `Follow the link to keep it or give it up. If we have no answer by ${formatDateTime(p.deadline, p.timeZone)}, the plot goes to the next person on the waitlist.`,
     ],
     action: { label: 'Keep or give up my plot', url: p.url },
     why: `You got this because you held a plot at ${p.clubName} last season. This message is part of the spring round and cannot be switched off.`,
@@ -105,15 +107,16 @@ export function offerMail(p: {
   fee: string;
   url: string;
   deadline: Date;
+  timeZone: string;
 }) {
   return renderMail({
     to: p.to,
-    subject: `A plot for you at ${p.clubName}: ${p.plotLabel} (answer by ${p.deadline.toUTCString().slice(0, 16)})`,
+    subject: `A plot for you at ${p.clubName}: ${p.plotLabel} (answer by ${formatDate(p.deadline, p.timeZone)})`,
     greeting: `Hello ${p.name},`,
     paragraphs: [
       `Good news: plot ${p.plotLabel} at ${p.siteName} (${p.size}) is free for the ${p.year} season and you are next on the waitlist.`,
       `The season's fee would be ${p.fee}.`,
-      `Follow the link to accept or decline. The offer stays open until ${p.deadline.toUTCString()}; after that the plot goes to the next person.`,
+      `Follow the link to accept or decline. The offer stays open until ${formatDateTime(p.deadline, p.timeZone)}; after that the plot goes to the next person.`,
     ],
     action: { label: 'Accept or decline the plot', url: p.url },
     why: `You got this because you are on the waitlist of ${p.clubName}.`,
@@ -130,6 +133,7 @@ export function welcomeHolderMail(p: {
   year: number;
   feeDue: string;
   dueOn: string;
+  timeZone: string;
   passwordUrl: string | null;
 }) {
   return renderMail({
@@ -138,7 +142,7 @@ export function welcomeHolderMail(p: {
     greeting: `Hello ${p.name},`,
     paragraphs: [
       `Welcome to ${p.clubName}. Plot ${p.plotLabel} at ${p.siteName} is yours for the ${p.year} season.`,
-      `Your fee of ${p.feeDue} is due by ${p.dueOn}. The coordinator will tell you how to pay.`,
+      `Your fee of ${p.feeDue} is due by ${formatDate(p.dueOn, p.timeZone)}. The coordinator will tell you how to pay.`,
       ...(p.passwordUrl ? ['To see your plot and keep its plot book, choose a password for your Tillwell account.'] : []),
     ],
     action: p.passwordUrl ? { label: 'Choose my password', url: p.passwordUrl } : undefined,

@@ -3,6 +3,7 @@ import { FeeScheduleSchema, FeesQuerySchema, PaymentBodySchema } from '@shared/s
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia, requireUser } from '../middleware/auth';
+import { idempotent } from '../middleware/idempotency';
 import { getClubSettings } from '../services/clubs';
 import {
   clubOfFee,
@@ -56,7 +57,7 @@ export function feesRouter({ db, mailer }: Deps): Router {
   const router = Router();
   const coordinator = requireRoleVia(db, 'feeId', clubOfFee, 'The fee', 'coordinator');
 
-  router.post('/:feeId/payments', coordinator, async (req, res) => {
+  router.post('/:feeId/payments', coordinator, idempotent(db), async (req, res) => {
     const body = parseInput(PaymentBodySchema, req.body);
     const fee = await recordPayment(db, mailer, {
       feeId: Number(req.params.feeId),

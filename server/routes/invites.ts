@@ -4,6 +4,7 @@ import { InviteAcceptBodySchema, InviteCreateBodySchema, type SessionInfo } from
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole } from '../middleware/auth';
+import { idempotent } from '../middleware/idempotency';
 import { csrfToken } from '../middleware/csrf';
 import { authRateLimit } from '../middleware/rate-limit';
 import { signIn } from '../middleware/session';
@@ -22,7 +23,7 @@ export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
     res.json(await listPendingInvites(db, req.clubId!));
   });
 
-  router.post('/', async (req, res) => {
+  router.post('/', idempotent(db), async (req, res) => {
     const body = parseInput(InviteCreateBodySchema, req.body);
     const invite = await createInvite(db, mailer, {
       clubId: req.clubId!,

@@ -3,6 +3,7 @@ import { MailingCreateBodySchema, MailPreferencesBodySchema } from '@shared/sche
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole } from '../middleware/auth';
+import { idempotent } from '../middleware/idempotency';
 import { getMailPreferences, listMailings, sendMailing, setMailPreferences } from '../services/mailings';
 
 /** Messages from the coordinator to the club (coordinators), mounted at /api/clubs/:clubId/mailings. */
@@ -14,7 +15,7 @@ export function mailingsRouter({ db, mailer, config }: Deps): Router {
     res.json(await listMailings(db, req.clubId!));
   });
 
-  router.post('/', async (req, res) => {
+  router.post('/', idempotent(db), async (req, res) => {
     const body = parseInput(MailingCreateBodySchema, req.body);
     const result = await sendMailing(db, mailer, {
       clubId: req.clubId!,

@@ -7,6 +7,7 @@ import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
 import { leftOutHolders, renewLeftOutHolder } from '../services/late-renewals';
 import { quoteOffer } from '../services/offer-quotes';
+import { idempotent } from '../middleware/idempotency';
 import { createOffer } from '../services/offers';
 import { seasonPlotStates } from '../services/season-plots';
 import { clubOfSeason, getSeason, listSeasons, openSeason } from '../services/seasons';
@@ -19,13 +20,13 @@ export function clubSeasonsRouter({ db, mailer, config }: Deps): Router {
   router.get('/', requireClubRole(db), async (req, res) => {
     res.json(await listSeasons(db, req.clubId!));
   });
-  router.post('/', requireClubRole(db, 'coordinator'), async (req, res) => {
+  router.post('/', requireClubRole(db, 'coordinator'), idempotent(db), async (req, res) => {
     const body = parseInput(SeasonCreateBodySchema, req.body);
     const result = await openSeason(db, mailer, {
       clubId: req.clubId!,
       userId: req.session.userId!,
       year: body.year,
-      renewalDeadline: new Date(body.renewalDeadline),
+      renewalDeadline: body.renewalDeadline ? new Date(body.renewalDeadline) : undefined,
       publicUrl: config.publicUrl,
     });
     res.status(201).json(result);
@@ -45,7 +46,7 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
 
   router.get('/:seasonId/plot-states', member, async (req, res) => {
     const { siteId } = parseInput(PlotStatesQuerySchema, req.query);
-    const site = await db('sites').where({ id: siteId, club_id: req.clubId }).first('id');
+    const site = await db('sites').where({ id: siteId, club_id: req.clubId }).whereNull('archived_at').first('id');
     if (!site) return res.json({ items: [], page: 1, total: 0 });
     const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId, { userId: req.session.userId!, roles: req.clubRoles! });
     res.json({ items, page: 1, total: items.length });
@@ -74,7 +75,7 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
     res.json(await quoteOffer(db, { seasonId: Number(req.params.seasonId), clubId: req.clubId!, ...query }));
   });
 
-  router.post('/:seasonId/offers', coordinator, async (req, res) => {
+  router.post('/:seasonId/offers', coordinator, idempotent(db), async (req, res) => {
     const body = parseInput(OfferCreateBodySchema, req.body);
     const offer = await createOffer(db, mailer, {
       seasonId: Number(req.params.seasonId),

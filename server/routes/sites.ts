@@ -1,11 +1,14 @@
 import { Router } from 'express';
 import { PlotCreateBodySchema } from '@shared/schemas/plots';
-import { SiteCreateBodySchema, SiteUpdateBodySchema } from '@shared/schemas/sites';
+import { z } from 'zod';
+import { SiteArchiveBodySchema, SiteCreateBodySchema, SiteUpdateBodySchema } from '@shared/schemas/sites';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
 import { createPlot, listPlots, siteNeighbours } from '../services/plots';
-import { clubOfSite, createSite, deleteSite, getSite, listSites, updateSite } from '../services/sites';
+import { archiveSite, clubOfSite, createSite, deleteSite, getSite, listSites, updateSite } from '../services/sites';
+
+const DeleteQuerySchema = z.object({ version: z.coerce.number().int().positive() });
 
 /** A club's sites, mounted at /api/clubs/:clubId/sites. */
 export function clubSitesRouter({ db }: Deps): Router {
@@ -24,7 +27,7 @@ export function clubSitesRouter({ db }: Deps): Router {
 }
 
 /** One site and the plots on it, mounted at /api/sites. */
-export function sitesRouter({ db }: Deps): Router {
+export function sitesRouter({ db, config }: Deps): Router {
   const router = Router();
   const member = requireRoleVia(db, 'siteId', clubOfSite, 'The site');
   const coordinator = requireRoleVia(db, 'siteId', clubOfSite, 'The site', 'coordinator');
@@ -38,8 +41,16 @@ export function sitesRouter({ db }: Deps): Router {
     res.json(await updateSite(db, Number(req.params.siteId), body));
   });
 
+  // Deleting is for a site with no records; one with allocations, fees or payments is archived instead.
   router.delete('/:siteId', coordinator, async (req, res) => {
-    await deleteSite(db, Number(req.params.siteId));
+    const { version } = parseInput(DeleteQuerySchema, req.query);
+    await deleteSite(db, { siteId: Number(req.params.siteId), version, uploadDir: config.uploadDir });
+    res.status(204).end();
+  });
+
+  router.post('/:siteId/archive', coordinator, async (req, res) => {
+    const { version } = parseInput(SiteArchiveBodySchema, req.body);
+    await archiveSite(db, { siteId: Number(req.params.siteId), version });
     res.status(204).end();
   });
 

@@ -12,6 +12,7 @@ interface ClubRow {
   renewal_days: number;
   declined_offer_policy: ClubSettings['declinedOfferPolicy'];
   allow_multiple_offers: boolean;
+  time_zone: string;
 }
 
 function toClubSettings(r: ClubRow): ClubSettings {
@@ -24,10 +25,17 @@ function toClubSettings(r: ClubRow): ClubSettings {
     renewalDays: r.renewal_days,
     declinedOfferPolicy: r.declined_offer_policy,
     allowMultipleOffers: r.allow_multiple_offers,
+    timeZone: r.time_zone,
   };
 }
 
-const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers'];
+const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers', 'time_zone'];
+
+/** The club's time zone (IANA name), in which its people see every date and time. */
+export async function clubTimeZone(db: Db, clubId: number): Promise<string> {
+  const row = await db('clubs').where({ id: clubId }).first('time_zone');
+  return (row?.time_zone as string | undefined) ?? 'UTC';
+}
 
 /** A club's name and the spring-round rules it has chosen. */
 export async function getClubSettings(db: Db, clubId: number): Promise<ClubSettings> {
@@ -59,6 +67,7 @@ export async function updateClubSettings(db: Knex, clubId: number, body: ClubSet
       renewal_days: body.renewalDays,
       declined_offer_policy: body.declinedOfferPolicy,
       allow_multiple_offers: body.allowMultipleOffers,
+      time_zone: body.timeZone,
     };
     const set = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined));
     if (Object.keys(set).length > 0) {

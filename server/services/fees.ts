@@ -3,12 +3,14 @@ import Papa from 'papaparse';
 import { area } from '@shared/geometry';
 import { computePlotFee, depositDue, feeBalance, formatMoney } from '@shared/fees/compute';
 import { minorToDecimal } from '@shared/fees/money';
+import { addCalendarDays, localToday } from '@shared/dates';
 import type { Fee, FeeSchedule, FeesList, FeesQuery, MyFee, Payment, PaymentBody } from '@shared/schemas/fees';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { paymentReceiptMail } from '../mail/fee-templates';
 import type { Mailer } from '../mail/mailer';
 import { enqueueMail, kickMail } from './outbox';
+import { clubTimeZone } from './clubs';
 
 interface FeeScheduleRow {
   basis: 'area' | 'kind';
@@ -64,7 +66,8 @@ export async function depositHeld(db: Db, clubId: number, userId: number): Promi
 
 /**
  * Creates the fee due for a new allocation (on accepting an offer or keeping a plot), due in
- * 30 days; inside the caller's transaction. Returns the fee id.
+ * 30 days (counted in the club's calendar, from today where the club is); inside the caller's
+ * transaction. Returns the fee id.
  */
 export async function createFeeForAllocation(
   trx: Knex.Transaction,
@@ -77,7 +80,7 @@ export async function createFeeForAllocation(
     .first('a.id', 'a.season_id', 'a.user_id', 'a.plot_id', 's.club_id', 's.year', 'p.label');
   const quote = await quotePlotFee(trx, a.club_id, a.plot_id, opts.concession ?? false);
   const deposit = depositDue(quote.depositMinor, await depositHeld(trx, a.club_id, a.user_id));
-  const due = new Date((opts.now ?? new Date()).getTime() + 30 * 24 * 3600 * 1000);
+  const dueOn = addCalendarDays(localToday(await clubTimeZone(trx, a.club_id), opts.now ?? new Date()), 30);
   const [row] = await trx('fees')
     .insert({
       club_id: a.club_id,
@@ -90,7 +93,7 @@ export async function createFeeForAllocation(
       deposit_minor: deposit,
       is_concession: opts.concession ?? false,
       currency: quote.currency,
-      due_on: due.toISOString().slice(0, 10),
+      due_on: dueOn,
     })
     .returning('id');
   return row.id;

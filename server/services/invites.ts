@@ -5,6 +5,7 @@ import { AppError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { inviteMail } from '../mail/templates';
 import { hashPassword } from './auth';
+import { clubTimeZone } from './clubs';
 import { grantRoles, rolesInClub } from './memberships';
 import { enqueueMail, kickMail } from './outbox';
 import { hashToken, newToken } from './tokens';
@@ -103,6 +104,7 @@ export async function issueInvite(db: Knex, mailer: Mailer, p: InviteToIssue): P
       roles: p.roles.map((r) => roleLabels[r]),
       url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
       expiresAt,
+      timeZone: await clubTimeZone(trx, p.clubId),
     }));
     return inserted;
   });

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { addCalendarDays, endOfLocalDay, localToday } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
 import type { LeftOutHolder } from '@shared/schemas/seasons';
 import type { Db } from '../db/knex';
@@ -8,8 +9,6 @@ import { renewalMail } from '../mail/templates';
 import { enqueueMail, kickMail } from './outbox';
 import { recordPlotEvent } from './plot-events';
 import { newToken } from './tokens';
-
-const DAY = 24 * 60 * 60 * 1000;
 
 /**
  * Last season's holders who have no renewal in this season, read afresh each time so the
@@ -92,7 +91,7 @@ export async function renewLeftOutHolder(
     const season = await trx('seasons as s')
       .join('clubs as c', 'c.id', 's.club_id')
       .where('s.id', opts.seasonId)
-      .first('s.id', 's.club_id', 's.year', 's.renewal_deadline', 'c.name as club_name', 'c.renewal_days');
+      .first('s.id', 's.club_id', 's.year', 's.renewal_deadline', 'c.name as club_name', 'c.renewal_days', 'c.time_zone');
     if (!season) throw notFound('The season');
     const candidate = await trx('allocations').where({ id: opts.allocationId }).first('plot_id');
     if (!candidate) throw notFound('The holder');
@@ -100,8 +99,11 @@ export async function renewLeftOutHolder(
     const holder = (await leftOutHolders(trx, opts.seasonId)).find((h) => h.allocationId === opts.allocationId);
     if (!holder) throw new AppError('conflict', 'This holder already has a renewal for this season, or did not hold a plot last season.');
     if (!holder.canRenew) throw new AppError('conflict', `No renewal can be sent: ${holder.reason.toLowerCase()}.`);
+    // The season's deadline if still ahead; otherwise the end of the club's day, its renewal days from today.
     const deadline =
-      season.renewal_deadline && season.renewal_deadline > now ? season.renewal_deadline : new Date(now.getTime() + season.renewal_days * DAY);
+      season.renewal_deadline && season.renewal_deadline > now
+        ? season.renewal_deadline
+        : endOfLocalDay(addCalendarDays(localToday(season.time_zone, now), season.renewal_days), season.time_zone);
     const { token, hash } = newToken();
     await trx('renewals').insert({
       season_id: season.id,
@@ -131,6 +133,7 @@ export async function renewLeftOutHolder(
         siteName: holder.siteName,
         url: `${opts.publicUrl}/respond/renewal?token=${encodeURIComponent(token)}`,
         deadline,
+        timeZone: season.time_zone,
       }),
     );
     return user.email as string;

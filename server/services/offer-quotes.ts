@@ -1,10 +1,9 @@
 import type { OfferQuote } from '@shared/schemas/seasons';
+import { addCalendarDays, endOfLocalDay, localToday } from '@shared/dates';
 import { meetsNeeds } from '@shared/spring-round/suggest';
 import type { Db } from '../db/knex';
 import { AppError, notFound } from '../errors';
 import { quotePlotFee } from './fees';
-
-const DAY = 24 * 60 * 60 * 1000;
 
 /**
  * What offering this plot to this person would send, for the coordinator's confirm step: read
@@ -19,7 +18,7 @@ export async function quoteOffer(
   const season = await db('seasons as s')
     .join('clubs as c', 'c.id', 's.club_id')
     .where({ 's.id': opts.seasonId, 's.club_id': opts.clubId })
-    .first('s.id', 's.club_id', 'c.offer_days');
+    .first('s.id', 's.club_id', 'c.offer_days', 'c.time_zone');
   if (!season) throw notFound('The season');
   const plot = await db('plots as p')
     .join('sites as st', 'st.id', 'p.site_id')
@@ -37,7 +36,8 @@ export async function quoteOffer(
     personEmail: app.email,
     plotLabel: plot.label,
     siteName: plot.site_name,
-    deadline: new Date(now.getTime() + season.offer_days * DAY).toISOString(),
+    // The same rule as making the offer: the end of the club's day, its offer days from today.
+    deadline: endOfLocalDay(addCalendarDays(localToday(season.time_zone, now), season.offer_days), season.time_zone).toISOString(),
     offerDays: season.offer_days,
     fee: {
       plotFeeMinor: quote.plotFeeMinor,

@@ -1,20 +1,19 @@
 import type { Knex } from 'knex';
+import { addCalendarDays, endOfLocalDay, formatDate, localToday } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
 import type { LinkPreview, Offer } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { offerMail, welcomeHolderMail } from '../mail/templates';
+import { enqueueMail, kickMail } from './outbox';
 import { createFeeForAllocation, quotePlotFee } from './fees';
 import { plotFacts } from './link-preview';
 import { grantRoles } from './memberships';
 import { createPasswordLink } from './password-resets';
 import { recordPlotEvent } from './plot-events';
-import { enqueueMail, kickMail } from './outbox';
 import { plotBlocker } from './season-plots';
 import { hashToken, newToken } from './tokens';
-
-const DAY = 24 * 60 * 60 * 1000;
 
 function toOffer(r: { id: number; season_id: number; plot_id: number; application_id: number; status: Offer['status']; deadline: Date; created_at: Date }): Offer {
   return {
@@ -46,12 +45,13 @@ export async function createOffer(
   const now = opts.now ?? new Date();
   const offer = await db
     .transaction(async (trx) => {
-      const season = await trx('seasons as s').join('clubs as c', 'c.id', 's.club_id').where('s.id', opts.seasonId).first('s.*', 'c.name as club_name', 'c.offer_days', 'c.allow_multiple_offers', 'c.currency');
+      const season = await trx('seasons as s').join('clubs as c', 'c.id', 's.club_id').where('s.id', opts.seasonId).first('s.*', 'c.name as club_name', 'c.offer_days', 'c.allow_multiple_offers', 'c.currency', 'c.time_zone');
       if (!season) throw notFound('The season');
       const plot = await trx('plots as p')
         .join('sites as st', 'st.id', 'p.site_id')
         .where('p.id', opts.plotId)
         .whereNull('p.deleted_at')
+        .whereNull('st.archived_at')
         .forUpdate('p')
         .first('p.id', 'p.label', 'p.kind', 'st.club_id');
       if (!plot || plot.club_id !== season.club_id) {
@@ -62,7 +62,10 @@ export async function createOffer(
           plotId: 'Shared beds are not offered',
         });
       }
-      const blocker = await plotBlocker(trx, opts.seasonId, opts.plotId);
+      // An offer or renewal past its deadline has lapsed, swept or not: lapse it here, in this transaction.
+      await lapseOverdue(trx, { plotId: opts.plotId }, now);
+      await lapseOverdue(trx, { applicationId: opts.applicationId }, now);
+      const blocker = await plotBlocker(trx, opts.seasonId, opts.plotId, now);
       if (blocker) throw new AppError('conflict', `Plot ${plot.label} cannot be offered: ${blocker}.`);
       const app = await trx('applications').where({ id: opts.applicationId }).forUpdate().first();
       if (!app || app.club_id !== season.club_id) {
@@ -77,7 +80,8 @@ export async function createOffer(
             : `${app.name} is no longer waiting (${app.status}).`,
         );
       }
-      const deadline = opts.deadline ?? new Date(now.getTime() + season.offer_days * DAY);
+      // By default the offer stays open to the end of the club's day, offer_days from today.
+      const deadline = opts.deadline ?? endOfLocalDay(addCalendarDays(localToday(season.time_zone, now), season.offer_days), season.time_zone);
       if (deadline <= now) throw new AppError('validation_failed', 'The deadline must be in the future.', { deadline: 'Choose a later date' });
       const { token, hash } = newToken();
       const [row] = await trx('offers')
@@ -96,10 +100,11 @@ export async function createOffer(
         plotId: plot.id,
         userId: opts.userId,
         kind: 'offered',
-        details: { summary: `Offered to ${app.name} for ${season.year}, answer by ${deadline.toISOString().slice(0, 10)}` },
+        details: { summary: `Offered to ${app.name} for ${season.year}, answer by ${formatDate(deadline, season.time_zone)}` },
       });
       const quote = await quotePlotFee(trx, season.club_id, plot.id);
       const facts = await plotFacts(trx, plot.id);
+      // The offer e-mail is written with the offer, in the same transaction, and sent from the outbox.
       await enqueueMail(trx, { clubId: season.club_id, kind: 'offer' }, offerMail({
         to: app.email,
         name: app.name,
@@ -111,6 +116,7 @@ export async function createOffer(
         fee: `${formatMoney(quote.plotFeeMinor, quote.currency)} plus a refundable deposit of ${formatMoney(quote.depositMinor, quote.currency)}`,
         url: `${opts.publicUrl}/respond/offer?token=${encodeURIComponent(token)}`,
         deadline,
+        timeZone: season.time_zone,
       }));
       return toOffer(row);
     })
@@ -134,7 +140,7 @@ async function findOffer(db: Knex | Knex.Transaction, token: string, lock = fals
     .join('seasons as s', 's.id', 'o.season_id')
     .join('clubs as c', 'c.id', 's.club_id')
     .where('o.token_hash', hashToken(token))
-    .first('o.*', 'a.name', 'a.email', 'a.user_id', 's.year', 's.club_id', 'c.name as club_name', 'c.declined_offer_policy');
+    .first('o.*', 'a.name', 'a.email', 'a.user_id', 's.year', 's.club_id', 'c.name as club_name', 'c.declined_offer_policy', 'c.time_zone');
   if (lock) q.forUpdate('o');
   const row = await q;
   if (!row) throw notFound('That offer link');
@@ -142,8 +148,89 @@ async function findOffer(db: Knex | Knex.Transaction, token: string, lock = fals
 }
 
 function assertPending(row: { status: string; deadline: Date }, now: Date) {
+  if (row.status === 'withdrawn') throw new AppError('gone', 'This offer has been closed by the club.');
   if (row.status !== 'pending') throw new AppError('gone', `This offer has already been ${row.status}.`);
   if (row.deadline <= now) throw new AppError('gone', 'This offer has expired; the plot has gone to the next person.');
+}
+
+/** Whether the plot is still on the map (not removed, its site not archived). */
+export async function plotStillThere(trx: Knex.Transaction, plotId: number): Promise<boolean> {
+  const row = await trx('plots as p')
+    .join('sites as s', 's.id', 'p.site_id')
+    .where('p.id', plotId)
+    .whereNull('p.deleted_at')
+    .whereNull('s.archived_at')
+    .first('p.id');
+  return Boolean(row);
+}
+
+const PLOT_REMOVED = 'The club has taken this plot off its map since the offer was sent, so it can no longer be accepted. Your place on the waitlist is kept.';
+
+/**
+ * Closes an open offer whose plot has been removed (the person keeps their place), in its own
+ * transaction so the refusal that follows does not roll it back.
+ */
+async function closeOfferOfRemovedPlot(db: Knex, offerId: number, now: Date) {
+  await db.transaction(async (trx) => {
+    const o = await trx('offers as o').join('applications as a', 'a.id', 'o.application_id').where('o.id', offerId).forUpdate('o').first('o.*', 'a.name');
+    if (!o || o.status !== 'pending') return;
+    await trx('offers').where({ id: o.id }).update({ status: 'withdrawn', answered_at: now });
+    await restoreWaiting(trx, o.application_id, now);
+    await recordPlotEvent(trx, { plotId: o.plot_id, userId: null, kind: 'offer_withdrawn', details: { summary: `Offer to ${o.name} closed: the plot was removed` } });
+  });
+}
+
+/** Puts an offered person back to waiting (place kept) unless they still have another open offer. */
+async function restoreWaiting(trx: Knex.Transaction, applicationId: number, now: Date) {
+  const other = await trx('offers').where({ application_id: applicationId, status: 'pending' }).first('id');
+  if (other) return;
+  await trx('applications').where({ id: applicationId, status: 'offered' }).update({ status: 'waiting', updated_at: now });
+}
+
+/**
+ * Lapses, inside the caller's transaction, every open offer and renewal past its deadline on a plot
+ * or of a person, as the sweep would: the deadline decides, not when the sweep last ran.
+ */
+export async function lapseOverdue(trx: Knex.Transaction, where: { plotId?: number; applicationId?: number }, now: Date) {
+  const offers = await trx('offers as o')
+    .join('applications as a', 'a.id', 'o.application_id')
+    .join('seasons as s', 's.id', 'o.season_id')
+    .join('clubs as c', 'c.id', 's.club_id')
+    .where('o.status', 'pending')
+    .where('o.deadline', '<=', now)
+    .modify((q) => {
+      if (where.plotId !== undefined) q.where('o.plot_id', where.plotId);
+      if (where.applicationId !== undefined) q.where('o.application_id', where.applicationId);
+    })
+    .forUpdate('o')
+    .select('o.id', 'o.plot_id', 'o.application_id', 'a.name', 'c.declined_offer_policy');
+  for (const o of offers) await lapseOffer(trx, o, now);
+  if (where.plotId !== undefined) {
+    const renewals = await trx('renewals as r')
+      .join('users as u', 'u.id', 'r.user_id')
+      .where({ 'r.status': 'pending', 'r.plot_id': where.plotId })
+      .where('r.deadline', '<=', now)
+      .forUpdate('r')
+      .select('r.id', 'r.plot_id', 'u.name');
+    for (const r of renewals) await lapseRenewal(trx, r, now);
+  }
+}
+
+/** Lapses one open offer at its deadline; the person follows the club's rule. Inside the caller's transaction. */
+export async function lapseOffer(
+  trx: Knex.Transaction,
+  o: { id: number; plot_id: number; application_id: number; name: string; declined_offer_policy: string },
+  now: Date,
+) {
+  await trx('offers').where({ id: o.id }).update({ status: 'lapsed', answered_at: now });
+  await applyDeclinePolicy(trx, o, 'lapsed', now);
+  await recordPlotEvent(trx, { plotId: o.plot_id, userId: null, kind: 'offer_lapsed', details: { summary: `Offer to ${o.name} lapsed at its deadline; the plot is free` } });
+}
+
+/** Lapses one open renewal at its deadline: the plot is free. Inside the caller's transaction. */
+export async function lapseRenewal(trx: Knex.Transaction, r: { id: number; plot_id: number; name: string }, now: Date) {
+  await trx('renewals').where({ id: r.id }).update({ status: 'lapsed', answered_at: now });
+  await recordPlotEvent(trx, { plotId: r.plot_id, userId: null, kind: 'renewal_lapsed', details: { summary: `${r.name} did not answer the renewal in time; the plot is free` } });
 }
 
 /** What the offer page shows. */
@@ -158,6 +245,7 @@ export async function previewOffer(db: Knex, token: string): Promise<LinkPreview
     year: o.year,
     plot: await plotFacts(db, o.plot_id),
     deadline: o.deadline.toISOString(),
+    timeZone: o.time_zone,
     fee: { plotFeeMinor: quote.plotFeeMinor, depositMinor: quote.depositMinor, currency: quote.currency },
   };
 }
@@ -171,6 +259,12 @@ export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: strin
   const outcome = await db.transaction(async (trx) => {
     const o = await findOffer(trx, opts.token, true);
     assertPending(o, now);
+    if (!(await plotStillThere(trx, o.plot_id))) return { removedOfferId: o.id as number, mail: false, message: '' };
+    // The person may hold several offers (if the club allows it) but take only one plot.
+    const app = await trx('applications').where({ id: o.application_id }).forUpdate().first('status');
+    if (app?.status !== 'offered') {
+      throw new AppError('gone', app?.status === 'allocated' ? 'You have already accepted another plot from this club.' : 'This offer is no longer open: you are not on the waitlist any more.');
+    }
     let user = await trx('users').whereRaw('lower(email) = lower(?)', [o.email]).first('id', 'password_hash');
     if (!user) {
       [user] = await trx('users').insert({ email: o.email.toLowerCase(), name: o.name, password_hash: null }).returning(['id', 'password_hash']);
@@ -182,6 +276,17 @@ export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: strin
     const feeId = await createFeeForAllocation(trx, { allocationId: allocation.id, now });
     await trx('offers').where({ id: o.id }).update({ status: 'accepted', answered_at: now });
     await trx('applications').where({ id: o.application_id }).update({ status: 'allocated', user_id: user.id, updated_at: now });
+    // Their other open offers close with this answer, and those plots are free for the next person.
+    const others = await trx('offers').where({ application_id: o.application_id, status: 'pending' }).forUpdate().select('id', 'plot_id');
+    for (const other of others) {
+      await trx('offers').where({ id: other.id }).update({ status: 'withdrawn', answered_at: now });
+      await recordPlotEvent(trx, {
+        plotId: other.plot_id,
+        userId: null,
+        kind: 'offer_withdrawn',
+        details: { summary: `Offer to ${o.name} closed: they accepted another plot; this plot is free` },
+      });
+    }
     await recordPlotEvent(trx, {
       plotId: o.plot_id,
       userId: user.id,
@@ -200,12 +305,19 @@ export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: strin
         year: o.year,
         feeDue: formatMoney(fee.plot_fee_minor + fee.deposit_minor, fee.currency),
         dueOn: fee.due_on,
+        timeZone: o.time_zone,
         passwordUrl,
       }));
     return {
+      mail: true,
       message: `Plot ${facts.label} is yours for ${o.year}. We have sent you an e-mail with what happens next.`,
+      removedOfferId: undefined,
     };
   });
+  if (!outcome.mail) {
+    await closeOfferOfRemovedPlot(db, outcome.removedOfferId!, now);
+    throw new AppError('gone', PLOT_REMOVED);
+  }
   kickMail(db, mailer);
   return { status: 'accepted', message: outcome.message };
 }
@@ -217,6 +329,10 @@ export async function applyDeclinePolicy(
   kind: 'declined' | 'lapsed',
   now: Date,
 ) {
+  // Someone who took another plot, or still has another open offer, stays where they are.
+  const app = await trx('applications').where({ id: o.application_id }).first('status');
+  if (app?.status !== 'offered') return;
+  if (await trx('offers').where({ application_id: o.application_id, status: 'pending' }).first('id')) return;
   if (o.declined_offer_policy === 'remove') {
     await trx('applications')
       .where({ id: o.application_id })
@@ -248,8 +364,10 @@ export async function withdrawOffer(db: Knex, opts: { offerId: number; userId: n
     const o = await trx('offers as o').join('applications as a', 'a.id', 'o.application_id').where('o.id', opts.offerId).forUpdate('o').first('o.*', 'a.name');
     if (!o) throw notFound('The offer');
     if (o.status !== 'pending') throw new AppError('conflict', `This offer has already been ${o.status}.`);
+    // Past its deadline it has lapsed, swept or not; withdrawing would wrongly keep the person's place.
+    if (o.deadline <= now) throw new AppError('conflict', 'This offer has already lapsed at its deadline.');
     await trx('offers').where({ id: o.id }).update({ status: 'withdrawn', answered_at: now });
-    await trx('applications').where({ id: o.application_id }).update({ status: 'waiting', updated_at: now });
+    await restoreWaiting(trx, o.application_id, now);
     await recordPlotEvent(trx, { plotId: o.plot_id, userId: opts.userId, kind: 'offer_withdrawn', details: { summary: `Offer to ${o.name} withdrawn` } });
   });
 }

@@ -20,9 +20,15 @@ export async function requestPasswordReset(
   const { token, hash } = newToken();
   const expiresAt = new Date(now.getTime() + RESET_TTL_MS);
   const url = `${opts.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
+  // A person belongs to clubs, not to a zone: the time is shown in their first club's zone.
+  const club = await db('memberships as m').join('clubs as c', 'c.id', 'm.club_id').where('m.user_id', user.id).orderBy('m.club_id').first('c.time_zone');
   await db.transaction(async (trx) => {
     await trx('password_resets').insert({ user_id: user.id, token_hash: hash, expires_at: expiresAt });
-    await enqueueMail(trx, { clubId: null, kind: 'password_reset' }, passwordResetMail({ to: user.email, name: user.name, url, expiresAt }));
+    await enqueueMail(
+      trx,
+      { clubId: null, kind: 'password_reset' },
+      passwordResetMail({ to: user.email, name: user.name, url, expiresAt, timeZone: club?.time_zone ?? 'UTC' }),
+    );
   });
   kickMail(db, mailer);
 }

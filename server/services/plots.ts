@@ -4,6 +4,7 @@ import type { NeighbourPair, Plot, PlotCreateBody, PlotDetail, PlotUpdateBody } 
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { plotColumns, plotRect, STORED_LENGTH_EPS, toPlot, type PlotRow } from '../db/mappers';
+import { lapseOverdue } from './offers';
 import { listPlotEvents, recordPlotEvent } from './plot-events';
 import { physicalPlotEvents, seesPeople, type Viewer } from './visibility';
 
@@ -15,6 +16,7 @@ export async function clubOfPlot(db: Db, plotId: number): Promise<number | null>
     .join('sites as s', 's.id', 'p.site_id')
     .where('p.id', plotId)
     .whereNull('p.deleted_at')
+    .whereNull('s.archived_at')
     .first('s.club_id');
   return row ? row.club_id : null;
 }
@@ -114,14 +116,44 @@ export async function updatePlot(db: Knex, opts: { plotId: number; userId: numbe
   });
 }
 
-/** Takes a plot off the map (its history stays). */
-export async function deletePlot(db: Knex, opts: { plotId: number; userId: number; version: number }): Promise<void> {
+/**
+ * Why a plot cannot leave the map now, for a coordinator's eyes only (it names people): someone
+ * holds it in the club's latest season, or an offer or renewal of it waits for an answer.
+ */
+async function plotInUse(trx: Knex.Transaction, plotId: number, label: string, now: Date): Promise<string | null> {
+  // Anything past its deadline lapses first, as the sweep would.
+  await lapseOverdue(trx, { plotId }, now);
+  const offer = await trx('offers as o')
+    .join('applications as a', 'a.id', 'o.application_id')
+    .where({ 'o.plot_id': plotId, 'o.status': 'pending' })
+    .first('a.name');
+  if (offer) return `Plot ${label} is offered to ${offer.name}, who has not answered yet. Withdraw the offer before removing the plot.`;
+  const renewal = await trx('renewals as r')
+    .join('users as u', 'u.id', 'r.user_id')
+    .where({ 'r.plot_id': plotId, 'r.status': 'pending' })
+    .first('u.name');
+  if (renewal) return `Plot ${label} waits for ${renewal.name} to keep it or give it up. Remove it after they answer or the renewal lapses.`;
+  const held = await trx('allocations as a')
+    .join('seasons as se', 'se.id', 'a.season_id')
+    .join('users as u', 'u.id', 'a.user_id')
+    .where({ 'a.plot_id': plotId, 'a.status': 'active' })
+    .whereRaw('se.year = (select max(year) from seasons where club_id = se.club_id)')
+    .first('u.name', 'se.year');
+  if (held) return `Plot ${label} is held by ${held.name} for ${held.year}. It can be removed once nobody holds it.`;
+  return null;
+}
+
+/** Takes a plot off the map (its history stays); refused while it is held, offered or up for renewal. */
+export async function deletePlot(db: Knex, opts: { plotId: number; userId: number; version: number; now?: Date }): Promise<void> {
+  const now = opts.now ?? new Date();
   await db.transaction(async (trx) => {
     const row = await trx('plots').where({ id: opts.plotId }).whereNull('deleted_at').forUpdate().first('version', 'label');
     if (!row) throw notFound('The plot');
     if (row.version !== opts.version) {
       throw new AppError('conflict', `Plot ${row.label} was changed by someone else since you loaded the map.`);
     }
+    const inUse = await plotInUse(trx, opts.plotId, row.label, now);
+    if (inUse) throw new AppError('conflict', inUse);
     await trx('plots').where({ id: opts.plotId }).update({ deleted_at: trx.fn.now(), version: row.version + 1 });
     await recordPlotEvent(trx, { plotId: opts.plotId, userId: opts.userId, kind: 'deleted', details: { label: row.label } });
   });

@@ -4,6 +4,7 @@ import { AppError, notFound } from '../errors';
 import { depositDue } from '@shared/fees/compute';
 import { createFeeForAllocation, depositHeld, quotePlotFee } from './fees';
 import { plotFacts } from './link-preview';
+import { plotStillThere } from './offers';
 import { recordPlotEvent } from './plot-events';
 import { hashToken } from './tokens';
 
@@ -13,7 +14,7 @@ async function findRenewal(db: Knex | Knex.Transaction, token: string, lock = fa
     .join('clubs as c', 'c.id', 's.club_id')
     .join('users as u', 'u.id', 'r.user_id')
     .where('r.token_hash', hashToken(token))
-    .first('r.*', 's.year', 's.club_id', 'c.name as club_name', 'u.name as user_name');
+    .first('r.*', 's.year', 's.club_id', 'c.name as club_name', 'c.time_zone', 'u.name as user_name');
   if (lock) q.forUpdate('r');
   const row = await q;
   if (!row) throw notFound('That renewal link');
@@ -39,6 +40,7 @@ export async function previewRenewal(db: Knex, token: string): Promise<LinkPrevi
     year: r.year,
     plot: await plotFacts(db, r.plot_id),
     deadline: r.deadline.toISOString(),
+    timeZone: r.time_zone,
     fee: { plotFeeMinor: quote.plotFeeMinor, depositMinor: deposit, currency: quote.currency },
   };
 }
@@ -49,6 +51,9 @@ export async function keepPlot(db: Knex, opts: { token: string; now?: Date }) {
   return db.transaction(async (trx) => {
     const r = await findRenewal(trx, opts.token, true);
     assertOpen(r, now);
+    if (!(await plotStillThere(trx, r.plot_id))) {
+      throw new AppError('gone', 'The club has taken this plot off its map, so it cannot be kept for the new season. Please ask your coordinator about another plot.');
+    }
     await trx('renewals').where({ id: r.id }).update({ status: 'kept', answered_at: now });
     const [allocation] = await trx('allocations')
       .insert({ season_id: r.season_id, plot_id: r.plot_id, user_id: r.user_id, source: 'renewal' })

@@ -6,8 +6,15 @@ import { seesPeople, type Viewer } from './visibility';
 /**
  * Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free.
  * A coordinator sees who; anyone else sees free or taken, and names only on their own holding or renewal.
+ * An offer or renewal past its deadline at `now` has lapsed, whether or not the sweep has run.
  */
-export async function seasonPlotStates(db: Db, seasonId: number, siteId: number, viewer: Viewer): Promise<PlotSeasonState[]> {
+export async function seasonPlotStates(
+  db: Db,
+  seasonId: number,
+  siteId: number,
+  viewer: Viewer,
+  now: Date = new Date(),
+): Promise<PlotSeasonState[]> {
   const plots = await db('plots').where({ site_id: siteId }).whereNull('deleted_at').select('id');
   const holders = await db('allocations as a')
     .join('users as u', 'u.id', 'a.user_id')
@@ -16,10 +23,12 @@ export async function seasonPlotStates(db: Db, seasonId: number, siteId: number,
   const offers = await db('offers as o')
     .join('applications as ap', 'ap.id', 'o.application_id')
     .where({ 'o.season_id': seasonId, 'o.status': 'pending' })
+    .where('o.deadline', '>', now)
     .select('o.id', 'o.plot_id', 'o.application_id', 'o.deadline', 'ap.name');
   const renewals = await db('renewals as r')
     .join('users as u', 'u.id', 'r.user_id')
     .where({ 'r.season_id': seasonId, 'r.status': 'pending' })
+    .where('r.deadline', '>', now)
     .select('r.id', 'r.plot_id', 'r.deadline', 'u.id as user_id', 'u.name');
   const byPlot = <T extends { plot_id: number }>(rows: T[]) => new Map(rows.map((r) => [r.plot_id, r]));
   const h = byPlot(holders);
@@ -54,7 +63,7 @@ export async function seasonPlotStates(db: Db, seasonId: number, siteId: number,
 }
 
 /** Refuses, with a 409-worthy message, a plot that is not free in the season (call with the plot row locked). */
-export async function plotBlocker(trx: Knex.Transaction, seasonId: number, plotId: number): Promise<string | null> {
+export async function plotBlocker(trx: Knex.Transaction, seasonId: number, plotId: number, now: Date = new Date()): Promise<string | null> {
   const taken = await trx('allocations as a')
     .join('users as u', 'u.id', 'a.user_id')
     .where({ 'a.season_id': seasonId, 'a.plot_id': plotId, 'a.status': 'active' })
@@ -63,11 +72,13 @@ export async function plotBlocker(trx: Knex.Transaction, seasonId: number, plotI
   const offered = await trx('offers as o')
     .join('applications as ap', 'ap.id', 'o.application_id')
     .where({ 'o.season_id': seasonId, 'o.plot_id': plotId, 'o.status': 'pending' })
+    .where('o.deadline', '>', now)
     .first('ap.name');
   if (offered) return `it is already offered to ${offered.name}`;
   const renewing = await trx('renewals as r')
     .join('users as u', 'u.id', 'r.user_id')
     .where({ 'r.season_id': seasonId, 'r.plot_id': plotId, 'r.status': 'pending' })
+    .where('r.deadline', '>', now)
     .first('u.name');
   if (renewing) return `${renewing.name} has not yet answered the renewal for it`;
   return null;

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { addCalendarDays, endOfLocalDay, formatDate, localToday } from '@shared/dates';
 import type { Season } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
@@ -14,13 +15,22 @@ export async function clubOfSeason(db: Db, seasonId: number): Promise<number | n
   return row ? row.club_id : null;
 }
 
-async function withCounts(db: Db, rows: Array<{ id: number; club_id: number; year: number; renewal_deadline: Date | null; created_at: Date }>): Promise<Season[]> {
+async function withCounts(
+  db: Db,
+  rows: Array<{ id: number; club_id: number; year: number; renewal_deadline: Date | null; created_at: Date }>,
+  now: Date = new Date(),
+): Promise<Season[]> {
   const ids = rows.map((r) => r.id);
-  const renewals = await db('renewals').whereIn('season_id', ids).groupBy('season_id', 'status').select('season_id', 'status').count({ n: '*' });
-  const offers = await db('offers').whereIn('season_id', ids).where({ status: 'pending' }).groupBy('season_id').select('season_id').count({ n: '*' });
+  // A renewal still pending past its deadline counts as lapsed, swept or not.
+  const renewals = await db('renewals')
+    .whereIn('season_id', ids)
+    .groupBy('season_id', 'shown_status')
+    .select('season_id', db.raw("case when status = 'pending' and deadline <= ? then 'lapsed' else status end as shown_status", [now]))
+    .count({ n: '*' });
+  const offers = await db('offers').whereIn('season_id', ids).where({ status: 'pending' }).where('deadline', '>', now).groupBy('season_id').select('season_id').count({ n: '*' });
   const taken = await db('allocations').whereIn('season_id', ids).where({ status: 'active' }).groupBy('season_id').select('season_id').count({ n: '*' });
   const pick = (list: Array<Record<string, unknown>>, id: number, status?: string) =>
-    Number(list.find((r) => r.season_id === id && (status === undefined || r.status === status))?.n ?? 0);
+    Number(list.find((r) => r.season_id === id && (status === undefined || r.shown_status === status))?.n ?? 0);
   return rows.map((r) => ({
     id: r.id,
     clubId: r.club_id,
@@ -61,8 +71,9 @@ async function previousHolders(trx: Knex.Transaction, clubId: number, year: numb
     .join('sites as s', 's.id', 'p.site_id')
     .leftJoin('fees as f', 'f.allocation_id', 'a.id')
     .where({ 'a.season_id': prev.id, 'a.status': 'active' })
-    .whereNull('p.deleted_at')
     .select(
+      'p.deleted_at as plot_removed_at',
+      's.archived_at as site_archived_at',
       'a.id as allocation_id',
       'a.plot_id',
       'u.id as user_id',
@@ -85,22 +96,34 @@ async function previousHolders(trx: Knex.Transaction, clubId: number, year: numb
 export async function openSeason(
   db: Knex,
   mailer: Mailer,
-  opts: { clubId: number; userId: number; year: number; renewalDeadline: Date; publicUrl: string; now?: Date },
+  opts: { clubId: number; userId: number; year: number; renewalDeadline?: Date; publicUrl: string; now?: Date },
 ) {
   const now = opts.now ?? new Date();
-  if (opts.renewalDeadline <= now) {
+  const club = await db('clubs').where({ id: opts.clubId }).first('name', 'renewal_days', 'time_zone');
+  if (!club) throw notFound('The club');
+  // By default renewals stay open to the end of the club's day, renewal_days from today.
+  const renewalDeadline = opts.renewalDeadline ?? endOfLocalDay(addCalendarDays(localToday(club.time_zone, now), club.renewal_days), club.time_zone);
+  if (renewalDeadline <= now) {
     throw new AppError('validation_failed', 'The renewal deadline must be in the future.', { renewalDeadline: 'Choose a later date' });
   }
-  const club = await db('clubs').where({ id: opts.clubId }).first('name');
   let renewalsSent = 0;
   const notRenewed: Array<{ name: string; plotLabel: string; reason: string }> = [];
   const season = await db.transaction(async (trx) => {
     const exists = await trx('seasons').where({ club_id: opts.clubId, year: opts.year }).first('id');
     if (exists) throw new AppError('conflict', `The ${opts.year} season is already open.`, { year: 'Already open' });
     const [row] = await trx('seasons')
-      .insert({ club_id: opts.clubId, year: opts.year, renewal_deadline: opts.renewalDeadline, opened_by_user_id: opts.userId })
+      .insert({ club_id: opts.clubId, year: opts.year, renewal_deadline: renewalDeadline, opened_by_user_id: opts.userId })
       .returning('*');
     for (const h of await previousHolders(trx, opts.clubId, opts.year)) {
+      // A holder whose plot has left the map gets no renewal, and the coordinator is told why.
+      if (h.plot_removed_at || h.site_archived_at) {
+        notRenewed.push({
+          name: h.name,
+          plotLabel: h.label,
+          reason: h.plot_removed_at ? 'The plot was removed from the map' : `The site ${h.site_name} is archived`,
+        });
+        continue;
+      }
       if (h.owed > 0) {
         notRenewed.push({ name: h.name, plotLabel: h.label, reason: 'Last season’s fee is not fully paid' });
         await recordPlotEvent(trx, {
@@ -118,13 +141,13 @@ export async function openSeason(
         plot_id: h.plot_id,
         user_id: h.user_id,
         token_hash: hash,
-        deadline: opts.renewalDeadline,
+        deadline: renewalDeadline,
       });
       await recordPlotEvent(trx, {
         plotId: h.plot_id,
         userId: opts.userId,
         kind: 'renewal_sent',
-        details: { summary: `Renewal for ${opts.year} sent to ${h.name}, answer by ${opts.renewalDeadline.toISOString().slice(0, 10)}` },
+        details: { summary: `Renewal for ${opts.year} sent to ${h.name}, answer by ${formatDate(renewalDeadline, club.time_zone)}` },
       });
       renewalsSent++;
       await enqueueMail(trx, { clubId: opts.clubId, kind: 'renewal' }, renewalMail({
@@ -135,7 +158,8 @@ export async function openSeason(
         plotLabel: h.label,
         siteName: h.site_name,
         url: `${opts.publicUrl}/respond/renewal?token=${encodeURIComponent(token)}`,
-        deadline: opts.renewalDeadline,
+        deadline: renewalDeadline,
+        timeZone: club.time_zone,
       }));
     }
     return row;

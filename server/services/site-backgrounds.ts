@@ -162,6 +162,11 @@ async function removeQuietly(file: string) {
   await fs.rm(file, { force: true });
 }
 
+/** Deletes a stored background file by its stored name (names that are not ours are left alone). */
+export async function removeBackgroundFile(uploadDir: string, name: string): Promise<void> {
+  if (STORED_NAME.test(name)) await removeQuietly(path.join(folderOf(uploadDir), name));
+}
+
 /** Stores a new map background for a site, replacing (and deleting) the previous one; returns the site. */
 export async function setSiteBackground(
   db: Knex,

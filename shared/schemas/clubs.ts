@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { textSchema } from './common';
+import { isTimeZone } from '../dates';
 
 export const currencies = ['GBP', 'EUR', 'USD', 'CAD', 'AUD', 'NZD'] as const;
 
@@ -13,6 +14,8 @@ export const ClubSettingsSchema = z.object({
   renewalDays: z.number().int().min(1, 'At least 1 day').max(90, 'At most 90 days'),
   declinedOfferPolicy: z.enum(['end_of_list', 'remove']),
   allowMultipleOffers: z.boolean(),
+  /** Every date and time the club's people see is shown in this zone; it starts as the club's first site's. */
+  timeZone: z.string().refine(isTimeZone, 'Unknown time zone (use a name like Europe/London)'),
 });
 export type ClubSettings = z.infer<typeof ClubSettingsSchema>;
 

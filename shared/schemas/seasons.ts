@@ -3,8 +3,8 @@ import { IdSchema, IdTextSchema, instantSchema } from './common';
 
 export const SeasonCreateBodySchema = z.strictObject({
   year: z.number().int().min(2000, 'A year like 2027').max(2100, 'A year like 2027'),
-  /** When renewal links stop working; plots not kept by then are free. */
-  renewalDeadline: instantSchema('A date and time'),
+  /** When renewal links stop working; plots not kept by then are free. Defaults to the end of the club's day, its renewal days from today. */
+  renewalDeadline: instantSchema('A date and time').optional(),
 });
 export type SeasonCreateBody = z.infer<typeof SeasonCreateBodySchema>;
 
@@ -77,6 +77,8 @@ export const LinkPreviewSchema = z.object({
   year: z.number().int(),
   plot: z.object({ label: z.string(), siteName: z.string(), size: z.string(), area: z.string(), kind: z.string() }),
   deadline: z.string(),
+  /** The club's zone, in which the page shows the deadline. */
+  timeZone: z.string(),
   fee: z.object({ plotFeeMinor: z.number().int(), depositMinor: z.number().int(), currency: z.string() }).nullable(),
 });
 export type LinkPreview = z.infer<typeof LinkPreviewSchema>;

@@ -77,6 +77,10 @@ export const SiteUpdateBodySchema = z
   });
 export type SiteUpdateBody = z.infer<typeof SiteUpdateBodySchema>;
 
+/** Archiving a site, with the version the coordinator last saw. */
+export const SiteArchiveBodySchema = z.strictObject({ version: z.number().int().positive() });
+export type SiteArchiveBody = z.infer<typeof SiteArchiveBodySchema>;
+
 export const SiteSchema = z.object({
   id: z.number().int(),
   clubId: z.number().int(),

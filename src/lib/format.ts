@@ -1,9 +1,8 @@
-const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' });
+import { formatDate as formatDateIn, formatDateTime as formatDateTimeIn } from '@shared/dates';
 
-/** Formats an ISO timestamp as a short calendar date ("3 Mar 2026"); returns the input when unreadable. */
-export function formatDate(iso: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateFormat.format(date);
+/** An ISO timestamp as the day it is in `timeZone` ("3 Mar 2026"), a calendar date as itself; the input when unreadable. */
+export function formatDate(iso: string, timeZone: string): string {
+  return formatDateIn(iso, timeZone);
 }
 
 /** Joins a list of words for reading aloud or in a sentence: "A", "A and B", "A, B and C". */
@@ -17,16 +16,7 @@ export function firstName(name: string): string {
   return name.trim().split(/\s+/)[0] ?? name;
 }
 
-const dateTimeFormat = new Intl.DateTimeFormat('en-GB', {
-  day: 'numeric',
-  month: 'short',
-  year: 'numeric',
-  hour: '2-digit',
-  minute: '2-digit',
-});
-
-/** Formats an ISO timestamp as date and time ("8 Dec 2026, 22:58"), in the reader's own time zone. */
-export function formatDateTime(iso: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
+/** An ISO timestamp as date and time in `timeZone` ("8 Dec 2026, 22:58 GMT"); the input when unreadable. */
+export function formatDateTime(iso: string, timeZone: string): string {
+  return formatDateTimeIn(iso, timeZone);
 }

@@ -33,6 +33,8 @@ describe('club settings', () => {
       renewalDays: 14,
       declinedOfferPolicy: 'end_of_list',
       allowMultipleOffers: false,
+      // A club with no site yet keeps the default zone (the migration's default).
+      timeZone: 'UTC',
     });
     const outsider = await signedIn(await buildMember(t.db, { roles: ['coordinator'] }));
     expect((await outsider.get(`/api/clubs/${row.id}`)).status).toBe(403);

@@ -223,7 +223,7 @@ describe('payments', () => {
     await c.post(`/api/fees/${feeId}/payments`, pay(2000, { method: 'bank_transfer' })).expect(201);
     const mail = await waitForMail(mailUrl(), { to: holder.email, after: since });
     expect(mail.subject).toBe(`Receipt: £20.00 paid to ${club.name}`);
-    expect(mail.text).toContain(`${club.name} has received £20.00 from you for Plot A-1, 2027 season, by bank transfer on 14 March 2027.`);
+    expect(mail.text).toContain(`${club.name} has received £20.00 from you for Plot A-1, 2027 season, by bank transfer on 14 Mar 2027.`);
     expect(mail.text).toContain('Still to pay: £40.00.');
     expect(mail.text).toContain(`You got this because a coordinator of ${club.name} recorded a payment`);
     expect(mail.html).toContain('£20.00');
@@ -233,7 +233,7 @@ describe('payments', () => {
     await c.post(`/api/fees/${feeId}/payments`, pay(1500, { kind: 'refund', paidOn: '2027-10-31' })).expect(201);
     const refund = await waitForMail(mailUrl(), { to: holder.email, subject: 'Deposit refunded', after: refundAt });
     expect(refund.subject).toBe(`Deposit refunded: £15.00 (${club.name})`);
-    expect(refund.text).toContain('by cash on 31 October 2027');
+    expect(refund.text).toContain('by cash on 31 Oct 2027');
     expect(refund.text).toContain('Nothing more is owed for this plot.');
   });
 

@@ -1,4 +1,5 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { addCalendarDays, endOfLocalDay, localToday } from '@shared/dates';
 import { buildApplication, buildClub, buildMember } from '../factories';
 import { browserLikeAgent, setupTestApp, truncateAll } from '../helpers/app';
 import { signedInMember } from '../helpers/api';
@@ -28,7 +29,7 @@ async function setUp() {
 
 describe('offer quote (the confirm step)', () => {
   it('names the person and the plot, the deadline from the club’s days to answer, and the fee with its deposit', async () => {
-    const { coordinator, plotId, seasonId, person } = await setUp();
+    const { club, coordinator, plotId, seasonId, person } = await setUp();
     const before = Date.now();
     const res = await coordinator.get(`/api/seasons/${seasonId}/offer-quote?plotId=${plotId}&applicationId=${person.id}`);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
@@ -42,9 +43,10 @@ describe('offer quote (the confirm step)', () => {
       fee: { plotFeeMinor: 4500, depositMinor: 1500, totalMinor: 6000, currency: 'GBP' },
       fitsNeeds: true,
     });
-    const deadline = new Date(res.body.deadline).getTime();
-    expect(deadline).toBeGreaterThanOrEqual(before + 7 * DAY);
-    expect(deadline).toBeLessThanOrEqual(Date.now() + 7 * DAY);
+    // The rule offers use: the end of the club's day, 7 calendar days from today in its zone.
+    const { time_zone: zone } = await t.db('clubs').where({ id: club.id }).first('time_zone');
+    const expected = endOfLocalDay(addCalendarDays(localToday(zone, new Date(before)), 7), zone);
+    expect(res.body.deadline).toBe(expected.toISOString());
     expect(await t.db('offers').count({ n: '*' }).first()).toEqual({ n: 0 });
   });
 

@@ -3,9 +3,11 @@ import { Link, Outlet } from 'react-router-dom';
 import { SearchX } from 'lucide-react';
 import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
+import { useClubSettings } from '@/features/club-settings/api/get-club-settings';
 import { useCurrentClubId } from '@/features/clubs/hooks/use-current-club-id';
 import { rememberClub } from '@/features/clubs/lib/last-club';
 import { paths } from '@/lib/paths';
+import { TimeZoneProvider, useTimeZone } from '@/lib/time-zone';
 import { useSignedInContext, type ClubContext } from '../app-context';
 
 /** Layout route for `/clubs/:clubId`: checks the person belongs to the club and remembers it. */
@@ -13,6 +15,9 @@ export function ClubScope() {
   const { user } = useSignedInContext();
   const clubId = useCurrentClubId();
   const club = user.clubs.find((membership) => membership.clubId === clubId);
+  // Dates on the club's pages are shown in the club's zone once its settings are in.
+  const settings = useClubSettings(club?.clubId ?? 0, Boolean(club));
+  const zone = useTimeZone();
 
   useEffect(() => {
     if (club) rememberClub(club.clubId);
@@ -36,5 +41,9 @@ export function ClubScope() {
   }
 
   const context: ClubContext = { user, club };
-  return <Outlet context={context} />;
+  return (
+    <TimeZoneProvider zone={settings.data?.timeZone ?? zone}>
+      <Outlet context={context} />
+    </TimeZoneProvider>
+  );
 }

@@ -6,6 +6,7 @@ import { NotAllowed } from '@/components/ui/not-allowed';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
 import { AllocationMap, type AllocationPerson } from '@/features/plots/components/map/allocation-map';
+import { useClubSettings } from '@/features/club-settings/api/get-club-settings';
 import { useSites } from '@/features/sites/api/get-sites';
 import { useCreateOffer } from '@/features/spring-round/api/create-offer';
 import { getOfferQuote } from '@/features/spring-round/api/get-offer-quote';
@@ -79,6 +80,7 @@ function SpringRound() {
   const { club } = useClubContext();
   const seasons = useSeasons(club.clubId);
   const sites = useSites(club.clubId);
+  const settings = useClubSettings(club.clubId);
   const [params, setParams] = useSearchParams();
 
   if (seasons.isPending || sites.isPending) return <LoadingState label="Loading the spring round…" />;
@@ -142,7 +144,7 @@ function SpringRound() {
           Holders of {current ? current.year : 'last season'} whose fees are paid get an e-mail to keep or give up their plot
           by the deadline; plots not kept by then become free.
         </p>
-        <OpenSeasonForm clubId={club.clubId} suggestedYear={nextYear} />
+        <OpenSeasonForm key={settings.data?.renewalDays ?? 'loading'} clubId={club.clubId} suggestedYear={nextYear} renewalDays={settings.data?.renewalDays ?? 14} />
       </section>
     </div>
   );

@@ -40,6 +40,8 @@ export interface ApiFetchOptions<T> {
   /** Parses the success body; leave it out for endpoints that answer 204 or whose body is not needed. */
   schema?: z.ZodType<T>;
   signal?: AbortSignal;
+  /** Sent as `Idempotency-Key`: the server answers a retry with the same key with its first answer. */
+  idempotencyKey?: string;
 }
 
 const SESSION_PATH = '/api/session';
@@ -94,8 +96,9 @@ async function readError(response: Response): Promise<ApiError> {
   });
 }
 
-async function send(path: string, method: HttpMethod, body: unknown, signal?: AbortSignal): Promise<Response> {
+async function send(path: string, method: HttpMethod, body: unknown, signal?: AbortSignal, idempotencyKey?: string): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' };
+  if (idempotencyKey) headers['Idempotency-Key'] = idempotencyKey;
   const payload = body === undefined ? undefined : body instanceof FormData ? body : JSON.stringify(body);
   // A FormData needs the browser's own multipart Content-Type, boundary included.
   if (typeof payload === 'string') headers['Content-Type'] = 'application/json';
@@ -124,8 +127,8 @@ async function send(path: string, method: HttpMethod, body: unknown, signal?: Ab
  * and an ApiError for every failure. Any response carrying `csrfToken` refreshes the cached token.
  */
 export async function apiFetch<T = undefined>(path: string, options: ApiFetchOptions<T> = {}): Promise<T> {
-  const { method = 'GET', body, schema, signal } = options;
-  let response = await send(path, method, body, signal);
+  const { method = 'GET', body, schema, signal, idempotencyKey } = options;
+  let response = await send(path, method, body, signal, idempotencyKey);
 
   if (!response.ok) {
     let error = await readError(response);
@@ -133,7 +136,7 @@ export async function apiFetch<T = undefined>(path: string, options: ApiFetchOpt
       // The session may have rotated since the token was cached: fetch a fresh one and try once more.
       csrfToken = null;
       await loadCsrfToken();
-      response = await send(path, method, body, signal);
+      response = await send(path, method, body, signal, idempotencyKey);
       if (!response.ok) error = await readError(response);
     }
     if (!response.ok) throw error;

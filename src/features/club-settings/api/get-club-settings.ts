@@ -17,6 +17,6 @@ export function clubSettingsQueryOptions(clubId: number) {
 }
 
 /** The club's settings, including the currency its money is shown in. */
-export function useClubSettings(clubId: number) {
-  return useQuery(clubSettingsQueryOptions(clubId));
+export function useClubSettings(clubId: number, enabled = true) {
+  return useQuery({ ...clubSettingsQueryOptions(clubId), enabled });
 }

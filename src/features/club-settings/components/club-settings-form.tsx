@@ -20,6 +20,15 @@ const currencyLabels: Record<ClubSettings['currency'], string> = {
   NZD: 'New Zealand dollar ($)',
 };
 
+// Older browsers lack the list; the field then works as plain text and the server checks the name.
+const timeZones: string[] = (() => {
+  try {
+    return Intl.supportedValuesOf('timeZone');
+  } catch {
+    return [];
+  }
+})();
+
 const shape = ClubSettingsSchema.shape;
 const daysText = (days: typeof shape.offerDays) =>
   z.string().trim().regex(/^\d+$/, 'Enter a whole number of days').transform(Number).pipe(days);
@@ -32,6 +41,7 @@ interface SettingsFormValues {
   renewalDays: string;
   declinedOfferPolicy: ClubSettings['declinedOfferPolicy'];
   allowMultipleOffers: boolean;
+  timeZone: string;
 }
 
 const SettingsFormSchema = z.object({
@@ -41,9 +51,10 @@ const SettingsFormSchema = z.object({
   renewalDays: daysText(shape.renewalDays),
   declinedOfferPolicy: shape.declinedOfferPolicy,
   allowMultipleOffers: z.boolean(),
+  timeZone: z.string().trim().min(1, 'Enter a time zone, like Europe/London').pipe(shape.timeZone),
 });
 
-const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers'] as const;
+const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone'] as const;
 
 function toForm(s: ClubSettings): SettingsFormValues {
   return {
@@ -53,6 +64,7 @@ function toForm(s: ClubSettings): SettingsFormValues {
     renewalDays: String(s.renewalDays),
     declinedOfferPolicy: s.declinedOfferPolicy,
     allowMultipleOffers: s.allowMultipleOffers,
+    timeZone: s.timeZone,
   };
 }
 
@@ -131,6 +143,20 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
           <option value="end_of_list">Move them to the end of the waiting list</option>
           <option value="remove">Take them off the waiting list</option>
         </Select>
+        <TextField
+          label="Time zone"
+          hint="Dates and deadlines on the club's pages and e-mails are in this zone, e.g. Europe/London"
+          list="club-settings-time-zones"
+          autoComplete="off"
+          spellCheck={false}
+          error={errors.timeZone?.message}
+          {...register('timeZone')}
+        />
+        <datalist id="club-settings-time-zones">
+          {timeZones.map((zone) => (
+            <option key={zone} value={zone} />
+          ))}
+        </datalist>
       </div>
       <Checkbox
         label="Let one person hold more than one open offer at a time"

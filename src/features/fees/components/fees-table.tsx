@@ -5,6 +5,7 @@ import type { Fee } from '@shared/schemas/fees';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { DataTable } from '@/components/ui/data-table';
+import { useTimeZone } from '@/lib/time-zone';
 import { formatCalendarDate, todayIso } from '../lib/money-form';
 import { BalanceText } from './balance-text';
 
@@ -72,7 +73,8 @@ function columns(onRecord: (feeId: number) => void, today: string): ColumnDef<Fe
 
 /** The club's fees in the server's order (owed first, then by due date), sortable and filterable. */
 export function FeesTable({ fees, onRecord }: { fees: Fee[]; onRecord: (feeId: number) => void }) {
-  const cols = useMemo(() => columns(onRecord, todayIso()), [onRecord]);
+  const zone = useTimeZone();
+  const cols = useMemo(() => columns(onRecord, todayIso(zone)), [onRecord, zone]);
   return (
     <DataTable
       data={fees}

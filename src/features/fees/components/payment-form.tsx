@@ -8,6 +8,7 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
 import { applyServerErrors } from '@/lib/forms/server-errors';
+import { useTimeZone } from '@/lib/time-zone';
 import { useRecordPayment } from '../api/record-payment';
 import { renameErrorFields } from '../lib/money-form';
 import { emptyPayment, paymentFieldNames, paymentFormSchema, suggestedAmount, type PaymentFormValues } from '../lib/payment-form';
@@ -20,6 +21,7 @@ export interface PaymentFormProps {
 /** Records one payment against a fee, or a refund of its deposit; the server e-mails the receipt. */
 export function PaymentForm({ fee, onRecorded }: PaymentFormProps) {
   const record = useRecordPayment(fee.id);
+  const timeZone = useTimeZone();
   const [formError, setFormError] = useState<string | null>(null);
   const schema = useMemo(() => paymentFormSchema(fee), [fee]);
   const {
@@ -31,7 +33,7 @@ export function PaymentForm({ fee, onRecorded }: PaymentFormProps) {
     formState: { errors },
   } = useForm<PaymentFormValues, unknown, PaymentBody>({
     resolver: zodResolver(schema),
-    defaultValues: emptyPayment(fee),
+    defaultValues: emptyPayment(fee, timeZone),
   });
 
   const kind = register('kind', {
@@ -43,7 +45,7 @@ export function PaymentForm({ fee, onRecorded }: PaymentFormProps) {
     setFormError(null);
     record.mutate(body, {
       onSuccess: (updated) => {
-        reset({ ...emptyPayment(updated), method: body.method, paidOn: body.paidOn });
+        reset({ ...emptyPayment(updated, timeZone), method: body.method, paidOn: body.paidOn });
         onRecorded?.(updated, body);
       },
       onError: (error) =>

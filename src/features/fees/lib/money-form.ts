@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { formatDate, localToday } from '@shared/dates';
 import { parseMoney } from '@shared/fees/money';
 import { ApiError, isApiError } from '@/lib/api/client';
 
@@ -18,18 +19,14 @@ export function moneyOrNull(text: string | undefined): number | null {
   return result.ok ? result.minor : null;
 }
 
-const calendarFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-
-/** "2027-04-14" → "14 Apr 2027"; a calendar date has no zone, so it is read as UTC and never shifts a day. */
+/** "2027-04-14" → "14 Apr 2027"; a calendar date has no zone, so it never shifts a day. */
 export function formatCalendarDate(isoDate: string): string {
-  const date = new Date(`${isoDate}T00:00:00Z`);
-  return Number.isNaN(date.getTime()) ? isoDate : calendarFormat.format(date);
+  return formatDate(isoDate, 'UTC');
 }
 
-/** Today's date where the coordinator is, as YYYY-MM-DD. */
-export function todayIso(now = new Date()): string {
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+/** Today's date in the club's zone, as YYYY-MM-DD. */
+export function todayIso(timeZone: string, now = new Date()): string {
+  return localToday(timeZone, now);
 }
 
 /** The same API error with its field names moved to the form's names, so applyServerErrors puts them on the inputs. */

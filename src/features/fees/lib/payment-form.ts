@@ -21,9 +21,9 @@ export function suggestedAmount(fee: Fee, kind: PaymentBody['kind']): string {
   return minor > 0 ? minorToDecimal(minor) : '';
 }
 
-/** Fresh inputs for a fee: today's date, cash, and the amount still owed. */
-export function emptyPayment(fee: Fee): PaymentFormValues {
-  return { kind: 'payment', amount: suggestedAmount(fee, 'payment'), method: 'cash', paidOn: todayIso(), note: '' };
+/** Fresh inputs for a fee: today's date in the club's zone, cash, and the amount still owed. */
+export function emptyPayment(fee: Fee, timeZone: string): PaymentFormValues {
+  return { kind: 'payment', amount: suggestedAmount(fee, 'payment'), method: 'cash', paidOn: todayIso(timeZone), note: '' };
 }
 
 /**

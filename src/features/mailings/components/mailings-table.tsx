@@ -1,7 +1,7 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Mailing } from '@shared/schemas/mailings';
 import { DataTable } from '@/components/ui/data-table';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 
 const columns: ColumnDef<Mailing>[] = [
   {
@@ -9,7 +9,7 @@ const columns: ColumnDef<Mailing>[] = [
     header: 'Sent',
     accessorFn: (m) => m.createdAt,
     enableGlobalFilter: false,
-    cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.createdAt)}</span>,
+    cell: ({ row }) => <span className="whitespace-nowrap"><LocalDate value={row.original.createdAt} /></span>,
   },
   {
     id: 'subject',

@@ -6,7 +6,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Checkbox, CheckboxGroup } from '@/components/ui/checkbox';
 import { TextField } from '@/components/ui/field';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useCreateInvite } from '../api/create-invite';
 
@@ -48,7 +48,7 @@ export function InviteForm({ clubId }: { clubId: number }) {
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-5">
       {sent && (
         <Alert tone="success" title="Invite sent">
-          We e-mailed {sent.email} a link to join. It works until {formatDate(sent.expiresAt)}.
+          We e-mailed {sent.email} a link to join. It works until <LocalDate value={sent.expiresAt} />.
         </Alert>
       )}
       {formError && <Alert tone="error">{formError}</Alert>}

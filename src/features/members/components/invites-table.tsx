@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Invite } from '@shared/schemas/auth';
 import { DataTable } from '@/components/ui/data-table';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { InviteActions } from './member-actions';
 import { RoleBadges, rolesText } from './role-badges';
 
@@ -29,7 +29,7 @@ const baseColumns: ColumnDef<Invite>[] = [
     id: 'expires',
     header: 'Expires',
     accessorFn: (invite) => invite.expiresAt,
-    cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.expiresAt)}</span>,
+    cell: ({ row }) => <span className="whitespace-nowrap"><LocalDate value={row.original.expiresAt} /></span>,
     enableGlobalFilter: false,
   },
 ];

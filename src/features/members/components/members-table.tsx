@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Member } from '@shared/schemas/auth';
 import { DataTable } from '@/components/ui/data-table';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { MemberActions } from './member-actions';
 import { RoleBadges, rolesText } from './role-badges';
 
@@ -30,7 +30,7 @@ const baseColumns: ColumnDef<Member>[] = [
     header: 'Joined',
     // ISO strings sort in date order; filtering them would match digits nobody sees, so it is off.
     accessorFn: (member) => member.joinedAt,
-    cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.joinedAt)}</span>,
+    cell: ({ row }) => <span className="whitespace-nowrap"><LocalDate value={row.original.joinedAt} /></span>,
     enableGlobalFilter: false,
   },
 ];

@@ -19,6 +19,7 @@ import { Select } from '@/components/ui/select';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { formatDateTime } from '@/lib/format';
+import { useTimeZone } from '@/lib/time-zone';
 import { useOutbox } from '../api/get-outbox';
 import { useResendMail } from '../api/resend-mail';
 
@@ -36,13 +37,13 @@ function readStatus(value: string | null): OutboxQuery['status'] {
 }
 
 /** When it went, when it is tried next, or that it was given up on, in words. */
-function progress(m: OutboxMessage): string {
-  if (m.status === 'sent') return m.sentAt ? `Sent ${formatDateTime(m.sentAt)}` : 'Sent';
+function progress(m: OutboxMessage, zone: string): string {
+  if (m.status === 'sent') return m.sentAt ? `Sent ${formatDateTime(m.sentAt, zone)}` : 'Sent';
   if (m.status === 'failed') return `Gave up after ${m.attempts} ${m.attempts === 1 ? 'try' : 'tries'}`;
-  return m.attempts === 0 ? 'Sending shortly' : `Tried ${m.attempts} ${m.attempts === 1 ? 'time' : 'times'}; next try ${formatDateTime(m.nextAttemptAt)}`;
+  return m.attempts === 0 ? 'Sending shortly' : `Tried ${m.attempts} ${m.attempts === 1 ? 'time' : 'times'}; next try ${formatDateTime(m.nextAttemptAt, zone)}`;
 }
 
-function columns(resend: (m: OutboxMessage) => void, busyId: number | null): ColumnDef<OutboxMessage>[] {
+function columns(resend: (m: OutboxMessage) => void, busyId: number | null, zone: string): ColumnDef<OutboxMessage>[] {
   return [
     {
       id: 'status',
@@ -55,7 +56,7 @@ function columns(resend: (m: OutboxMessage) => void, busyId: number | null): Col
       header: 'Written',
       accessorFn: (m) => m.createdAt,
       enableGlobalFilter: false,
-      cell: ({ row }) => <span className="whitespace-nowrap">{formatDateTime(row.original.createdAt)}</span>,
+      cell: ({ row }) => <span className="whitespace-nowrap">{formatDateTime(row.original.createdAt, zone)}</span>,
     },
     { id: 'to', header: 'To', accessorFn: (m) => m.to, cell: ({ getValue }) => <span className="break-all">{getValue<string>()}</span> },
     {
@@ -76,7 +77,7 @@ function columns(resend: (m: OutboxMessage) => void, busyId: number | null): Col
       enableSorting: false,
       cell: ({ row }) => (
         <div className="flex flex-col gap-1">
-          <span>{progress(row.original)}</span>
+          <span>{progress(row.original, zone)}</span>
           {row.original.lastError && row.original.status !== 'sent' && (
             <span className="text-sm break-words text-clay-700">Last error: {row.original.lastError}</span>
           )}
@@ -109,6 +110,7 @@ export function OutgoingMailPage({ clubId, clubName }: OutgoingMailPageProps) {
   const status = readStatus(params.get('status'));
   const outbox = useOutbox(clubId, { status, page: 1 });
   const resend = useResendMail(clubId);
+  const zone = useTimeZone();
   const [notice, setNotice] = useState<{ tone: 'success' | 'error'; text: string } | null>(null);
 
   const setStatus = (value: string) => {
@@ -162,7 +164,7 @@ export function OutgoingMailPage({ clubId, clubName }: OutgoingMailPageProps) {
           <>
             <DataTable
               data={outbox.data.items}
-              columns={columns(onResend, resend.isPending ? (resend.variables ?? null) : null)}
+              columns={columns(onResend, resend.isPending ? (resend.variables ?? null) : null, zone)}
               caption="Outgoing mail"
               filterLabel="Filter outgoing mail"
               emptyMessage={status === 'all' ? 'No e-mail has gone out from this club yet.' : `No mail is ${filterLabels[status].toLowerCase()}.`}

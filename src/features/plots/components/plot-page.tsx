@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { format, formatDistanceToNow, parseISO } from 'date-fns';
+import { formatDistanceToNow, parseISO } from 'date-fns';
+import { formatDate, formatDateTime } from '@shared/dates';
 import { ArrowLeft, History, Map as MapIcon, SearchX, Users } from 'lucide-react';
 import { formatLength } from '@shared/geometry';
 import { plotKindLabels, sunLabels, type PlotDetail, type PlotKind } from '@shared/schemas/plots';
@@ -12,6 +13,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { paths } from '@/lib/paths';
+import { useTimeZone } from '@/lib/time-zone';
 import { usePlot } from '../api/get-plot';
 import { formatPlotArea, formatSize, formatSoilDepth, sideText } from '../lib/format';
 
@@ -39,10 +41,8 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 
 const kindLabel = (kind: string) => plotKindLabels[kind as PlotKind] ?? kind;
 
-function formatDay(iso: string): string {
-  const date = parseISO(iso);
-  return Number.isNaN(date.getTime()) ? iso : format(date, 'd MMM yyyy');
-}
+/** A soil test date is a calendar date: it shows as that day in any zone. */
+const formatDay = (isoDate: string) => formatDate(isoDate, 'UTC');
 
 function Details({ plot }: { plot: PlotDetail }) {
   const u = plot.units;
@@ -95,6 +95,7 @@ function Neighbours({ plot, clubId }: { plot: PlotDetail; clubId: number }) {
 }
 
 function HistoryList({ plot }: { plot: PlotDetail }) {
+  const zone = useTimeZone();
   if (plot.history.length === 0) return <p className="text-stone">Nothing recorded yet.</p>;
   // Newest first, whatever order the list arrives in.
   const events = [...plot.history].sort((a, b) => b.at.localeCompare(a.at) || b.id - a.id);
@@ -107,8 +108,8 @@ function HistoryList({ plot }: { plot: PlotDetail }) {
             <p className="font-medium">{event.summary}</p>
             <p className="text-sm text-stone">
               {event.byName ?? 'Someone no longer in the club'} ·{' '}
-              <time dateTime={event.at} title={format(at, 'd MMM yyyy, HH:mm')}>
-                {format(at, 'd MMM yyyy, HH:mm')} ({formatDistanceToNow(at, { addSuffix: true })})
+              <time dateTime={event.at} title={formatDateTime(at, zone)}>
+                {formatDateTime(at, zone)} ({formatDistanceToNow(at, { addSuffix: true })})
               </time>
             </p>
           </li>

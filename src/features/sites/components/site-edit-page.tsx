@@ -8,6 +8,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/lib/paths';
 import { SiteBackgroundForm } from './site-background-form';
 import { SiteForm } from './site-form';
+import { SiteRemove } from './site-remove';
 
 function Section({ id, title, description, children }: { id: string; title: string; description?: string; children: ReactNode }) {
   return (
@@ -57,6 +58,9 @@ export function SiteEditPage({ clubId, clubName, site }: { clubId: number; clubN
           description="A picture under the plots on the map, scaled to the site."
         >
           <SiteBackgroundForm site={site} />
+        </Section>
+        <Section id="site-remove" title="Archive or delete">
+          <SiteRemove clubId={clubId} site={site} />
         </Section>
       </div>
     </>

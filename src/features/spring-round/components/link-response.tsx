@@ -64,7 +64,7 @@ export function LinkResponse({ kind, token }: { kind: LinkKind; token: string })
           </>
         )}
         <dt className="text-stone">Answer by</dt>
-        <dd>{formatDateTime(p.deadline)}</dd>
+        <dd>{formatDateTime(p.deadline, p.timeZone)}</dd>
       </dl>
       {answered ? (
         <Alert tone="info">This has already been answered ({p.status}). Nothing more to do.</Alert>

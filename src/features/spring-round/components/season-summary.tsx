@@ -1,11 +1,13 @@
 import type { Season } from '@shared/schemas/seasons';
 import { formatDate } from '@/lib/format';
+import { useTimeZone } from '@/lib/time-zone';
 
 /** The season's renewals and offers at a glance. */
 export function SeasonSummary({ season }: { season: Season }) {
   const c = season.counts;
+  const zone = useTimeZone();
   const items: Array<[string, number, string]> = [
-    ['Renewals waiting for an answer', c.renewalsPending, season.renewalDeadline ? `until ${formatDate(season.renewalDeadline)}` : ''],
+    ['Renewals waiting for an answer', c.renewalsPending, season.renewalDeadline ? `until ${formatDate(season.renewalDeadline, zone)}` : ''],
     ['Plots kept', c.renewalsKept, ''],
     ['Plots given up', c.renewalsReleased, ''],
     ['Renewals not answered in time', c.renewalsLapsed, ''],

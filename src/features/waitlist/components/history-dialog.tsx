@@ -3,7 +3,7 @@ import { waitlistMoveKindLabels } from '@shared/schemas/waitlist';
 import { Dialog } from '@/components/ui/dialog';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/spinner';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { useApplicationHistory } from '../api/get-application-history';
 
 function HistoryList({ entry }: { entry: WaitlistEntry }) {
@@ -14,7 +14,7 @@ function HistoryList({ entry }: { entry: WaitlistEntry }) {
     <ol className="flex flex-col gap-3">
       <li className="rounded-lg border border-paper-200 p-3">
         <p className="font-medium">Applied</p>
-        <p className="text-sm text-stone">{formatDate(entry.appliedAt)}</p>
+        <p className="text-sm text-stone"><LocalDate value={entry.appliedAt} /></p>
       </li>
       {history.data.items.map((move) => (
         <li key={move.id} className="rounded-lg border border-paper-200 p-3">
@@ -25,7 +25,7 @@ function HistoryList({ entry }: { entry: WaitlistEntry }) {
           </p>
           <p className="mt-1">{move.reason}</p>
           <p className="mt-1 text-sm text-stone">
-            {formatDate(move.createdAt)}
+            <LocalDate value={move.createdAt} />
             {move.byName && ` · ${move.byName}`}
           </p>
         </li>

@@ -1,7 +1,7 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import { waitlistCsvColumns, type WaitlistImportResult } from '@shared/schemas/member-imports';
 import { checkColumn, CsvImport, nameEmailColumn, rowColumn, type PreviewRow } from '@/components/ui/csv-import';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { useImportWaitlist } from '../api/import-waitlist';
 import { waitlistTemplateUrl } from '../api/waitlist-files';
 import { needsOf, sizeShortLabels } from '../lib/format';
@@ -19,7 +19,7 @@ const columns: ColumnDef<PreviewRow<Row>>[] = [
     cell: ({ row }) => {
       const entry = row.original.entry;
       if (!entry) return '–';
-      return <span className="whitespace-nowrap">{entry.appliedOn ? formatDate(`${entry.appliedOn}T12:00:00Z`) : 'Today'}</span>;
+      return <span className="whitespace-nowrap">{entry.appliedOn ? <LocalDate value={entry.appliedOn} /> : 'Today'}</span>;
     },
   },
   {

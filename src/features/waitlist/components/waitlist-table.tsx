@@ -5,7 +5,7 @@ import type { WaitlistEntry } from '@shared/schemas/applications';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { DataTable } from '@/components/ui/data-table';
-import { formatDate } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 import { formatWaited, needsOf, sizeShortLabels } from '../lib/format';
 import { NeedsBadges } from './needs-badges';
 
@@ -57,7 +57,7 @@ function columns(onAction: (action: WaitlistAction, entry: WaitlistEntry) => voi
       cell: ({ row }) => (
         <div className="whitespace-nowrap">
           <span className="block">{formatWaited(row.original.waitedDays)}</span>
-          <span className="block text-sm text-stone">applied {formatDate(row.original.appliedAt)}</span>
+          <span className="block text-sm text-stone">applied <LocalDate value={row.original.appliedAt} /></span>
         </div>
       ),
     },

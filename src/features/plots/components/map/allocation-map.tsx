@@ -32,7 +32,7 @@ import { useElementWidth } from '../../hooks/use-element-width';
 import { kindClasses } from './plot-shape';
 import { plotName, statusClasses, statusWord } from './season-status';
 import { ScaleBar } from './scale-bar';
-import { formatDate, formatDateTime } from '@/lib/format';
+import { LocalDate } from '@/lib/time-zone';
 
 /** Someone on the waitlist, as the allocation map shows them. */
 export interface AllocationPerson extends SuggestPerson {
@@ -254,14 +254,14 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
               {selectedState?.holder && <p>Held by {selectedState.holder.name}.</p>}
               {selectedState?.renewal && (
                 <p>
-                  Waiting for {selectedState.renewal.name} to keep or give it up (by {formatDate(selectedState.renewal.deadline)}).
+                  Waiting for {selectedState.renewal.name} to keep or give it up (by <LocalDate value={selectedState.renewal.deadline} />).
                 </p>
               )}
               {selectedState?.offer && (
                 <div className="flex flex-wrap items-center gap-3">
                   <p className="flex items-center gap-2">
                     <Hourglass className="size-4" aria-hidden="true" /> Offered to {selectedState.offer.name}, answer by{' '}
-                    {formatDateTime(selectedState.offer.deadline)}.
+                    <LocalDate value={selectedState.offer.deadline} withTime />.
                   </p>
                   <Button variant="secondary" disabled={busy} onClick={() => void onWithdraw(selectedState.offer!.id).then(() => setNotice({ tone: 'success', text: 'Offer withdrawn.' }))}>
                     Withdraw offer
@@ -341,7 +341,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
               </dd>
               <dt className="font-medium">Answer by</dt>
               <dd>
-                {formatDateTime(confirming.quote.deadline)} ({confirming.quote.offerDays} days)
+                <LocalDate value={confirming.quote.deadline} withTime /> ({confirming.quote.offerDays} days)
               </dd>
               <dt className="font-medium">Fee</dt>
               <dd>
