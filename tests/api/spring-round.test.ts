@@ -306,7 +306,7 @@ describe('withdrawing an offer', () => {
     expect((await anon.get(`/api/offers/preview?token=${encodeURIComponent(token)}`)).body).toMatchObject({ kind: 'offer', status: 'withdrawn' });
     const late = await anon.post('/api/offers/accept', { token });
     expect(late.status).toBe(410);
-    expect(late.body.error.message).toBe('This offer has already been withdrawn.');
+    expect(late.body.error.message).toBe('This offer has been closed by the club.');
     expect(await t.db('allocations').count()).toEqual([{ count: 0 }]);
 
     // A second withdrawal is a conflict; the plot can be offered to someone else at once.
