@@ -82,34 +82,40 @@ export interface InviteToIssue {
 
 /** Records an invitation and e-mails its link; the members page and a members import both invite this way. */
 export async function issueInvite(db: Knex, mailer: Mailer, p: InviteToIssue): Promise<InviteRow> {
+  const row = await db.transaction((trx) => recordInvite(trx, p));
+  kickMail(db, mailer);
+  return row;
+}
+
+/**
+ * Records an invitation and writes its e-mail to the outbox inside the caller's transaction, so
+ * an import's invitations exist exactly when its rows do. Call `kickMail` after the commit.
+ */
+export async function recordInvite(trx: Knex.Transaction, p: InviteToIssue): Promise<InviteRow> {
   const now = p.now ?? new Date();
   const { token, hash } = newToken();
   const expiresAt = new Date(now.getTime() + INVITE_TTL_MS);
-  const row = await db.transaction(async (trx) => {
-    const [inserted] = await trx('invites')
-      .insert({
-        club_id: p.clubId,
-        email: p.email,
-        name: p.name,
-        roles: p.roles,
-        token_hash: hash,
-        expires_at: expiresAt,
-        invited_by_user_id: p.invitedBy,
-      })
-      .returning('*');
-    await enqueueMail(trx, { clubId: p.clubId, kind: 'invite' }, inviteMail({
-      to: p.email,
+  const [inserted] = await trx('invites')
+    .insert({
+      club_id: p.clubId,
+      email: p.email,
       name: p.name,
-      clubName: p.clubName,
-      roles: p.roles.map((r) => roleLabels[r]),
-      url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
-      expiresAt,
-      timeZone: await clubTimeZone(trx, p.clubId),
-    }));
-    return inserted;
-  });
-  kickMail(db, mailer);
-  return row;
+      roles: p.roles,
+      token_hash: hash,
+      expires_at: expiresAt,
+      invited_by_user_id: p.invitedBy,
+    })
+    .returning('*');
+  await enqueueMail(trx, { clubId: p.clubId, kind: 'invite' }, inviteMail({
+    to: p.email,
+    name: p.name,
+    clubName: p.clubName,
+    roles: p.roles.map((r) => roleLabels[r]),
+    url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
+    expiresAt,
+    timeZone: await clubTimeZone(trx, p.clubId),
+  }));
+  return inserted;
 }
 
 /** The club's invitations that are neither accepted nor expired, newest first. */

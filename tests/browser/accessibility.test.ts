@@ -47,5 +47,5 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       expect(w.errors).toEqual([]);
       await w.page.context().close();
     }
-  });
+  }, 120_000); // eight pages at two widths, each with an axe run
 });

@@ -157,7 +157,7 @@ describe('applying for a plot and the waitlist', () => {
       await w.page.getByRole('button', { name: 'Import 2 people' }).click();
       await w.page.getByText('Imported 2 people (2 new).').waitFor();
       await w.page.getByLabel('Filter members').fill(`Wren ${suffix}`);
-      await w.page.getByRole('cell', { name: `Wren ${suffix}` }).waitFor();
+      await w.page.getByRole('cell', { name: `Wren ${suffix}`, exact: true }).waitFor();
       expect(await db('users').where({ email: `ash.${suffix}@example.org` }).first('password_hash')).toEqual({ password_hash: null });
       expect(w.errors).toEqual([]);
     }

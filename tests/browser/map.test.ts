@@ -85,20 +85,20 @@ describe('the map editor', () => {
 
   it('grows a plot when its grip is dragged down and to the right, and saves the size that was shown', async () => {
     const w = await openMap(1280);
-    const before = await plotRow('A-4');
-    await plot(w.page, 'A-4').click();
+    const before = await plotRow('A-6');
+    await plot(w.page, 'A-6').click();
     const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
     const scale = map.width / 34; // the site is 34 m wide
-    const grip = (await w.page.getByRole('button', { name: 'Resize plot A-4' }).boundingBox())!;
+    const grip = (await w.page.getByRole('button', { name: 'Resize plot A-6' }).boundingBox())!;
     const x = grip.x + grip.width / 2;
     const y = grip.y + grip.height / 2;
     await w.page.mouse.move(x, y);
     await w.page.mouse.down();
-    // Small real pointer moves, as a hand makes them: 0.5 m east and 0.5 m south in all (the path to B-4 is 0.9 m).
+    // Small real pointer moves, as a hand makes them: 0.5 m east and 0.5 m south in all (the path to B-6 is 0.9 m).
     for (let i = 1; i <= 20; i++) await w.page.mouse.move(x + (0.5 * scale * i) / 20, y + (0.5 * scale * i) / 20);
-    const shown = (await plot(w.page, 'A-4').boundingBox())!;
+    const shown = (await plot(w.page, 'A-6').boundingBox())!;
     await savedAfter(w.page, () => w.page.mouse.up());
-    const after = await plotRow('A-4');
+    const after = await plotRow('A-6');
     // Computed: 0.5 m and 0.5 m of pointer travel, snapped to the 0.1 m grid.
     const [east, south] = after.rotation === 90 ? [after.length_m, after.width_m] : [after.width_m, after.length_m];
     const [eastBefore, southBefore] = before.rotation === 90 ? [before.length_m, before.width_m] : [before.width_m, before.length_m];

@@ -19,7 +19,7 @@ describe('signing in', () => {
     await w.shot('sign-in-coordinator-desktop');
 
     await nav.getByRole('link', { name: 'Members' }).click();
-    await w.page.getByRole('cell', { name: 'Teodor Lind' }).waitFor();
+    await w.page.getByRole('cell', { name: 'Teodor Lind', exact: true }).waitFor();
     await w.shot('members-desktop');
     expect(w.errors).toEqual([]);
   });

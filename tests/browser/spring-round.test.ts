@@ -125,6 +125,8 @@ describe('the spring round in the browser', () => {
       await confirm.waitFor();
       await confirm.getByRole('button', { name: 'Cancel' }).click();
       await confirm.waitFor({ state: 'hidden' });
+      // Closing the dialog returns focus to the chip, which may scroll it into view: let that settle before measuring again.
+      await w.page.evaluate(() => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(() => r(null)))));
     }
     expect(await db('offers').count({ n: '*' }).first()).toEqual(offersBefore);
     expect(w.errors).toEqual([]);
