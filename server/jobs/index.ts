@@ -3,6 +3,7 @@ import PgBoss from 'pg-boss';
 import type { Logger } from 'pino';
 import type { Mailer } from '../mail/mailer';
 import { sendDueMail } from '../services/outbox';
+import { pruneIdempotencyKeys } from '../middleware/idempotency';
 import { sweepDeadlines } from './deadlines';
 
 export const DEADLINE_QUEUE = 'deadline-sweep';
@@ -27,6 +28,7 @@ export async function startJobs(databaseUrl: string, db: Knex, mailer: Mailer, l
   await boss.schedule(DEADLINE_QUEUE, '* * * * *');
   await boss.work(DEADLINE_QUEUE, async () => {
     const done = await sweepDeadlines(db, new Date());
+    await pruneIdempotencyKeys(db, new Date());
     if (done.offersLapsed || done.renewalsLapsed) log.info(done, 'deadlines swept');
   });
   await boss.send(DEADLINE_QUEUE, {});

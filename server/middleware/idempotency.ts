@@ -3,6 +3,16 @@ import type { RequestHandler, Response } from 'express';
 import { AppError } from '../errors';
 import type { Db } from '../db/knex';
 
+/** A key still "being handled" after this long belongs to a request that died (a crash): it may be claimed again. */
+export const ABANDONED_AFTER_MS = 2 * 60 * 1000;
+/** Remembered answers are kept this long: retries come within minutes, not days. */
+export const KEEP_ANSWERS_MS = 24 * 60 * 60 * 1000;
+
+/** Forgets remembered answers older than a day; run by the deadline sweep job. */
+export async function pruneIdempotencyKeys(db: Db, now: Date): Promise<number> {
+  return db('idempotency_keys').where('created_at', '<', new Date(now.getTime() - KEEP_ANSWERS_MS)).delete();
+}
+
 /** What a client may send as an Idempotency-Key: 1 to 200 visible ASCII characters (a UUID fits). */
 const KEY = /^[\x21-\x7e]{1,200}$/;
 
@@ -43,11 +53,22 @@ export function idempotent(db: Db): RequestHandler {
     const where = { scope: `user:${userId}`, route: `${req.method} ${req.baseUrl}${req.path}`, key };
     const requestHash = crypto.createHash('sha256').update(canonical(req.body)).digest('hex');
 
-    const inserted = await db('idempotency_keys')
-      .insert({ ...where, club_id: req.clubId ?? null, request_hash: requestHash })
-      .onConflict(['scope', 'route', 'key'])
-      .ignore()
-      .returning('id');
+    const claim = () =>
+      db('idempotency_keys')
+        .insert({ ...where, club_id: req.clubId ?? null, request_hash: requestHash })
+        .onConflict(['scope', 'route', 'key'])
+        .ignore()
+        .returning('id');
+    let inserted = await claim();
+    if (inserted.length === 0) {
+      // A claim left unanswered by a request that died is given up, once, so a retry can proceed.
+      const abandoned = await db('idempotency_keys')
+        .where(where)
+        .whereNull('response_status')
+        .where('created_at', '<', new Date(Date.now() - ABANDONED_AFTER_MS))
+        .delete();
+      if (abandoned > 0) inserted = await claim();
+    }
     if (inserted.length === 0) {
       const row = await db('idempotency_keys').where(where).first();
       if (row && row.request_hash !== requestHash) {

@@ -10,6 +10,7 @@ import type { WaitlistMove } from '@shared/schemas/waitlist';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
+import { lapseOverdueOffersOfClub } from './offers';
 import { enqueueMail, kickMail } from './outbox';
 import { alreadyOnWaitlistMail, applicationReceivedMail } from '../mail/waitlist-templates';
 
@@ -205,7 +206,8 @@ function entries(db: Db, clubId: number) {
 }
 
 /** A club's waitlist in queue order; positions count only the people waiting, whatever the filter shows. */
-export async function listWaitlist(db: Db, clubId: number, query: WaitlistQuery, now = new Date()) {
+export async function listWaitlist(db: Knex, clubId: number, query: WaitlistQuery, now = new Date()) {
+  await lapseOverdueOffersOfClub(db, clubId, now);
   const q = entries(db, clubId).orderBy('a.queue_at').orderBy('a.id');
   if (query.status !== 'all') q.where('a.status', query.status);
   if (query.needs === 'accessible') q.where('a.needs_accessible', true);

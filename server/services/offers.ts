@@ -191,7 +191,7 @@ async function restoreWaiting(trx: Knex.Transaction, applicationId: number, now:
  * Lapses, inside the caller's transaction, every open offer and renewal past its deadline on a plot
  * or of a person, as the sweep would: the deadline decides, not when the sweep last ran.
  */
-export async function lapseOverdue(trx: Knex.Transaction, where: { plotId?: number; applicationId?: number }, now: Date) {
+export async function lapseOverdue(trx: Knex.Transaction, where: { plotId?: number; applicationId?: number; clubId?: number }, now: Date) {
   const offers = await trx('offers as o')
     .join('applications as a', 'a.id', 'o.application_id')
     .join('seasons as s', 's.id', 'o.season_id')
@@ -201,6 +201,7 @@ export async function lapseOverdue(trx: Knex.Transaction, where: { plotId?: numb
     .modify((q) => {
       if (where.plotId !== undefined) q.where('o.plot_id', where.plotId);
       if (where.applicationId !== undefined) q.where('o.application_id', where.applicationId);
+      if (where.clubId !== undefined) q.where('s.club_id', where.clubId);
     })
     .forUpdate('o')
     .select('o.id', 'o.plot_id', 'o.application_id', 'a.name', 'c.declined_offer_policy');
@@ -370,4 +371,17 @@ export async function withdrawOffer(db: Knex, opts: { offerId: number; userId: n
     await restoreWaiting(trx, o.application_id, now);
     await recordPlotEvent(trx, { plotId: o.plot_id, userId: opts.userId, kind: 'offer_withdrawn', details: { summary: `Offer to ${o.name} withdrawn` } });
   });
+}
+
+/**
+ * Lapses a club's overdue offers before its waitlist is read, so nobody reads as "offered" past
+ * the deadline while the sweep has yet to run. Writes only when something is overdue.
+ */
+export async function lapseOverdueOffersOfClub(db: Knex, clubId: number, now: Date) {
+  const overdue = await db('offers as o')
+    .join('seasons as s', 's.id', 'o.season_id')
+    .where({ 's.club_id': clubId, 'o.status': 'pending' })
+    .where('o.deadline', '<=', now)
+    .first('o.id');
+  if (overdue) await db.transaction((trx) => lapseOverdue(trx, { clubId }, now));
 }

@@ -1,7 +1,9 @@
+import crypto from 'node:crypto';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { buildClub, buildMember } from '../factories';
 import { setupTestApp, truncateAll } from '../helpers/app';
 import { signedInMember, type Agent } from '../helpers/api';
+import { pruneIdempotencyKeys } from '../../server/middleware/idempotency';
 
 const t = setupTestApp();
 afterAll(() => t.close());
@@ -88,5 +90,34 @@ describe('Idempotency-Key on creating requests', () => {
     expect(again.status).toBe(201);
     expect(again.body.id).toBe(first.body.id);
     expect(await t.db('offers').count({ n: '*' })).toEqual([{ n: 1 }]);
+  });
+});
+
+describe('Idempotency-Key housekeeping', () => {
+  it('lets a retry claim a key whose first request died unanswered, but not one still fresh', async () => {
+    const { c, feeId } = await feeToPay();
+    const route = `POST /api/fees/${feeId}/payments`;
+    // The hash the middleware keeps: SHA-256 of the body as JSON with its keys sorted (computed).
+    const hash = crypto.createHash('sha256').update('{"amountMinor":2000,"method":"cash","paidOn":"2027-03-14"}').digest('hex');
+    // A claim with no answer, as a crash mid-request leaves it: fresh (1 s old), then abandoned (10 min old).
+    const [row] = await t.db('idempotency_keys')
+      .insert({ scope: `user:${c.person.id}`, route, key: 'pay-crash', request_hash: hash, created_at: new Date(Date.now() - 1000) })
+      .returning('id');
+    const fresh = await pay(c, feeId, cash, 'pay-crash');
+    expect(fresh.status).toBe(409);
+    expect(fresh.body.error.message).toBe('A request with this Idempotency-Key is still being handled. Try again in a moment.');
+    await t.db('idempotency_keys').where({ id: row.id }).update({ created_at: new Date(Date.now() - 10 * 60 * 1000) });
+    const retried = await pay(c, feeId, cash, 'pay-crash');
+    expect(retried.status, JSON.stringify(retried.body)).toBe(201);
+    expect(await payments(feeId)).toBe(1);
+  });
+
+  it('forgets remembered answers older than a day', async () => {
+    const { c, feeId } = await feeToPay();
+    expect((await pay(c, feeId, cash, 'pay-old')).status).toBe(201);
+    expect((await pay(c, feeId, { ...cash, amountMinor: 1000 }, 'pay-new')).status).toBe(201);
+    await t.db('idempotency_keys').where({ key: 'pay-old' }).update({ created_at: new Date(Date.now() - 25 * 3600 * 1000) });
+    expect(await pruneIdempotencyKeys(t.db, new Date())).toBe(1);
+    expect(await t.db('idempotency_keys').pluck('key')).toEqual(['pay-new']);
   });
 });

@@ -1,6 +1,7 @@
 import {
   DndContext,
   DragOverlay,
+  MeasuringStrategy,
   PointerSensor,
   pointerWithin,
   useDraggable,
@@ -73,6 +74,7 @@ function PlotTile({ plot, state, scale, selected, onSelect }: { plot: Plot; stat
       aria-pressed={selected}
       aria-label={plotName(plot.label, status, who, plot.kind)}
       data-plot-label={plot.label}
+      data-drop-over={isOver ? 'true' : undefined}
       className={`absolute flex flex-col items-center justify-center overflow-hidden text-soil ${kindClasses[plot.kind]} ${statusClasses[status]} ${
         selected ? 'z-20 ring-4 ring-leaf' : ''
       } ${isOver ? 'z-20 ring-4 ring-water' : ''}`}
@@ -204,6 +206,10 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
       sensors={sensors}
       // The plot under the pointer is the target, not the one the dragged chip overlaps most.
       collisionDetection={pointerWithin}
+      // Plots are measured afresh during the drag and the page does not scroll under it, so the
+      // drop zones stay where the plots are drawn after any scroll or zoom.
+      measuring={{ droppable: { strategy: MeasuringStrategy.Always } }}
+      autoScroll={false}
       accessibility={{ announcements }}
       onDragStart={(e) => setDragging(people.find((p) => `person:${p.id}` === e.active.id) ?? null)}
       onDragEnd={onDragEnd}
