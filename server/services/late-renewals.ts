@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { addCalendarDays, endOfLocalDay, localToday } from '@shared/dates';
+import { deadlineAfterDays } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
 import type { LeftOutHolder } from '@shared/schemas/seasons';
 import type { Db } from '../db/knex';
@@ -8,41 +8,25 @@ import type { Mailer } from '../mail/mailer';
 import { renewalMail } from '../mail/templates';
 import { enqueueMail, kickMail } from './outbox';
 import { recordPlotEvent } from './plot-events';
+import { previousHolders } from './seasons';
 import { newToken } from './tokens';
 
 /**
  * Last season's holders who have no renewal in this season, read afresh each time so the
  * season page says who was left out and why after a reload, and notices when a late payer has
- * since paid. Four queries whatever the number of holders.
+ * since paid. A fixed number of queries whatever the number of holders.
  */
-export async function leftOutHolders(db: Db, seasonId: number): Promise<LeftOutHolder[]> {
+export async function leftOutHolders(db: Db, seasonId: number, now: Date = new Date()): Promise<LeftOutHolder[]> {
   const season = await db('seasons as s').join('clubs as c', 'c.id', 's.club_id').where('s.id', seasonId).first('s.id', 's.club_id', 's.year', 'c.currency');
   if (!season) throw notFound('The season');
-  const prev = await db('seasons').where({ club_id: season.club_id }).where('year', '<', season.year).orderBy('year', 'desc').first('id');
-  if (!prev) return [];
-  const rows = await db('allocations as a')
-    .join('users as u', 'u.id', 'a.user_id')
-    .join('plots as p', 'p.id', 'a.plot_id')
-    .join('sites as st', 'st.id', 'p.site_id')
-    .leftJoin('fees as f', 'f.allocation_id', 'a.id')
-    .where({ 'a.season_id': prev.id, 'a.status': 'active' })
-    .whereNotExists((q) => q.select(1).from('renewals as r').where('r.season_id', seasonId).whereRaw('r.previous_allocation_id = a.id'))
-    .orderBy(['st.name', 'p.label'])
-    .select(
-      'a.id as allocation_id',
-      'u.id as user_id',
-      'u.name',
-      'p.id as plot_id',
-      'p.label',
-      'p.deleted_at',
-      'st.name as site_name',
-      db.raw(
-        `coalesce(f.plot_fee_minor + f.deposit_minor - (select coalesce(sum(amount_minor), 0) from payments where fee_id = f.id and kind = 'payment'), 0) as owed`,
-      ),
-    );
+  const renewed = new Set<number>(await db('renewals').where({ season_id: seasonId }).pluck('previous_allocation_id'));
+  const rows = (await previousHolders(db, season.club_id, season.year))
+    .filter((h) => !renewed.has(h.allocation_id))
+    .sort((a, b) => a.site_name.localeCompare(b.site_name) || a.label.localeCompare(b.label));
   if (rows.length === 0) return [];
   const plotIds = rows.map((r) => r.plot_id);
-  // Plots that are no longer free this season: someone holds them, or an offer or renewal is open.
+  // Plots that are no longer free this season: someone holds them, or an offer or renewal is open
+  // (one past its deadline has lapsed, swept or not).
   const busy = new Set<number>(
     (
       await db
@@ -50,14 +34,16 @@ export async function leftOutHolders(db: Db, seasonId: number): Promise<LeftOutH
         .from('allocations')
         .where({ season_id: seasonId, status: 'active' })
         .whereIn('plot_id', plotIds)
-        .union((q) => q.select('plot_id').from('offers').where({ season_id: seasonId, status: 'pending' }).whereIn('plot_id', plotIds))
-        .union((q) => q.select('plot_id').from('renewals').where({ season_id: seasonId, status: 'pending' }).whereIn('plot_id', plotIds))
+        .union((q) => q.select('plot_id').from('offers').where({ season_id: seasonId, status: 'pending' }).where('deadline', '>', now).whereIn('plot_id', plotIds))
+        .union((q) => q.select('plot_id').from('renewals').where({ season_id: seasonId, status: 'pending' }).where('deadline', '>', now).whereIn('plot_id', plotIds))
     ).map((r: { plot_id: number }) => r.plot_id),
   );
   return rows.map((r) => {
-    const owedMinor = Math.max(0, Number(r.owed));
+    const owedMinor = Math.max(0, r.owed);
+    const gone = Boolean(r.plot_removed_at || r.site_archived_at);
     let reason: string;
-    if (r.deleted_at) reason = 'The plot was removed from the map';
+    if (r.plot_removed_at) reason = 'The plot was removed from the map';
+    else if (r.site_archived_at) reason = `The site ${r.site_name} is archived`;
     else if (owedMinor > 0) reason = `Last season’s fee is not fully paid (${formatMoney(owedMinor, season.currency)} owed)`;
     else if (busy.has(r.plot_id)) reason = 'Paid since, but the plot has gone to someone else this season';
     else reason = 'Paid since the season opened: a renewal can be sent now';
@@ -71,7 +57,7 @@ export async function leftOutHolders(db: Db, seasonId: number): Promise<LeftOutH
       owedMinor,
       currency: season.currency,
       reason,
-      canRenew: !r.deleted_at && owedMinor === 0 && !busy.has(r.plot_id),
+      canRenew: !gone && owedMinor === 0 && !busy.has(r.plot_id),
     };
   });
 }
@@ -96,14 +82,14 @@ export async function renewLeftOutHolder(
     const candidate = await trx('allocations').where({ id: opts.allocationId }).first('plot_id');
     if (!candidate) throw notFound('The holder');
     await trx('plots').where({ id: candidate.plot_id }).forUpdate().first('id');
-    const holder = (await leftOutHolders(trx, opts.seasonId)).find((h) => h.allocationId === opts.allocationId);
+    const holder = (await leftOutHolders(trx, opts.seasonId, now)).find((h) => h.allocationId === opts.allocationId);
     if (!holder) throw new AppError('conflict', 'This holder already has a renewal for this season, or did not hold a plot last season.');
     if (!holder.canRenew) throw new AppError('conflict', `No renewal can be sent: ${holder.reason.toLowerCase()}.`);
     // The season's deadline if still ahead; otherwise the end of the club's day, its renewal days from today.
     const deadline =
       season.renewal_deadline && season.renewal_deadline > now
         ? season.renewal_deadline
-        : endOfLocalDay(addCalendarDays(localToday(season.time_zone, now), season.renewal_days), season.time_zone);
+        : deadlineAfterDays(season.renewal_days, season.time_zone, now);
     const { token, hash } = newToken();
     await trx('renewals').insert({
       season_id: season.id,

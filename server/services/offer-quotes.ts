@@ -1,5 +1,5 @@
 import type { OfferQuote } from '@shared/schemas/seasons';
-import { addCalendarDays, endOfLocalDay, localToday } from '@shared/dates';
+import { deadlineAfterDays } from '@shared/dates';
 import { meetsNeeds } from '@shared/spring-round/suggest';
 import type { Db } from '../db/knex';
 import { AppError, notFound } from '../errors';
@@ -24,6 +24,7 @@ export async function quoteOffer(
     .join('sites as st', 'st.id', 'p.site_id')
     .where({ 'p.id': opts.plotId, 'st.club_id': opts.clubId })
     .whereNull('p.deleted_at')
+    .whereNull('st.archived_at')
     .first('p.id', 'p.label', 'p.kind', 'p.is_accessible', 'p.site_id', 'st.name as site_name');
   if (!plot) throw notFound('The plot');
   if (plot.kind === 'shared_bed') throw new AppError('conflict', 'A shared bed is tended by the club together and is not offered to one person.');
@@ -37,7 +38,7 @@ export async function quoteOffer(
     plotLabel: plot.label,
     siteName: plot.site_name,
     // The same rule as making the offer: the end of the club's day, its offer days from today.
-    deadline: endOfLocalDay(addCalendarDays(localToday(season.time_zone, now), season.offer_days), season.time_zone).toISOString(),
+    deadline: deadlineAfterDays(season.offer_days, season.time_zone, now).toISOString(),
     offerDays: season.offer_days,
     fee: {
       plotFeeMinor: quote.plotFeeMinor,

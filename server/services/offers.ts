@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { addCalendarDays, endOfLocalDay, formatDate, localToday } from '@shared/dates';
+import { deadlineAfterDays, formatDate } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
 import type { LinkPreview, Offer } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
@@ -12,6 +12,7 @@ import { plotFacts } from './link-preview';
 import { grantRoles } from './memberships';
 import { createPasswordLink } from './password-resets';
 import { recordPlotEvent } from './plot-events';
+import { clubOfPlot } from './plots';
 import { plotBlocker } from './season-plots';
 import { hashToken, newToken } from './tokens';
 
@@ -81,7 +82,7 @@ export async function createOffer(
         );
       }
       // By default the offer stays open to the end of the club's day, offer_days from today.
-      const deadline = opts.deadline ?? endOfLocalDay(addCalendarDays(localToday(season.time_zone, now), season.offer_days), season.time_zone);
+      const deadline = opts.deadline ?? deadlineAfterDays(season.offer_days, season.time_zone, now);
       if (deadline <= now) throw new AppError('validation_failed', 'The deadline must be in the future.', { deadline: 'Choose a later date' });
       const { token, hash } = newToken();
       const [row] = await trx('offers')
@@ -155,13 +156,7 @@ function assertPending(row: { status: string; deadline: Date }, now: Date) {
 
 /** Whether the plot is still on the map (not removed, its site not archived). */
 export async function plotStillThere(trx: Knex.Transaction, plotId: number): Promise<boolean> {
-  const row = await trx('plots as p')
-    .join('sites as s', 's.id', 'p.site_id')
-    .where('p.id', plotId)
-    .whereNull('p.deleted_at')
-    .whereNull('s.archived_at')
-    .first('p.id');
-  return Boolean(row);
+  return (await clubOfPlot(trx, plotId)) !== null;
 }
 
 const PLOT_REMOVED = 'The club has taken this plot off its map since the offer was sent, so it can no longer be accepted. Your place on the waitlist is kept.';
@@ -191,7 +186,12 @@ async function restoreWaiting(trx: Knex.Transaction, applicationId: number, now:
  * Lapses, inside the caller's transaction, every open offer and renewal past its deadline on a plot
  * or of a person, as the sweep would: the deadline decides, not when the sweep last ran.
  */
-export async function lapseOverdue(trx: Knex.Transaction, where: { plotId?: number; applicationId?: number; clubId?: number }, now: Date) {
+export async function lapseOverdue(
+  trx: Knex.Transaction,
+  where: { plotId?: number; applicationId?: number; clubId?: number },
+  now: Date,
+  opts: { skipLocked?: boolean } = {},
+): Promise<{ offersLapsed: number; renewalsLapsed: number }> {
   const offers = await trx('offers as o')
     .join('applications as a', 'a.id', 'o.application_id')
     .join('seasons as s', 's.id', 'o.season_id')
@@ -204,17 +204,31 @@ export async function lapseOverdue(trx: Knex.Transaction, where: { plotId?: numb
       if (where.clubId !== undefined) q.where('s.club_id', where.clubId);
     })
     .forUpdate('o')
+    .modify((q) => {
+      if (opts.skipLocked) q.skipLocked();
+    })
     .select('o.id', 'o.plot_id', 'o.application_id', 'a.name', 'c.declined_offer_policy');
   for (const o of offers) await lapseOffer(trx, o, now);
-  if (where.plotId !== undefined) {
+  // Renewals belong to a plot: lapsed for one plot, or for all when nothing narrows the call (the sweep).
+  const everything = where.plotId === undefined && where.applicationId === undefined && where.clubId === undefined;
+  let renewalsLapsed = 0;
+  if (where.plotId !== undefined || everything) {
     const renewals = await trx('renewals as r')
       .join('users as u', 'u.id', 'r.user_id')
-      .where({ 'r.status': 'pending', 'r.plot_id': where.plotId })
+      .where('r.status', 'pending')
       .where('r.deadline', '<=', now)
+      .modify((q) => {
+        if (where.plotId !== undefined) q.where('r.plot_id', where.plotId);
+      })
       .forUpdate('r')
+      .modify((q) => {
+        if (opts.skipLocked) q.skipLocked();
+      })
       .select('r.id', 'r.plot_id', 'u.name');
     for (const r of renewals) await lapseRenewal(trx, r, now);
+    renewalsLapsed = renewals.length;
   }
+  return { offersLapsed: offers.length, renewalsLapsed };
 }
 
 /** Lapses one open offer at its deadline; the person follows the club's rule. Inside the caller's transaction. */
@@ -383,5 +397,5 @@ export async function lapseOverdueOffersOfClub(db: Knex, clubId: number, now: Da
     .where({ 's.club_id': clubId, 'o.status': 'pending' })
     .where('o.deadline', '<=', now)
     .first('o.id');
-  if (overdue) await db.transaction((trx) => lapseOverdue(trx, { clubId }, now));
+  if (overdue) await db.transaction(async (trx) => void (await lapseOverdue(trx, { clubId }, now)));
 }

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { addCalendarDays, endOfLocalDay, formatDate, localToday } from '@shared/dates';
+import { deadlineAfterDays, formatDate } from '@shared/dates';
 import type { Season } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
@@ -61,8 +61,8 @@ export async function getSeason(db: Db, seasonId: number): Promise<Season> {
   return (await withCounts(db, [row]))[0];
 }
 
-/** Holders of the club's latest season before `year`, each with whether they are in good standing (fee paid). */
-async function previousHolders(trx: Knex.Transaction, clubId: number, year: number) {
+/** Holders of the club's latest season before `year`, each with what they still owe on its fee. */
+export async function previousHolders(trx: Db, clubId: number, year: number) {
   const prev = await trx('seasons').where({ club_id: clubId }).where('year', '<', year).orderBy('year', 'desc').first('id', 'year');
   if (!prev) return [];
   const rows = await trx('allocations as a')
@@ -102,7 +102,7 @@ export async function openSeason(
   const club = await db('clubs').where({ id: opts.clubId }).first('name', 'renewal_days', 'time_zone');
   if (!club) throw notFound('The club');
   // By default renewals stay open to the end of the club's day, renewal_days from today.
-  const renewalDeadline = opts.renewalDeadline ?? endOfLocalDay(addCalendarDays(localToday(club.time_zone, now), club.renewal_days), club.time_zone);
+  const renewalDeadline = opts.renewalDeadline ?? deadlineAfterDays(club.renewal_days, club.time_zone, now);
   if (renewalDeadline <= now) {
     throw new AppError('validation_failed', 'The renewal deadline must be in the future.', { renewalDeadline: 'Choose a later date' });
   }

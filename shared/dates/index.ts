@@ -81,6 +81,11 @@ export function endOfLocalDay(isoDate: string, timeZone: string): Date {
   return new Date(Math.floor(end.getTime() / 1000) * 1000);
 }
 
+/** A deadline `days` calendar days from today in `timeZone`, at the end of that day: the rule offers and renewals share. */
+export function deadlineAfterDays(days: number, timeZone: string, now: Date = new Date()): Date {
+  return endOfLocalDay(addCalendarDays(localToday(timeZone, now), days), timeZone);
+}
+
 /** The calendar date (YYYY-MM-DD) an instant falls on in `timeZone`. */
 export function localDateOf(value: Date | string, timeZone: string): string {
   const d = instant(value);

@@ -82,7 +82,7 @@ function collectKeys(schema: z.ZodType, keys: Set<string>, seen: Set<unknown>) {
   }
 }
 
-const schemaModules = import.meta.glob<Record<string, unknown>>(['../../shared/schemas/*.ts', '!../../shared/schemas/*.test.ts'], { eager: true });
+const schemaModules = import.meta.glob<Record<string, unknown>>(['/shared/schemas/*.ts', '!/shared/schemas/*.test.ts'], { eager: true }); // the project's own shared/, from the root
 const fieldNames = (() => {
   const keys = new Set<string>();
   const seen = new Set<unknown>();
