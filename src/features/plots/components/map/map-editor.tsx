@@ -1,6 +1,6 @@
 import { DndContext, PointerSensor, useSensor, useSensors, type DragEndEvent, type DragMoveEvent } from '@dnd-kit/core';
 import { Minus, Plus, SquarePlus } from 'lucide-react';
-import { useCallback, useMemo, useState, type KeyboardEvent } from 'react';
+import { useCallback, useMemo, useRef, useState, type KeyboardEvent } from 'react';
 import { footprint, overlaps, snap, type Rect } from '@shared/geometry';
 import type { Plot, PlotCreateBody } from '@shared/schemas/plots';
 import type { PlotSeasonState } from '@shared/schemas/seasons';
@@ -61,6 +61,8 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
   const [selectedId, setSelectedId] = useState<number | null>(initialPlotId);
   const [zoom, setZoom] = useState(1);
   const [drag, setDrag] = useState<DragState | null>(null);
+  /** The drag as last drawn: what is saved on release, so the saved size is the one on screen. */
+  const shownDrag = useRef<DragState | null>(null);
   const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
   const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
 
@@ -129,13 +131,18 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
 
   function onDragMove(e: DragMoveEvent) {
     const [kind, id] = String(e.active.id).split(':');
-    setDrag({ kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y });
+    const d: DragState = { kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y };
+    shownDrag.current = d;
+    setDrag(d);
   }
 
   function onDragEnd(e: DragEndEvent) {
     const [kind, id] = String(e.active.id).split(':');
     const plot = plots.find((p) => p.id === Number(id));
-    const d: DragState = { kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y };
+    const last = shownDrag.current;
+    shownDrag.current = null;
+    const d: DragState =
+      last && last.plotId === Number(id) && last.kind === kind ? last : { kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y };
     setDrag(null);
     if (!plot) return;
     setSelectedId(plot.id);
@@ -262,11 +269,6 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
             <Alert tone={notice.tone}>{notice.text}</Alert>
           </div>
         )}
-        {blocked && (
-          <p className="font-medium text-clay-700" role="status">
-            Here it would overlap another plot: plots may touch but not overlap.
-          </p>
-        )}
         <div ref={wrapRef} className="overflow-auto rounded-xl border border-paper-300 bg-white">
           {/* No auto-scroll: scrolling the page under a drag moved the plot further than the pointer and ran it off the map. */}
           <DndContext
@@ -322,6 +324,10 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
             </div>
           </DndContext>
         </div>
+        {/* Below the map, so it never moves the map under the pointer during a drag. */}
+        <p className="min-h-6 font-medium text-clay-700" role="status">
+          {blocked ? 'Here it would overlap another plot: plots may touch but not overlap.' : ''}
+        </p>
         <div className="flex flex-wrap items-center justify-between gap-3">
           <div className="flex items-end gap-4">
             <ScaleBar scale={scale} units={site.units} />
