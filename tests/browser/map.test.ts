@@ -143,6 +143,37 @@ describe('the map editor', () => {
     expect(w.errors).toEqual([]);
   });
 
+  it('follows the pointer when a resize runs into a neighbour, then puts the plot back and saves nothing', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('B-7');
+    await plot(w.page, 'B-7').click();
+    const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
+    const scale = map.width / 34;
+    const grip = (await w.page.getByRole('button', { name: 'Resize plot B-7' }).boundingBox())!;
+    const plotBefore = (await plot(w.page, 'B-7').boundingBox())!;
+    const x = grip.x + grip.width / 2;
+    const y = grip.y + grip.height / 2;
+    const patches: number[] = [];
+    w.page.on('request', (r) => {
+      if (r.url().includes('/api/plots/') && r.method() === 'PATCH') patches.push(1);
+    });
+    await w.page.mouse.move(x, y);
+    await w.page.mouse.down();
+    // 1.2 m east and south in small moves: east of B-7 the path to B-8 is only 0.9 m wide.
+    for (let i = 1; i <= 12; i++) await w.page.mouse.move(x + (1.2 * scale * i) / 12, y + (1.2 * scale * i) / 12);
+    await w.page.getByText('Here it would overlap another plot').waitFor();
+    const shown = (await plot(w.page, 'B-7').boundingBox())!;
+    // The drawing follows the pointer (computed: 1.2 m more each way, snapped to 0.1 m), not a runaway.
+    expect(Math.abs(shown.width - plotBefore.width - 1.2 * scale)).toBeLessThan(0.15 * scale);
+    expect(Math.abs(shown.height - plotBefore.height - 1.2 * scale)).toBeLessThan(0.15 * scale);
+    await w.page.mouse.up();
+    await w.page.getByText(/^Plot B-7 was put back: there it would overlap plot B-8/).first().waitFor();
+    expect(patches).toEqual([]);
+    const after = await plotRow('B-7');
+    expect([after.width_m, after.length_m, after.version]).toEqual([before.width_m, before.length_m, before.version]);
+    expect(w.errors).toEqual([]);
+  });
+
   it('moves a plot with the keyboard only, one grid step per arrow press', async () => {
     const w = await openMap(1280);
     const before = await plotRow('B-3');
