@@ -1,11 +1,13 @@
 import { Router } from 'express';
-import { SignInBodySchema, type SessionInfo } from '@shared/schemas/auth';
+import { CurrentClubBodySchema, SignInBodySchema, type SessionInfo } from '@shared/schemas/auth';
 import type { Deps } from '../deps';
 import { AppError, parseInput } from '../errors';
 import { csrfToken } from '../middleware/csrf';
 import { createSignInLimiter, signInLocked } from '../middleware/sign-in-limit';
 import { signIn, signOut } from '../middleware/session';
+import { requireUser } from '../middleware/auth';
 import { loadSessionUser, verifyCredentials } from '../services/auth';
+import { rememberCurrentClub } from '../services/memberships';
 
 /** Sign-in, sign-out and "who am I" (with the CSRF token the client sends back). */
 export function sessionRouter({ db, config }: Deps): Router {
@@ -33,6 +35,13 @@ export function sessionRouter({ db, config }: Deps): Router {
     await signIn(req, userId);
     const body: SessionInfo = { user: await loadSessionUser(db, userId), csrfToken: csrfToken(req, res, config) };
     res.json(body);
+  });
+
+  // The club the person is working in, so the next sign-in (on any device) opens it.
+  router.put('/club', requireUser, async (req, res) => {
+    const body = parseInput(CurrentClubBodySchema, req.body);
+    await rememberCurrentClub(db, req.session.userId!, body.clubId);
+    res.status(204).end();
   });
 
   router.delete('/', async (req, res) => {

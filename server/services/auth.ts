@@ -1,7 +1,7 @@
 import bcrypt from 'bcryptjs';
 import type { SessionUser } from '@shared/schemas/auth';
 import type { Db } from '../db/knex';
-import { clubsOfUser } from './memberships';
+import { clubsOfUser, startClub } from './memberships';
 
 // Compared against when the address is unknown, so a wrong address costs as long as a wrong password.
 const DUMMY_HASH = bcrypt.hashSync('not-a-real-password-for-timing', 10);
@@ -20,9 +20,10 @@ export async function verifyCredentials(db: Db, email: string, password: string)
 
 /** The signed-in person as the client sees them, or null when the account is gone. */
 export async function loadSessionUser(db: Db, userId: number): Promise<SessionUser | null> {
-  const user = await db('users').where({ id: userId }).first('id', 'email', 'name');
+  const user = await db('users').where({ id: userId }).first('id', 'email', 'name', 'last_club_id');
   if (!user) return null;
-  return { id: user.id, email: user.email, name: user.name, clubs: await clubsOfUser(db, userId) };
+  const clubs = await clubsOfUser(db, userId);
+  return { id: user.id, email: user.email, name: user.name, clubs, startClubId: startClub(clubs, user.last_club_id) };
 }
 
 /** Finds a user id by e-mail, case-insensitively. */

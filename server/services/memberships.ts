@@ -21,6 +21,31 @@ export async function clubsOfUser(db: Db, userId: number): Promise<ClubMembershi
   return rows.map((r) => ({ clubId: r.id, clubName: r.name, clubSlug: r.slug, roles: r.roles as Role[] }));
 }
 
+// How much a role gives a person to do in a club; a coordinator runs it, so that club comes first.
+const roleWeight: Record<Role, number> = { coordinator: 4, plot_holder: 2, volunteer: 1 };
+
+/**
+ * The club "/" opens: the one the person last worked in while they still belong to it, else the
+ * one where their roles give them the most to do (ties by name, the order of `clubs`).
+ */
+export function startClub(clubs: ClubMembership[], lastClubId: number | null): number | null {
+  if (lastClubId !== null && clubs.some((c) => c.clubId === lastClubId)) return lastClubId;
+  let best: ClubMembership | null = null;
+  let bestScore = -1;
+  for (const club of clubs) {
+    const score = club.roles.reduce((sum, role) => sum + roleWeight[role], 0);
+    if (score > bestScore) [best, bestScore] = [club, score];
+  }
+  return best ? best.clubId : null;
+}
+
+/** Remembers the club the person is working in; refuses a club they do not belong to. */
+export async function rememberCurrentClub(db: Db, userId: number, clubId: number): Promise<void> {
+  const member = await db('memberships').where({ user_id: userId, club_id: clubId }).first('club_id');
+  if (!member) throw new AppError('forbidden', 'You are not a member of this club.');
+  await db('users').where({ id: userId }).update({ last_club_id: clubId });
+}
+
 /** Adds roles to a person in a club, keeping roles they already hold. */
 export async function grantRoles(db: Db, clubId: number, userId: number, roles: Role[]): Promise<void> {
   if (roles.length === 0) return;

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { EmailSchema, PasswordSchema, textSchema } from './common';
+import { EmailSchema, IdSchema, PasswordSchema, textSchema } from './common';
 
 export const roles = ['coordinator', 'plot_holder', 'volunteer'] as const;
 export const RoleSchema = z.enum(roles);
@@ -30,6 +30,8 @@ export const SessionUserSchema = z.object({
   email: z.string(),
   name: z.string(),
   clubs: z.array(ClubMembershipSchema),
+  /** Where "/" takes them: the club they last opened, else the one where they have the most to do. */
+  startClubId: z.number().int().nullable(),
 });
 export type SessionUser = z.infer<typeof SessionUserSchema>;
 
@@ -39,6 +41,10 @@ export const SessionInfoSchema = z.object({
   csrfToken: z.string(),
 });
 export type SessionInfo = z.infer<typeof SessionInfoSchema>;
+
+/** PUT /api/session/club: the club the person is working in now. */
+export const CurrentClubBodySchema = z.strictObject({ clubId: IdSchema });
+export type CurrentClubBody = z.infer<typeof CurrentClubBodySchema>;
 
 export const PasswordResetRequestBodySchema = z.strictObject({ email: EmailSchema });
 export type PasswordResetRequestBody = z.infer<typeof PasswordResetRequestBodySchema>;

@@ -1,8 +1,14 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
+import { createDb } from '../../server/db/knex';
+import { testConfig } from '../helpers/app';
 import { openPage } from '../helpers/browser';
-import { seededServerAndBrowser, signInAs } from '../helpers/session';
+import { seededServerAndBrowser, signInAs, switchClub } from '../helpers/session';
 
 const suite = seededServerAndBrowser();
+const db = createDb(testConfig().databaseUrl);
+afterAll(async () => {
+  await db.destroy();
+});
 
 // From the front page: someone signed out is sent to the sign-in form.
 const signIn = (width: number, email: string) => signInAs(suite.browser, suite.server.url, email, width, '/');
@@ -10,9 +16,7 @@ const signIn = (width: number, email: string) => signInAs(suite.browser, suite.s
 describe('signing in', () => {
   it('the demo coordinator sees the club home and the coordinator navigation', async () => {
     const w = await signIn(1280, 'maren@example.org');
-    // Maren belongs to two clubs, so she gets the club switcher.
-    await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
-    await w.page.getByLabel('Club').selectOption({ label: 'Mossgate Community Garden Club' });
+    // Maren runs Mossgate and only volunteers at Cinder Lane (first by name): she lands where she runs the club.
     await w.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
     const nav = w.page.getByRole('navigation', { name: 'Main' });
     await nav.getByRole('link', { name: 'Members' }).waitFor();
@@ -23,6 +27,22 @@ describe('signing in', () => {
     await w.shot('members-desktop');
     expect(w.errors).toEqual([]);
   });
+
+  it('after switching clubs, the next sign-in from another browser opens the club last used', async () => {
+    const first = await signIn(1280, 'maren@example.org');
+    await first.page.getByRole('heading', { name: 'Mossgate Community Garden Club' }).waitFor();
+    await switchClub(first.page, 'Cinder Lane Growers');
+    // The server has it (not this browser's storage): wait until the session says so.
+    const cinder = (await db('clubs').where({ name: 'Cinder Lane Growers' }).first('id')).id;
+    const startClub = () => first.page.evaluate(() => fetch('/api/session').then((r) => r.json()).then((b) => b.user.startClubId));
+    await expect.poll(startClub).toBe(cinder);
+
+    const again = await signIn(390, 'maren@example.org');
+    await again.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
+    // Put her back in Mossgate for the other tests of this seeded server.
+    await switchClub(again.page);
+    expect([...first.errors, ...again.errors]).toEqual([]);
+  }, 60_000);
 
   it('a plot holder on a phone sees their own navigation and no coordinator pages', async () => {
     const w = await signIn(390, 'teodor@example.org');

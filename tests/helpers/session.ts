@@ -50,10 +50,13 @@ export async function signInAs(browser: Browser, serverUrl: string, email: strin
   return w;
 }
 
-/** Signs the demo coordinator in and waits for her first club's home, Cinder Lane Growers. */
+/**
+ * Signs the demo coordinator in and waits for the club home she lands on: the club she last used,
+ * which is Mossgate (the club she runs) until a test switches her to Cinder Lane Growers.
+ */
 export async function signInAsCoordinator(browser: Browser, serverUrl: string, width: number, start?: string): Promise<WatchedPage> {
   const w = await signInAs(browser, serverUrl, DEMO_COORDINATOR, width, start);
-  await w.page.getByRole('heading', { name: 'Cinder Lane Growers' }).waitFor();
+  await w.page.getByRole('heading', { level: 1, name: /^(Mossgate Community Garden Club|Cinder Lane Growers)$/ }).waitFor();
   return w;
 }
 

@@ -5,7 +5,7 @@ import { buttonClasses } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { useClubSettings } from '@/features/club-settings/api/get-club-settings';
 import { useCurrentClubId } from '@/features/clubs/hooks/use-current-club-id';
-import { rememberClub } from '@/features/clubs/lib/last-club';
+import { useRememberClub } from '@/features/auth/api/remember-club';
 import { paths } from '@/lib/paths';
 import { TimeZoneProvider, useTimeZone } from '@/lib/time-zone';
 import { useSignedInContext, type ClubContext } from '../app-context';
@@ -18,10 +18,14 @@ export function ClubScope() {
   // Dates on the club's pages are shown in the club's zone once its settings are in.
   const settings = useClubSettings(club?.clubId ?? 0, Boolean(club));
   const zone = useTimeZone();
+  const remember = useRememberClub();
+  const rememberedId = user.startClubId;
+  const { mutate } = remember;
 
+  // The server keeps the club last opened; a failure only means "/" may open another club next time.
   useEffect(() => {
-    if (club) rememberClub(club.clubId);
-  }, [club]);
+    if (club && club.clubId !== rememberedId) mutate(club.clubId);
+  }, [club, rememberedId, mutate]);
 
   if (!club) {
     return (

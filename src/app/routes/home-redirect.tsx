@@ -2,15 +2,14 @@ import { Navigate } from 'react-router-dom';
 import { Sprout } from 'lucide-react';
 import { Card } from '@/components/ui/card';
 import { EmptyState } from '@/components/ui/empty-state';
-import { pickStartClub } from '@/features/clubs/lib/last-club';
 import { firstName } from '@/lib/format';
 import { paths } from '@/lib/paths';
 import { useSignedInContext } from '../app-context';
 
-/** "/" for a signed-in person: the last club they used, their first club, or a friendly empty state. */
+/** "/" for a signed-in person: the club the server picked (last used, else most to do), or a friendly empty state. */
 export function HomeRedirect() {
   const { user } = useSignedInContext();
-  const clubId = pickStartClub(user.clubs.map((club) => club.clubId));
+  const clubId = user.startClubId;
   if (clubId !== null) return <Navigate to={paths.club(clubId)} replace />;
   return (
     <Card className="mx-auto max-w-xl">
