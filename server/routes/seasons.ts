@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { IdTextSchema } from '@shared/schemas/common';
-import { LateRenewalBodySchema, OfferCreateBodySchema, OfferQuoteQuerySchema, SeasonCreateBodySchema } from '@shared/schemas/seasons';
+import { LateRenewalBodySchema, OfferCreateBodySchema, OfferQuoteQuerySchema, SeasonCreateBodySchema, SeasonOpeningQuerySchema } from '@shared/schemas/seasons';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
@@ -10,7 +10,7 @@ import { quoteOffer } from '../services/offer-quotes';
 import { idempotent } from '../middleware/idempotency';
 import { createOffer } from '../services/offers';
 import { seasonPlotStates } from '../services/season-plots';
-import { clubOfSeason, getSeason, listSeasons, openSeason } from '../services/seasons';
+import { clubOfSeason, getSeason, listSeasons, openSeason, previewSeasonOpening } from '../services/seasons';
 
 const PlotStatesQuerySchema = z.object({ siteId: IdTextSchema });
 
@@ -19,6 +19,11 @@ export function clubSeasonsRouter({ db, mailer, config }: Deps): Router {
   const router = Router({ mergeParams: true });
   router.get('/', requireClubRole(db), async (req, res) => {
     res.json(await listSeasons(db, req.clubId!));
+  });
+  // What opening `year` would send, for the confirm step; sends nothing.
+  router.get('/opening-preview', requireClubRole(db, 'coordinator'), async (req, res) => {
+    const { year } = parseInput(SeasonOpeningQuerySchema, req.query);
+    res.json(await previewSeasonOpening(db, { clubId: req.clubId!, year }));
   });
   router.post('/', requireClubRole(db, 'coordinator'), idempotent(db), async (req, res) => {
     const body = parseInput(SeasonCreateBodySchema, req.body);

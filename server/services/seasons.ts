@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { deadlineAfterDays, formatDate } from '@shared/dates';
-import type { Season } from '@shared/schemas/seasons';
+import type { Season, SeasonOpeningPreview } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
@@ -17,7 +17,7 @@ export async function clubOfSeason(db: Db, seasonId: number): Promise<number | n
 
 async function withCounts(
   db: Db,
-  rows: Array<{ id: number; club_id: number; year: number; renewal_deadline: Date | null; created_at: Date }>,
+  rows: Array<{ id: number; club_id: number; year: number; renewal_deadline: Date | null; created_at: Date; opened_by: string | null }>,
   now: Date = new Date(),
 ): Promise<Season[]> {
   const ids = rows.map((r) => r.id);
@@ -37,6 +37,7 @@ async function withCounts(
     year: r.year,
     renewalDeadline: r.renewal_deadline ? r.renewal_deadline.toISOString() : null,
     createdAt: r.created_at.toISOString(),
+    openedBy: r.opened_by,
     counts: {
       renewalsPending: pick(renewals, r.id, 'pending'),
       renewalsKept: pick(renewals, r.id, 'kept'),
@@ -48,15 +49,18 @@ async function withCounts(
   }));
 }
 
+const seasonRows = (db: Db) =>
+  db('seasons as s').leftJoin('users as u', 'u.id', 's.opened_by_user_id').select('s.*', 'u.name as opened_by');
+
 /** A club's seasons, newest first. */
 export async function listSeasons(db: Db, clubId: number) {
-  const rows = await db('seasons').where({ club_id: clubId }).orderBy('year', 'desc');
+  const rows = await seasonRows(db).where('s.club_id', clubId).orderBy('s.year', 'desc');
   return { items: await withCounts(db, rows), page: 1, total: rows.length };
 }
 
 /** One season with its counts. */
 export async function getSeason(db: Db, seasonId: number): Promise<Season> {
-  const row = await db('seasons').where({ id: seasonId }).first();
+  const row = await seasonRows(db).where('s.id', seasonId).first();
   if (!row) throw notFound('The season');
   return (await withCounts(db, [row]))[0];
 }
@@ -88,6 +92,57 @@ export async function previousHolders(trx: Db, clubId: number, year: number) {
   return rows.map((r) => ({ ...r, owed: Number(r.owed) }));
 }
 
+type PreviousHolder = Awaited<ReturnType<typeof previousHolders>>[number];
+
+/**
+ * Who a new season's renewals go to: last season's holders whose plot is still on the map and
+ * whose fee is paid. The others are left out, each with the reason the coordinator is shown.
+ */
+async function renewalPlan(trx: Db, clubId: number, year: number) {
+  const renew: PreviousHolder[] = [];
+  const leftOut: Array<{ holder: PreviousHolder; reason: string; owes: boolean }> = [];
+  for (const h of await previousHolders(trx, clubId, year)) {
+    if (h.plot_removed_at) leftOut.push({ holder: h, reason: 'The plot was removed from the map', owes: false });
+    else if (h.site_archived_at) leftOut.push({ holder: h, reason: `The site ${h.site_name} is archived`, owes: false });
+    else if (h.owed > 0) leftOut.push({ holder: h, reason: 'Last season’s fee is not fully paid', owes: true });
+    else renew.push(h);
+  }
+  return { renew, leftOut };
+}
+
+/**
+ * Refuses a season that cannot be opened: one already open, one before a later season, or a
+ * renewal deadline that is past or not after the previous season's (its renewals would still be running).
+ */
+async function checkOpening(trx: Db, clubId: number, year: number, renewalDeadline: Date, timeZone: string, now: Date) {
+  if (renewalDeadline <= now) {
+    throw new AppError('validation_failed', 'The renewal deadline must be in the future.', { renewalDeadline: 'Choose a later date' });
+  }
+  const exists = await trx('seasons').where({ club_id: clubId, year }).first('id');
+  if (exists) throw new AppError('conflict', `The ${year} season is already open.`, { year: 'Already open' });
+  const later = await trx('seasons').where({ club_id: clubId }).where('year', '>', year).orderBy('year', 'desc').first('year');
+  if (later) throw new AppError('conflict', `The ${later.year} season is already open; an earlier season cannot be opened after it.`, { year: `Choose a year after ${later.year}` });
+  const before = await trx('seasons').where({ club_id: clubId }).where('year', '<', year).orderBy('year', 'desc').first('year', 'renewal_deadline');
+  if (before?.renewal_deadline && renewalDeadline <= before.renewal_deadline) {
+    const when = formatDate(before.renewal_deadline, timeZone);
+    throw new AppError('validation_failed', `Renewals for ${year} must close after the ${before.year} renewals, which close on ${when}.`, {
+      renewalDeadline: `Choose a date after ${when}`,
+    });
+  }
+}
+
+/** What opening a season would do, for the confirm step: how many renewal e-mails go, and who is left out. Sends nothing. */
+export async function previewSeasonOpening(db: Db, opts: { clubId: number; year: number }): Promise<SeasonOpeningPreview> {
+  const { renew, leftOut } = await renewalPlan(db, opts.clubId, opts.year);
+  const prev = await db('seasons').where({ club_id: opts.clubId }).where('year', '<', opts.year).orderBy('year', 'desc').first('year');
+  return {
+    year: opts.year,
+    previousYear: prev ? prev.year : null,
+    renewals: renew.length,
+    notRenewed: leftOut.map(({ holder, reason }) => ({ name: holder.name, plotLabel: holder.label, reason })),
+  };
+}
+
 /**
  * Opens a season: last season's holders in good standing get a renewal link with the deadline;
  * holders who still owe fees get none, so their plots are free. Each renewal e-mail is written to the
@@ -103,37 +158,29 @@ export async function openSeason(
   if (!club) throw notFound('The club');
   // By default renewals stay open to the end of the club's day, renewal_days from today.
   const renewalDeadline = opts.renewalDeadline ?? deadlineAfterDays(club.renewal_days, club.time_zone, now);
-  if (renewalDeadline <= now) {
-    throw new AppError('validation_failed', 'The renewal deadline must be in the future.', { renewalDeadline: 'Choose a later date' });
-  }
   let renewalsSent = 0;
   const notRenewed: Array<{ name: string; plotLabel: string; reason: string }> = [];
   const season = await db.transaction(async (trx) => {
-    const exists = await trx('seasons').where({ club_id: opts.clubId, year: opts.year }).first('id');
-    if (exists) throw new AppError('conflict', `The ${opts.year} season is already open.`, { year: 'Already open' });
+    // One opening at a time per club, so two coordinators cannot both pass the checks.
+    await trx('clubs').where({ id: opts.clubId }).forUpdate().first('id');
+    await checkOpening(trx, opts.clubId, opts.year, renewalDeadline, club.time_zone, now);
     const [row] = await trx('seasons')
       .insert({ club_id: opts.clubId, year: opts.year, renewal_deadline: renewalDeadline, opened_by_user_id: opts.userId })
       .returning('*');
-    for (const h of await previousHolders(trx, opts.clubId, opts.year)) {
+    const plan = await renewalPlan(trx, opts.clubId, opts.year);
+    for (const { holder: h, reason, owes } of plan.leftOut) {
       // A holder whose plot has left the map gets no renewal, and the coordinator is told why.
-      if (h.plot_removed_at || h.site_archived_at) {
-        notRenewed.push({
-          name: h.name,
-          plotLabel: h.label,
-          reason: h.plot_removed_at ? 'The plot was removed from the map' : `The site ${h.site_name} is archived`,
-        });
-        continue;
-      }
-      if (h.owed > 0) {
-        notRenewed.push({ name: h.name, plotLabel: h.label, reason: 'Last season’s fee is not fully paid' });
+      notRenewed.push({ name: h.name, plotLabel: h.label, reason });
+      if (owes) {
         await recordPlotEvent(trx, {
           plotId: h.plot_id,
           userId: opts.userId,
           kind: 'not_renewed',
           details: { summary: `Not offered for renewal to ${h.name} for ${opts.year}: last season’s fee is not fully paid` },
         });
-        continue;
       }
+    }
+    for (const h of plan.renew) {
       const { token, hash } = newToken();
       await trx('renewals').insert({
         season_id: row.id,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { addCalendarDays, endOfLocalDay, formatDate, formatDateTime, localDateOf, localToday } from './index';
+import { addCalendarDays, endOfLocalDay, formatDate, formatDateTime, localDateOf, localToday, suggestRenewalDeadline } from './index';
 
 // Zone rules from the IANA tz database. UK summer time (from memory, the UK rule since 1981):
 // clocks go forward at 01:00 UTC on the last Sunday of March and back at 01:00 UTC on the last
@@ -47,5 +47,26 @@ describe('formatting in a zone', () => {
     expect(localToday('Europe/London', now)).toBe('2027-03-31');
     expect(localDateOf('2027-03-28T23:30:00Z', 'Europe/London')).toBe('2027-03-29');
     expect(addCalendarDays('2027-03-20', 14)).toBe('2027-04-03');
+  });
+});
+
+describe('suggestRenewalDeadline', () => {
+  it('is the club’s days from today for a first season', () => {
+    // computed: 2 Dec 2026 + 14 days = 16 Dec 2026
+    expect(suggestRenewalDeadline({ today: '2026-12-02', renewalDays: 14, previousDeadline: null })).toBe('2026-12-16');
+  });
+  it('never falls on or before the previous season’s deadline', () => {
+    // The 2027 round closes on 15 Jan 2027; opening 2028 on 2 Dec 2026 must not suggest 16 Dec 2026.
+    // computed: the same day a year on, 15 Jan 2028, is the later of the two.
+    expect(suggestRenewalDeadline({ today: '2026-12-02', renewalDays: 14, previousDeadline: '2027-01-15' })).toBe('2028-01-15');
+  });
+  it('keeps the round’s time of year when that is later than the club’s days from today', () => {
+    // computed: 2 Dec 2027 + 14 days = 16 Dec 2027, before 10 Jan 2028 (10 Jan 2027 a year on)
+    expect(suggestRenewalDeadline({ today: '2027-12-02', renewalDays: 14, previousDeadline: '2027-01-10' })).toBe('2028-01-10');
+    // computed: 2 Dec 2027 + 14 days = 16 Dec 2027, after 1 Dec 2027 (1 Dec 2026 a year on)
+    expect(suggestRenewalDeadline({ today: '2027-12-02', renewalDays: 14, previousDeadline: '2026-12-01' })).toBe('2027-12-16');
+  });
+  it('takes 28 February after a 29 February deadline', () => {
+    expect(suggestRenewalDeadline({ today: '2028-01-01', renewalDays: 14, previousDeadline: '2028-02-29' })).toBe('2029-02-28');
   });
 });

@@ -92,3 +92,18 @@ export function localDateOf(value: Date | string, timeZone: string): string {
   if (!d) throw new RangeError(`Not a date: ${String(value)}`);
   return format(new TZDate(d, timeZone), 'yyyy-MM-dd');
 }
+
+/**
+ * The renewal deadline to suggest for a new season (a calendar date in the club's zone): the club's
+ * days to answer from today, but never on or before the previous season's deadline; when the
+ * previous round closed on a date a year earlier, the same date again, so the round keeps its time of year.
+ */
+export function suggestRenewalDeadline(opts: { today: string; renewalDays: number; previousDeadline: string | null }): string {
+  const fromToday = addCalendarDays(opts.today, opts.renewalDays);
+  if (!opts.previousDeadline) return fromToday;
+  const [y, m, d] = opts.previousDeadline.split('-').map(Number);
+  // 29 February has no twin next year: take 28 February.
+  const sameDayNextYear = m === 2 && d === 29 ? `${y + 1}-02-28` : `${y + 1}-${String(m).padStart(2, '0')}-${String(d).padStart(2, '0')}`;
+  const candidates = [fromToday, sameDayNextYear].filter((c) => c > (opts.previousDeadline as string));
+  return candidates.sort()[candidates.length - 1] ?? addCalendarDays(opts.previousDeadline, 1);
+}

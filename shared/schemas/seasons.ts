@@ -14,6 +14,8 @@ export const SeasonSchema = z.object({
   year: z.number().int(),
   renewalDeadline: z.string().nullable(),
   createdAt: z.string(),
+  /** The coordinator who opened it (null once their account is gone). */
+  openedBy: z.string().nullable(),
   counts: z.object({
     renewalsPending: z.number().int(),
     renewalsKept: z.number().int(),
@@ -24,6 +26,21 @@ export const SeasonSchema = z.object({
   }),
 });
 export type Season = z.infer<typeof SeasonSchema>;
+
+export const SeasonOpeningQuerySchema = z.object({
+  year: z.coerce.number().int().min(2000, 'A year like 2027').max(2100, 'A year like 2027'),
+});
+
+/** What opening a season would do, shown before anything is sent. */
+export const SeasonOpeningPreviewSchema = z.object({
+  year: z.number().int(),
+  /** The season whose holders get renewals (null for a club's first season). */
+  previousYear: z.number().int().nullable(),
+  /** How many renewal e-mails would go. */
+  renewals: z.number().int(),
+  notRenewed: z.array(z.object({ name: z.string(), plotLabel: z.string(), reason: z.string() })),
+});
+export type SeasonOpeningPreview = z.infer<typeof SeasonOpeningPreviewSchema>;
 
 export const plotSeasonStatuses = ['free', 'renewal_pending', 'offered', 'taken'] as const;
 export const PlotSeasonStatusSchema = z.enum(plotSeasonStatuses);

@@ -27,10 +27,29 @@ describe('the spring round in the browser', () => {
   it('opens the season, drags a waitlisted person onto a free plot, and the e-mailed accept link makes it taken', async () => {
     const w = await coordinatorOn(1280);
     await w.page.getByRole('heading', { name: 'Spring round 2026' }).waitFor();
-    await w.page.getByRole('button', { name: 'Open the season and send renewals' }).click();
-    await w.page.getByText('The 2027 season is open').waitFor();
-    await w.page.getByText('3 renewal e-mails sent.').waitFor();
+    await w.page.getByRole('button', { name: 'Review and open the season' }).click();
+    // Nothing goes until the coordinator has seen how many e-mails will go and who gets none.
+    const opening = w.page.getByRole('dialog', { name: 'Open the 2027 season?' });
+    await opening.waitFor();
+    // The seed's 2026 holders: Teodor, Priya and Aiko have paid; Jonah still owes part of his fee and Samir has paid nothing.
+    await opening.getByText('3 renewal e-mails go out as soon as you open it.').waitFor();
+    await opening.getByText('3 holders of 2026 whose fee is paid').waitFor();
+    await opening.getByText(/^Jonah .*, plot B-1: last season’s fee is not fully paid$/).waitFor();
+    await opening.getByText(/^Samir .*, plot R-1: last season’s fee is not fully paid$/).waitFor();
+    await w.shot('spring-round-open-confirm-desktop');
+    expect(await db('seasons').where({ year: 2027 }).first('id')).toBeUndefined();
+    await opening.getByRole('button', { name: 'Open and send 3 renewals' }).click();
     await w.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
+    // The result sits at the top, takes focus, and is read from the server, so a reload keeps it.
+    const result = w.page.getByRole('status').filter({ hasText: /^The 2027 season was opened on .* by Maren Okafor: 3 renewal e-mails sent; 2 holders left out \(see why\)\.$/ });
+    await result.waitFor();
+    await expect.poll(() => result.evaluate((el) => el === document.activeElement)).toBe(true);
+    // The next season waits for its year, so no second form with an earlier deadline is offered.
+    await w.page.getByText(/^The 2027 season is already open\. The 2028 season can be opened from 1 Jan 2027\.$/).waitFor();
+    expect(await w.page.getByRole('button', { name: 'Review and open the season' }).count()).toBe(0);
+    await w.page.reload();
+    await result.waitFor();
+    await w.shot('spring-round-after-opening-desktop');
     // Jonah still owes part of his 2026 fee, so B-1 was not renewed and is free.
     await plotSays(w, 'B-1', 'Plot B-1 free');
     await expect.poll(() => plotTile(w, 'A-1').getAttribute('aria-label'), { timeout: 5_000 }).toMatch(/^Plot A-1 renewal\?, waiting for Teodor Lind/);

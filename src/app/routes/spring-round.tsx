@@ -1,4 +1,5 @@
 import { CalendarRange } from 'lucide-react';
+import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -18,6 +19,8 @@ import { OpenSeasonForm } from '@/features/spring-round/components/open-season-f
 import { LeftOutList } from '@/features/spring-round/components/left-out-list';
 import { SeasonSummary } from '@/features/spring-round/components/season-summary';
 import { paths } from '@/lib/paths';
+import { LocalDate, useTimeZone } from '@/lib/time-zone';
+import { localToday } from '@shared/dates';
 import type { Season } from '@shared/schemas/seasons';
 import type { Site } from '@shared/schemas/sites';
 import { useClubContext } from '../app-context';
@@ -82,13 +85,18 @@ function SpringRound() {
   const sites = useSites(club.clubId);
   const settings = useClubSettings(club.clubId);
   const [params, setParams] = useSearchParams();
+  const [justOpened, setJustOpened] = useState(false);
+  const zone = useTimeZone();
 
   if (seasons.isPending || sites.isPending) return <LoadingState label="Loading the spring round…" />;
   if (seasons.isError) return <ErrorState title="The seasons could not be loaded" message={seasons.error.message} onRetry={() => void seasons.refetch()} />;
   if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
 
   const current = seasons.data.items[0];
-  const nextYear = current ? current.year + 1 : new Date().getFullYear() + 1;
+  const thisYear = Number(localToday(zone).slice(0, 4));
+  const nextYear = current ? current.year + 1 : thisYear + 1;
+  // Next year's season is already open: the one after waits until its own year comes round.
+  const openedAhead = current !== undefined && current.year > thisYear;
   const site = sites.data.items.find((s) => s.id === Number(params.get('site'))) ?? sites.data.items[0];
 
   return (
@@ -100,7 +108,7 @@ function SpringRound() {
       />
       {current ? (
         <>
-          <SeasonSummary season={current} />
+          <SeasonSummary season={current} justOpened={justOpened} />
           {site ? (
             <section aria-labelledby="season-map" className="space-y-3">
               <h2 id="season-map" className="text-xl font-semibold">
@@ -140,11 +148,27 @@ function SpringRound() {
         <h2 id="open-season" className="text-xl font-semibold">
           Open the {nextYear} season
         </h2>
-        <p className="text-stone">
-          Holders of {current ? current.year : 'last season'} whose fees are paid get an e-mail to keep or give up their plot
-          by the deadline; plots not kept by then become free.
-        </p>
-        <OpenSeasonForm key={settings.data?.renewalDays ?? 'loading'} clubId={club.clubId} suggestedYear={nextYear} renewalDays={settings.data?.renewalDays ?? 14} />
+        {openedAhead ? (
+          <p className="text-stone">
+            The {current.year} season is already open. The {nextYear} season can be opened from{' '}
+            <LocalDate value={`${current.year}-01-01T12:00:00Z`} />.
+          </p>
+        ) : (
+          <>
+            <p className="text-stone">
+              Holders of {current ? current.year : 'last season'} whose fees are paid get an e-mail to keep or give up their plot
+              by the deadline; plots not kept by then become free. You see how many e-mails will go before anything is sent.
+            </p>
+            <OpenSeasonForm
+              key={`${settings.data?.renewalDays ?? 'loading'}-${nextYear}`}
+              clubId={club.clubId}
+              suggestedYear={nextYear}
+              renewalDays={settings.data?.renewalDays ?? 14}
+              previousDeadline={current?.renewalDeadline ?? null}
+              onOpened={() => setJustOpened(true)}
+            />
+          </>
+        )}
       </section>
     </div>
   );
