@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { IdTextSchema } from '@shared/schemas/common';
 import { InviteAcceptBodySchema, InviteCreateBodySchema, type SessionInfo } from '@shared/schemas/auth';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
@@ -9,10 +10,10 @@ import { csrfToken } from '../middleware/csrf';
 import { authRateLimit } from '../middleware/rate-limit';
 import { signIn } from '../middleware/session';
 import { loadSessionUser } from '../services/auth';
-import { acceptInvite, cancelInvite, createInvite, listPendingInvites, previewInvite } from '../services/invites';
+import { acceptInvite, cancelInvite, createInvite, listPendingInvites, previewInvite, resendInvite } from '../services/invites';
 
 const PreviewQuerySchema = z.object({ token: z.string().min(20).max(200) });
-const InviteParamsSchema = z.object({ inviteId: z.coerce.number().int().positive() });
+const InviteParamsSchema = z.object({ inviteId: IdTextSchema });
 
 /** A club's invitations (coordinators), mounted at /api/clubs/:clubId/invites. */
 export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
@@ -32,6 +33,12 @@ export function clubInvitesRouter({ db, mailer, config }: Deps): Router {
       publicUrl: config.publicUrl,
     });
     res.status(201).json(invite);
+  });
+
+  // A new link (the old one stops working) and 14 more days, for an invite that was lost or expired.
+  router.post('/:inviteId/resend', async (req, res) => {
+    const { inviteId } = parseInput(InviteParamsSchema, req.params);
+    res.json(await resendInvite(db, mailer, { clubId: req.clubId!, inviteId, publicUrl: config.publicUrl }));
   });
 
   router.delete('/:inviteId', async (req, res) => {

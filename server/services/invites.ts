@@ -14,6 +14,7 @@ const INVITE_TTL_MS = 14 * 24 * 60 * 60 * 1000;
 
 interface InviteRow {
   id: number;
+  token_hash: string;
   club_id: number;
   email: string;
   name: string;
@@ -106,25 +107,33 @@ export async function recordInvite(trx: Knex.Transaction, p: InviteToIssue): Pro
       invited_by_user_id: p.invitedBy,
     })
     .returning('*');
-  await enqueueMail(trx, { clubId: p.clubId, kind: 'invite' }, inviteMail({
-    to: p.email,
-    name: p.name,
-    clubName: p.clubName,
-    roles: p.roles.map((r) => roleLabels[r]),
-    url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
-    expiresAt,
-    timeZone: await clubTimeZone(trx, p.clubId),
-  }));
+  await queueInviteMail(trx, inserted, p.clubName, token, p.publicUrl);
   return inserted;
 }
 
-/** The club's invitations that are neither accepted nor expired, newest first. */
+/** Writes the invitation e-mail for `row` and its link token to the outbox, in the caller's transaction. */
+async function queueInviteMail(trx: Knex.Transaction, row: InviteRow, clubName: string, token: string, publicUrl: string) {
+  await enqueueMail(trx, { clubId: row.club_id, kind: 'invite' }, inviteMail({
+    to: row.email,
+    name: row.name,
+    clubName,
+    roles: row.roles.map((r) => roleLabels[r]),
+    url: `${publicUrl}/invite?token=${encodeURIComponent(token)}`,
+    expiresAt: row.expires_at,
+    timeZone: await clubTimeZone(trx, row.club_id),
+  }));
+}
+
+// Expired invitations stay listed this long, so the coordinator can send them again.
+const EXPIRED_SHOWN_MS = 60 * 24 * 60 * 60 * 1000;
+
+/** The club's invitations not yet accepted or cancelled (those expired in the last 60 days too), newest first. */
 export async function listPendingInvites(db: Knex, clubId: number, now = new Date()) {
   const rows: InviteRow[] = await db('invites')
     .where({ club_id: clubId })
     .whereNull('accepted_at')
     .whereNull('cancelled_at')
-    .where('expires_at', '>', now)
+    .where('expires_at', '>', new Date(now.getTime() - EXPIRED_SHOWN_MS))
     .orderBy('created_at', 'desc');
   return { items: rows.map(toInvite), page: 1, total: rows.length };
 }
@@ -136,7 +145,11 @@ async function liveInvite(db: Knex | Knex.Transaction, token: string, now: Date,
     .first('i.*', 'c.name as club_name');
   if (lock) q.forUpdate();
   const row = await q;
-  if (!row) throw notFound('That invitation');
+  if (!row) {
+    const replaced = await db('invites').whereRaw('? = any(replaced_token_hashes)', [hashToken(token)]).first('id');
+    if (replaced) throw new AppError('gone', 'This link was replaced by a newer invitation e-mail. Use the link in the latest one.');
+    throw notFound('That invitation');
+  }
   if (row.accepted_at) throw new AppError('gone', 'This invitation has already been used.');
   if (row.cancelled_at) throw new AppError('gone', 'This invitation is no longer valid. Ask the coordinator for a new one.');
   if (row.expires_at <= now) throw new AppError('gone', 'This invitation has expired. Ask the coordinator for a new one.');
@@ -205,4 +218,36 @@ export async function cancelInvite(db: Knex, clubId: number, inviteId: number, n
     if (!row) throw notFound('That invitation');
     throw new AppError('conflict', row.accepted_at ? 'This invitation has already been accepted.' : 'This invitation is already cancelled.');
   }
+}
+
+/**
+ * Sends a pending or expired invitation again with a new link, valid 14 days from now; the
+ * earlier link stops working. Refused once the invitation is accepted or cancelled.
+ */
+export async function resendInvite(
+  db: Knex,
+  mailer: Mailer,
+  opts: { clubId: number; inviteId: number; publicUrl: string; now?: Date },
+): Promise<Invite> {
+  const now = opts.now ?? new Date();
+  const row = await db.transaction(async (trx) => {
+    const current: InviteRow | undefined = await trx('invites').where({ id: opts.inviteId, club_id: opts.clubId }).forUpdate().first();
+    if (!current) throw notFound('That invitation');
+    if (current.accepted_at) throw new AppError('conflict', 'This invitation has already been accepted.');
+    if (current.cancelled_at) throw new AppError('conflict', 'This invitation is cancelled. Invite them again instead.');
+    const { token, hash } = newToken();
+    const [updated]: InviteRow[] = await trx('invites')
+      .where({ id: current.id })
+      .update({
+        token_hash: hash,
+        expires_at: new Date(now.getTime() + INVITE_TTL_MS),
+        replaced_token_hashes: trx.raw('array_append(replaced_token_hashes, ?)', [current.token_hash]),
+      })
+      .returning('*');
+    const club = await trx('clubs').where({ id: opts.clubId }).first('name');
+    await queueInviteMail(trx, updated, club.name, token, opts.publicUrl);
+    return updated;
+  });
+  kickMail(db, mailer);
+  return toInvite(row);
 }

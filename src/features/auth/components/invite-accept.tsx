@@ -25,9 +25,11 @@ function BrokenInvite() {
   );
 }
 
-function SpentInvite() {
+/** An invite link that worked once: expired, used, cancelled or replaced; the server's message says which. */
+function SpentInvite({ reason }: { reason?: string }) {
   return (
-    <LinkProblem title="This invite has expired or was already used" actionLabel="Go to sign in" actionHref={paths.signIn()}>
+    <LinkProblem title="This invite link no longer works" actionLabel="Go to sign in" actionHref={paths.signIn()}>
+      {reason && <p>{reason}</p>}
       <p>If you already joined, just sign in. Otherwise ask your club's coordinator for a fresh invite.</p>
     </LinkProblem>
   );
@@ -100,7 +102,7 @@ function InvitePreviewGate({ token }: { token: string }) {
   if (preview.isPending) return <LoadingState label="Opening your invite…" />;
   if (preview.isError) {
     if (isApiError(preview.error, 404)) return <BrokenInvite />;
-    if (isApiError(preview.error, 410)) return <SpentInvite />;
+    if (isApiError(preview.error, 410)) return <SpentInvite reason={preview.error.message} />;
     return (
       <ErrorState
         title="We couldn't open this invite"

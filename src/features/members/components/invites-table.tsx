@@ -1,9 +1,10 @@
 import { useMemo } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import type { Invite } from '@shared/schemas/auth';
+import { Badge } from '@/components/ui/badge';
 import { DataTable } from '@/components/ui/data-table';
 import { LocalDate } from '@/lib/time-zone';
-import { InviteActions } from './member-actions';
+import { InviteActions } from './invite-actions';
 import { RoleBadges, rolesText } from './role-badges';
 
 const baseColumns: ColumnDef<Invite>[] = [
@@ -29,12 +30,22 @@ const baseColumns: ColumnDef<Invite>[] = [
     id: 'expires',
     header: 'Expires',
     accessorFn: (invite) => invite.expiresAt,
-    cell: ({ row }) => <span className="whitespace-nowrap"><LocalDate value={row.original.expiresAt} /></span>,
+    cell: ({ row }) => (
+      <span className="whitespace-nowrap">
+        {Date.parse(row.original.expiresAt) <= Date.now() ? (
+          <Badge tone="straw">
+            Expired <LocalDate value={row.original.expiresAt} />
+          </Badge>
+        ) : (
+          <LocalDate value={row.original.expiresAt} />
+        )}
+      </span>
+    ),
     enableGlobalFilter: false,
   },
 ];
 
-/** Invites sent but not yet accepted. */
+/** Invites sent but not yet accepted, those expired lately too (they can be sent again). */
 export function InvitesTable({ clubId, invites }: { clubId: number; invites: Invite[] }) {
   const columns = useMemo<ColumnDef<Invite>[]>(
     () => [

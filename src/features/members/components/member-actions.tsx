@@ -1,9 +1,8 @@
 import { useState } from 'react';
-import { roleLabels, type Invite, type Member } from '@shared/schemas/auth';
+import { roleLabels, type Member } from '@shared/schemas/auth';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Dialog } from '@/components/ui/dialog';
-import { useCancelInvite } from '../api/cancel-invite';
 import { useRemoveMember } from '../api/remove-member';
 
 /**
@@ -42,34 +41,6 @@ export function MemberActions({ clubId, member }: { clubId: number; member: Memb
           </Button>
           <Button variant="ghost" onClick={close}>
             Keep {member.name}
-          </Button>
-        </div>
-      </Dialog>
-    </>
-  );
-}
-
-/** "Cancel invite" on a pending invite, with a confirm: the link then says it is no longer valid. */
-export function InviteActions({ clubId, invite }: { clubId: number; invite: Invite }) {
-  const [open, setOpen] = useState(false);
-  const cancel = useCancelInvite(clubId);
-  const close = () => {
-    setOpen(false);
-    cancel.reset();
-  };
-  return (
-    <>
-      <Button variant="secondary" onClick={() => setOpen(true)} aria-label={`Cancel invite ${invite.email}`}>
-        Cancel invite
-      </Button>
-      <Dialog open={open} onClose={close} title={`Cancel the invite to ${invite.email}?`} description="The link in their e-mail will say it is no longer valid. You can invite them again later.">
-        {cancel.isError && <Alert tone="error">{cancel.error.message}</Alert>}
-        <div className="flex flex-col gap-2">
-          <Button variant="danger" onClick={() => cancel.mutate(invite.id, { onSuccess: close })} loading={cancel.isPending} loadingText="Cancelling…">
-            Cancel the invite
-          </Button>
-          <Button variant="ghost" onClick={close}>
-            Keep it
           </Button>
         </div>
       </Dialog>

@@ -70,30 +70,29 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
           )}
         </PageSection>
 
-        <div className="grid gap-10 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-          <PageSection id="invite-someone" title="Invite someone">
-            <Card>
-              <InviteForm clubId={clubId} />
-            </Card>
-          </PageSection>
-          <PageSection id="pending-invites" title="Pending invites">
-            {invites.isPending ? (
-              <LoadingState label="Loading invites…" />
-            ) : invites.isError ? (
-              <ErrorState
-                message={invites.error.message}
-                requestId={isApiError(invites.error) ? invites.error.requestId : undefined}
-                onRetry={() => void invites.refetch()}
-                retrying={invites.isFetching}
-              />
-            ) : (
-              <>
-                <PartialNote shown={invites.data.items.length} total={invites.data.total} noun="invites" />
-                <InvitesTable clubId={clubId} invites={invites.data.items} />
-              </>
-            )}
-          </PageSection>
-        </div>
+        <PageSection id="pending-invites" title="Pending invites">
+          {invites.isPending ? (
+            <LoadingState label="Loading invites…" />
+          ) : invites.isError ? (
+            <ErrorState
+              message={invites.error.message}
+              requestId={isApiError(invites.error) ? invites.error.requestId : undefined}
+              onRetry={() => void invites.refetch()}
+              retrying={invites.isFetching}
+            />
+          ) : (
+            <>
+              <PartialNote shown={invites.data.items.length} total={invites.data.total} noun="invites" />
+              <InvitesTable clubId={clubId} invites={invites.data.items} />
+            </>
+          )}
+        </PageSection>
+
+        <PageSection id="invite-someone" title="Invite someone">
+          <Card className="max-w-xl">
+            <InviteForm clubId={clubId} />
+          </Card>
+        </PageSection>
 
         <PageSection id="import-export" title="Import and download">
           <Card>
