@@ -116,6 +116,17 @@ describe('applying for a plot and the waitlist', () => {
     await w.page.getByRole('cell', { name: /^Pat Newcomer/ }).waitFor();
     await w.shot('waitlist-phone');
     expect(await w.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    // The row's actions are on screen where a thumb reaches them, not off to the right of a sideways scroll box.
+    const move = w.page.getByRole('button', { name: /^Move Pat Newcomer/ });
+    await move.scrollIntoViewIfNeeded();
+    const box = (await move.boundingBox())!;
+    expect(box.x).toBeGreaterThanOrEqual(0);
+    expect(box.x + box.width).toBeLessThanOrEqual(390);
+    await w.page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+    const dialog = w.page.getByRole('dialog', { name: /^Move Pat Newcomer/ });
+    await dialog.waitFor();
+    await dialog.getByRole('button', { name: 'Close' }).click();
+    await w.page.waitForFunction(() => !document.querySelector('dialog[open]'));
 
     await (await mainNav(w.page)).getByRole('link', { name: 'Messages' }).click();
     await w.page.getByRole('heading', { name: 'Messages', exact: true }).waitFor();

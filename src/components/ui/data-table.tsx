@@ -27,7 +27,11 @@ export interface DataTableProps<TData> {
 
 const ariaSortFor = { asc: 'ascending', desc: 'descending' } as const;
 
-/** A sortable, filterable, paged table that scrolls sideways on narrow screens. */
+/**
+ * A sortable, filterable, paged table. On a phone each row becomes a card (label beside value,
+ * the row's actions last and full width) so nothing sits off-screen in a sideways scroll; the
+ * explicit roles keep it a table for screen readers in both layouts.
+ */
 export function DataTable<TData>({
   data,
   columns,
@@ -91,11 +95,11 @@ export function DataTable<TData>({
         aria-label={caption}
         tabIndex={0}
       >
-        <table className="w-full min-w-[36rem] border-collapse text-left">
+        <table role="table" className="w-full border-collapse text-left max-sm:block sm:min-w-[36rem]">
           <caption className="sr-only">{caption}</caption>
-          <thead className="bg-paper-100">
+          <thead role="rowgroup" className="bg-paper-100 max-sm:block">
             {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
+              <tr key={group.id} role="row" className="max-sm:flex max-sm:flex-wrap max-sm:gap-x-2 max-sm:px-2">
                 {group.headers.map((header) => {
                   const canSort = header.column.getCanSort();
                   const sorted = header.column.getIsSorted();
@@ -106,8 +110,10 @@ export function DataTable<TData>({
                     <th
                       key={header.id}
                       scope="col"
+                      role="columnheader"
                       aria-sort={canSort ? (sorted ? ariaSortFor[sorted] : 'none') : undefined}
-                      className="border-b border-paper-200 px-4 py-2 text-sm font-semibold whitespace-nowrap"
+                      // On a phone only the sortable headers stay, as a row of sort buttons.
+                      className={`border-b border-paper-200 px-4 py-2 text-sm font-semibold whitespace-nowrap max-sm:border-b-0 max-sm:px-2 max-sm:py-1 ${canSort ? '' : 'max-sm:sr-only'}`}
                     >
                       {canSort ? (
                         <button
@@ -133,21 +139,35 @@ export function DataTable<TData>({
               </tr>
             ))}
           </thead>
-          <tbody>
+          <tbody role="rowgroup" className="max-sm:block">
             {rows.length === 0 ? (
-              <tr>
-                <td colSpan={table.getVisibleLeafColumns().length} className="px-4 py-8 text-center text-stone">
+              <tr role="row" className="max-sm:block">
+                <td role="cell" colSpan={table.getVisibleLeafColumns().length} className="px-4 py-8 text-center text-stone max-sm:block">
                   {globalFilter && data.length > 0 ? `Nothing matches “${globalFilter}”.` : emptyMessage}
                 </td>
               </tr>
             ) : (
               rows.map((row) => (
-                <tr key={row.id} className="border-b border-paper-200 last:border-b-0">
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-4 py-3 align-top">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
+                <tr key={row.id} role="row" className="border-b border-paper-200 last:border-b-0 max-sm:block max-sm:border-t max-sm:px-4 max-sm:py-3">
+                  {row.getVisibleCells().map((cell) => {
+                    const header = cell.column.columnDef.header;
+                    const isActions = cell.column.id === 'actions';
+                    return (
+                      <td
+                        key={cell.id}
+                        role="cell"
+                        className={`px-4 py-3 align-top max-sm:px-0 max-sm:py-1 ${isActions ? 'max-sm:block max-sm:pt-3' : 'max-sm:grid max-sm:grid-cols-[6.5rem_minmax(0,1fr)] max-sm:gap-2'}`}
+                      >
+                        {!isActions && typeof header === 'string' && (
+                          // The column's name beside the value on a phone; screen readers get it from the header.
+                          <span aria-hidden="true" className="text-sm text-stone sm:hidden">
+                            {header}
+                          </span>
+                        )}
+                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                      </td>
+                    );
+                  })}
                 </tr>
               ))
             )}
