@@ -2,7 +2,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { createDb } from '../../server/db/knex';
 import { testConfig } from '../helpers/app';
-import { seededServerAndBrowser, signInAsCoordinator } from '../helpers/session';
+import { clippedSelects, unreadablePlots } from '../helpers/clipping';
+import { openMenuIfClosed, seededServerAndBrowser, signInAsCoordinator } from '../helpers/session';
 
 const suite = seededServerAndBrowser();
 const db = createDb(testConfig().databaseUrl);
@@ -35,6 +36,22 @@ async function dragFromCentre(page: Page, box: { x: number; y: number; width: nu
   await page.mouse.move(x + dx / 2, y + dy / 2, { steps });
   await page.mouse.move(x + dx, y + dy, { steps });
   await page.mouse.up();
+}
+
+/** The map's top edge in page coordinates (independent of scrolling). */
+const mapTop = (page: Page) =>
+  page.getByRole('group', { name: 'Map of Mossgate Lane' }).evaluate((el) => el.getBoundingClientRect().top + window.scrollY);
+
+/** What dnd-kit's live region says to a screen reader now. */
+const liveRegion = (page: Page) => page.locator('[id^="DndLiveRegion"]').textContent().then((t) => (t ?? '').trim());
+
+/** Collects the status of each plot PATCH answer on the page from now on. */
+function patchAnswers(page: Page): number[] {
+  const answers: number[] = [];
+  page.on('response', (r) => {
+    if (r.url().includes('/api/plots/') && r.request().method() === 'PATCH') answers.push(r.status());
+  });
+  return answers;
 }
 
 async function savedAfter(page: Page, action: () => Promise<void>) {
@@ -228,4 +245,119 @@ describe('the map editor', () => {
     expect(map.width).toBeLessThanOrEqual(390);
     expect(w.errors).toEqual([]);
   });
+  it('shows the put-back notice without moving the map under the pointer', async () => {
+    const w = await openMap(1280);
+    await plot(w.page, 'B-5').click();
+    const top = await mapTop(w.page);
+    const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
+    const scale = map.width / 34; // the site is 34 m wide
+    const grip = (await w.page.getByRole('button', { name: 'Resize plot B-5' }).boundingBox())!;
+    const x = grip.x + grip.width / 2;
+    const y = grip.y + grip.height / 2;
+    await w.page.mouse.move(x, y);
+    await w.page.mouse.down();
+    // 1.2 m east in small moves: the path between B-5 and B-6 is 0.9 m wide (seeds), so it runs into B-6.
+    for (let i = 1; i <= 12; i++) await w.page.mouse.move(x + (1.2 * scale * i) / 12, y);
+    await w.page.getByText('Here it would overlap another plot').waitFor();
+    expect(await mapTop(w.page)).toBe(top);
+    await w.page.mouse.up();
+    await w.page.getByText(/^Plot B-5 was put back: there it would overlap plot B-6/).first().waitFor();
+    expect(await mapTop(w.page)).toBe(top);
+    await w.shot('map-notice-1280');
+    expect(w.errors).toEqual([]);
+  });
+
+  it('tells a screen reader about a pointer drag in plot labels and metres, never internal ids', async () => {
+    const w = await openMap(1280);
+    const box = (await plot(w.page, 'A-2').boundingBox())!;
+    const x = box.x + box.width / 2;
+    const y = box.y + box.height / 2;
+    await w.page.mouse.move(x, y);
+    await w.page.mouse.down();
+    await w.page.mouse.move(x, y + 6, { steps: 3 });
+    await expect.poll(() => liveRegion(w.page), { timeout: 5_000 }).toMatch(/A-2/);
+    expect(await liveRegion(w.page)).toBe('Plot A-2 picked up.');
+    await savedAfter(w.page, async () => {
+      await w.page.mouse.move(x, y + 12, { steps: 3 });
+      await w.page.mouse.up();
+    });
+    const moved = await plotRow('A-2');
+    // The words come from the saved place, in the site's metres.
+    await expect.poll(() => liveRegion(w.page), { timeout: 5_000 }).toBe(
+      `Plot A-2 moved to ${moved.x_m.toFixed(1)} m from the west edge, ${moved.y_m.toFixed(1)} m from the north edge.`,
+    );
+
+    await plot(w.page, 'A-4').click();
+    const grip = (await w.page.getByRole('button', { name: 'Resize plot A-4' }).boundingBox())!;
+    await savedAfter(w.page, () => dragFromCentre(w.page, grip, -10, -20, 3));
+    const resized = await plotRow('A-4');
+    await expect.poll(() => liveRegion(w.page), { timeout: 5_000 }).toBe(
+      `Plot A-4 resized to ${resized.width_m.toFixed(1)} × ${resized.length_m.toFixed(1)} m.`,
+    );
+    expect(await liveRegion(w.page)).not.toMatch(/(move|resize|plot):\d/);
+    expect(w.errors).toEqual([]);
+  });
+
+  it('moves a plot 1 m for each Alt + arrow press, saved at once', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('K-3');
+    const answers = patchAnswers(w.page);
+    await plot(w.page, 'K-3').focus();
+    for (let i = 0; i < 3; i++) await w.page.keyboard.press('Alt+ArrowRight');
+    await expect.poll(() => answers.length, { timeout: 10_000 }).toBe(3);
+    expect(answers).toEqual([200, 200, 200]);
+    const after = await plotRow('K-3');
+    expect(after.x_m).toBeCloseTo(before.x_m + 3, 6); // computed: 3 × 1 m
+    expect(after.y_m).toBe(before.y_m);
+    await w.page.getByText('Alt + arrows move it 1 m', { exact: false }).waitFor();
+    expect(w.errors).toEqual([]);
+  });
+
+  it('undoes a pointer move with the Undo button and a resize with Ctrl+Z, through the normal save', async () => {
+    const w = await openMap(1280);
+    const before = await plotRow('A-3');
+    const box = (await plot(w.page, 'A-3').boundingBox())!;
+    await savedAfter(w.page, () => dragFromCentre(w.page, box, 0, 10, 3));
+    expect((await plotRow('A-3')).y_m).toBeGreaterThan(before.y_m);
+    await savedAfter(w.page, () => w.page.getByRole('button', { name: /^Undo/ }).click());
+    await w.page.reload();
+    await plot(w.page, 'A-3').waitFor();
+    const undone = await plotRow('A-3');
+    expect([undone.x_m, undone.y_m]).toEqual([before.x_m, before.y_m]);
+    expect(undone.version).toBe(before.version + 2); // computed: the move and its undo are two saves
+    const map = (await w.page.getByRole('group', { name: 'Map of Mossgate Lane' }).boundingBox())!;
+    const shown = (await plot(w.page, 'A-3').boundingBox())!;
+    const scale = map.width / 34; // the site is 34 m wide
+    expect(Math.abs(shown.y - map.y - before.y_m * scale)).toBeLessThan(1.5);
+
+    const k2 = await plotRow('K-2');
+    await plot(w.page, 'K-2').focus();
+    await savedAfter(w.page, () => w.page.keyboard.press('Shift+ArrowLeft'));
+    expect((await plotRow('K-2')).width_m).toBeCloseTo(k2.width_m - 0.1, 6); // computed: one 0.1 m grid step
+    await savedAfter(w.page, () => w.page.keyboard.press('Control+z'));
+    expect((await plotRow('K-2')).width_m).toBe(k2.width_m);
+    expect(w.errors).toEqual([]);
+  });
+
+  for (const width of [1280, 390]) {
+    it(`shows selects, the club switcher and small plots in full at ${width} px`, async () => {
+      const w = await openMap(width);
+      await plot(w.page, 'K-1').click();
+      await w.page.getByRole('heading', { name: 'Plot K-1' }).waitFor();
+      await w.page.getByLabel('Turned').waitFor();
+      expect.soft(await clippedSelects(w.page)).toEqual([]);
+      const small = (await db('plots as p').join('sites as s', 's.id', 'p.site_id').where({ 's.name': 'Mossgate Lane' }).whereIn('p.kind', ['container', 'raised_bed']).whereNull('p.deleted_at').select('p.label')).map((r) => r.label as string);
+      expect(small.length).toBe(9); // seeds: 6 raised beds and 3 containers on Mossgate Lane
+      expect.soft(await unreadablePlots(w.page, small)).toEqual([]);
+      // The full label is there on hover too.
+      expect(await plot(w.page, 'K-1').getAttribute('title')).toMatch(/^Plot K-1/);
+      await w.shot(`map-editor-${width}`);
+      await openMenuIfClosed(w.page);
+      const club = w.page.getByLabel('Club', { exact: true }).filter({ visible: true });
+      await expect.poll(() => club.evaluate((el) => (el as HTMLSelectElement).selectedOptions[0]?.textContent)).toBe('Mossgate Community Garden Club');
+      expect.soft(await clippedSelects(w.page)).toEqual([]);
+      await w.shot(`map-editor-menu-${width}`);
+      expect(w.errors).toEqual([]);
+    });
+  }
 });

@@ -3,6 +3,7 @@ import { createDb } from '../../server/db/knex';
 import { mailUrl, testConfig } from '../helpers/app';
 import { openPage, type WatchedPage } from '../helpers/browser';
 import { extractLink, waitForMail } from '../helpers/inbox';
+import { clippedSelects, unreadablePlots } from '../helpers/clipping';
 import { seededServerAndBrowser, signInAsCoordinator } from '../helpers/session';
 
 const suite = seededServerAndBrowser();
@@ -61,6 +62,8 @@ describe('the spring round in the browser', () => {
     await plotTile(w, 'A-3').scrollIntoViewIfNeeded();
     const from = (await person.boundingBox())!;
     const to = (await plotTile(w, 'A-3').boundingBox())!;
+    const mapTop = () => w.page.getByRole('group', { name: 'Spring round map of Mossgate Lane' }).evaluate((el) => el.getBoundingClientRect().top + window.scrollY);
+    const topBefore = await mapTop();
     await w.page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
     await w.page.mouse.down();
     await w.page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
@@ -78,6 +81,8 @@ describe('the spring round in the browser', () => {
     await confirm.getByRole('button', { name: 'Send the offer' }).click();
     expect((await saved).status()).toBe(201);
     await w.page.getByText('Plot A-3 offered to Ines Carvalho. The offer e-mail is on its way.').waitFor();
+    // The notice does not push the map down.
+    expect(await mapTop()).toBe(topBefore);
     await plotSays(w, 'A-3', 'Plot A-3 offered, to Ines Carvalho');
     await w.shot('spring-round-offered-desktop');
 
@@ -205,4 +210,18 @@ describe('the spring round in the browser', () => {
     expect(offer).toEqual({ status: 'withdrawn', applicationStatus: 'waiting' });
     expect(w.errors).toEqual([]);
   });
+  for (const width of [1280, 390]) {
+    it(`shows the offer select and every small plot's status word in full at ${width} px`, async () => {
+      const w = await coordinatorOn(width);
+      await w.page.getByRole('heading', { name: /^Spring round \d{4}$/ }).waitFor();
+      await plotTile(w, 'K-1').click();
+      await w.page.getByRole('heading', { name: /^Plot K-1: / }).waitFor();
+      expect.soft(await clippedSelects(w.page)).toEqual([]);
+      const small = (await db('plots as p').join('sites as s', 's.id', 'p.site_id').where({ 's.name': 'Mossgate Lane' }).whereIn('p.kind', ['container', 'raised_bed']).whereNull('p.deleted_at').select('p.label')).map((r) => r.label as string);
+      expect(small.length).toBe(9); // seeds: 6 raised beds and 3 containers on Mossgate Lane
+      expect.soft(await unreadablePlots(w.page, small)).toEqual([]);
+      await w.shot(`allocation-map-${width}`);
+      expect(w.errors).toEqual([]);
+    });
+  }
 });

@@ -15,14 +15,16 @@ export interface AlertProps {
   title?: string;
   children: ReactNode;
   className?: string;
+  /** Set false when a live region around it already announces it. */
+  announce?: boolean;
 }
 
 /** An inline message box; errors interrupt screen readers, the other tones wait politely. */
-export function Alert({ tone = 'info', title, children, className = '' }: AlertProps) {
+export function Alert({ tone = 'info', title, children, className = '', announce = true }: AlertProps) {
   const { box, icon: Icon } = tones[tone];
   return (
     <div
-      role={tone === 'error' ? 'alert' : 'status'}
+      role={announce ? (tone === 'error' ? 'alert' : 'status') : undefined}
       className={`flex gap-3 rounded-lg border-l-4 p-4 ${box} ${className}`}
     >
       <Icon className="mt-0.5 size-5 shrink-0" aria-hidden="true" />

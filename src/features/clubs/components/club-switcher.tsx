@@ -16,11 +16,15 @@ export function ClubSwitcher({ clubs, currentClubId }: ClubSwitcherProps) {
   const current = clubs.find((club) => club.clubId === currentClubId);
 
   if (clubs.length <= 1) {
-    return current ? <span className="block truncate font-medium text-stone">{current.clubName}</span> : null;
+    return current ? (
+      <span className="block truncate font-medium text-stone" title={current.clubName}>
+        {current.clubName}
+      </span>
+    ) : null;
   }
 
   return (
-    <div className="flex items-center gap-2">
+    <div className="flex min-w-0 items-center gap-2">
       <label htmlFor={id} className="text-sm font-medium text-stone">
         Club
       </label>
@@ -28,7 +32,9 @@ export function ClubSwitcher({ clubs, currentClubId }: ClubSwitcherProps) {
         id={id}
         value={current ? String(current.clubId) : ''}
         onChange={(event) => navigate(paths.club(Number(event.target.value)))}
-        className={`${inputClasses} w-full cursor-pointer md:w-64`}
+        title={current?.clubName}
+        // As wide as the longest club name (up to 24rem), so the chosen name shows in full.
+        className={`${inputClasses} w-full cursor-pointer md:w-auto md:max-w-[min(24rem,100%)]`}
       >
         {!current && (
           <option value="" disabled>

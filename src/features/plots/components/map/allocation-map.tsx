@@ -26,11 +26,14 @@ import { Card } from '@/components/ui/card';
 import { Dialog } from '@/components/ui/dialog';
 import { ErrorState } from '@/components/ui/error-state';
 import { Select } from '@/components/ui/select';
+import { NoticeToast, type Notice } from '@/components/ui/notice-toast';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { useSitePlots } from '../../api/get-site-plots';
 import { useElementWidth } from '../../hooks/use-element-width';
-import { kindClasses } from './plot-shape';
+import { dragIdParts } from './drag-words';
+import { kindClasses, shownOnTile, tileText, TileText } from './plot-shape';
+import { SmallPlotsKey } from './small-plots-key';
 import { plotName, statusClasses, statusWord } from './season-status';
 import { ScaleBar } from './scale-bar';
 import { LocalDate } from '@/lib/time-zone';
@@ -64,28 +67,26 @@ function PlotTile({ plot, state, scale, selected, onSelect }: { plot: Plot; stat
   const fp = footprint(plot);
   const w = (fp.maxX - fp.minX) * scale;
   const h = (fp.maxY - fp.minY) * scale;
-  const fontPx = Math.max(10, Math.min(14, Math.min(w, h) / 3.2));
   const who = state?.holder?.name ?? state?.offer?.name ?? state?.renewal?.name ?? null;
+  const word = statusWord(status, who, plot.kind);
+  const text = tileText(plot, word, w, h, 14);
+  const name = plotName(plot.label, status, who, plot.kind);
   return (
     <button
       ref={setNodeRef}
       type="button"
       onClick={onSelect}
       aria-pressed={selected}
-      aria-label={plotName(plot.label, status, who, plot.kind)}
+      aria-label={name}
+      title={name}
       data-plot-label={plot.label}
       data-drop-over={isOver ? 'true' : undefined}
       className={`absolute flex flex-col items-center justify-center overflow-hidden text-soil ${kindClasses[plot.kind]} ${statusClasses[status]} ${
         selected ? 'z-20 ring-4 ring-leaf' : ''
       } ${isOver ? 'z-20 ring-4 ring-water' : ''}`}
-      style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: fontPx }}
+      style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: text.px }}
     >
-      <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{plot.label}</span>{' '}
-      {Math.min(w, h) >= 30 && (
-        <span className="max-w-full truncate px-0.5 text-[0.85em] leading-tight">
-          {statusWord(status, who, plot.kind)}
-        </span>
-      )}
+      <TileText label={plot.label} word={word} layout={text.layout} />
     </button>
   );
 }
@@ -128,7 +129,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
   const [selectedId, setSelectedId] = useState<number | null>(null);
   const [choice, setChoice] = useState<string>('');
   const [dragging, setDragging] = useState<AllocationPerson | null>(null);
-  const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
+  const [notice, setNotice] = useState<Notice | null>(null);
   const [busy, setBusy] = useState(false);
   /** An offer waiting for the coordinator's yes, with what it would say. */
   const [confirming, setConfirming] = useState<{ plotId: number; personId: number; quote: OfferQuote } | null>(null);
@@ -173,17 +174,17 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
 
   function onDragEnd(e: DragEndEvent) {
     setDragging(null);
-    const personId = Number(String(e.active.id).split(':')[1]);
-    const overId = e.over ? Number(String(e.over.id).split(':')[1]) : null;
+    const personId = dragIdParts(e.active.id).id;
+    const overId = e.over ? dragIdParts(e.over.id).id : null;
     if (overId === null) return;
     setSelectedId(overId);
     void askToOffer(overId, personId);
   }
 
   const labelOf = (id: string | number) => {
-    const [kind, n] = String(id).split(':');
-    if (kind === 'person') return people.find((p) => p.id === Number(n))?.name ?? 'The person';
-    return `plot ${plots.find((p) => p.id === Number(n))?.label ?? ''}`.trim();
+    const { kind, id: n } = dragIdParts(id);
+    if (kind === 'person') return people.find((p) => p.id === n)?.name ?? 'The person';
+    return `plot ${plots.find((p) => p.id === n)?.label ?? ''}`.trim();
   };
   // What a screen reader hears during a drag: names, never internal ids.
   const announcements: Announcements = {
@@ -201,6 +202,13 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
     { free: 0, renewal_pending: 0, offered: 0, taken: 0 },
   );
 
+  const smallPlots = plots.flatMap((p) => {
+    const state = stateOf.get(p.id);
+    const who = state?.holder?.name ?? state?.offer?.name ?? state?.renewal?.name ?? null;
+    const word = statusWord(state?.status ?? 'free', who, p.kind);
+    return shownOnTile(p, p, scale, word, 14) ? [] : [{ label: p.label, word }];
+  });
+
   return (
     <DndContext
       sensors={sensors}
@@ -217,11 +225,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
     >
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-[1fr_22rem]">
         <div className="min-w-0 space-y-3">
-          {notice && (
-            <div role={notice.tone === 'error' ? 'alert' : 'status'}>
-              <Alert tone={notice.tone}>{notice.text}</Alert>
-            </div>
-          )}
+          <NoticeToast notice={notice} onDismiss={() => setNotice(null)} />
           <p id={`drag-help-${site.id}`} className="text-sm text-stone">
             Drag a person from the waitlist onto a free plot to send them an offer, or select a plot and choose a person
             below the map.
@@ -233,6 +237,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
               ))}
             </div>
           </div>
+          <SmallPlotsKey plots={smallPlots} canZoom={false} />
           <div className="flex flex-wrap items-center justify-between gap-3">
             <ScaleBar scale={scale} units={site.units} />
             <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Plot status legend">
@@ -284,7 +289,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
                     if (id) void askToOffer(selected.id, id);
                   }}
                 >
-                  <Select label="Offer to" value={choice || String(suggested?.id ?? '')} onChange={(e) => setChoice(e.target.value)} className="min-w-64">
+                  <Select label="Offer to" value={choice || String(suggested?.id ?? '')} onChange={(e) => setChoice(e.target.value)} className="min-w-0 flex-1 basis-64">
                     <option value="" disabled>
                       {people.length ? 'Choose a person' : 'Nobody is waiting'}
                     </option>

@@ -1,14 +1,14 @@
-import { DndContext, PointerSensor, useSensor, useSensors, type DragEndEvent, type DragMoveEvent } from '@dnd-kit/core';
-import { Minus, Plus, SquarePlus } from 'lucide-react';
+import { DndContext, PointerSensor, useSensor, useSensors, type Announcements, type DragEndEvent, type DragMoveEvent } from '@dnd-kit/core';
+import { Minus, Plus, SquarePlus, Undo2 } from 'lucide-react';
 import { useCallback, useMemo, useRef, useState, type KeyboardEvent } from 'react';
-import { footprint, overlaps, snap, type Rect } from '@shared/geometry';
+import { feetToMetres, footprint, overlaps, snap, type Rect } from '@shared/geometry';
 import type { Plot, PlotCreateBody } from '@shared/schemas/plots';
 import type { PlotSeasonState } from '@shared/schemas/seasons';
 import type { Site } from '@shared/schemas/sites';
-import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { ErrorState } from '@/components/ui/error-state';
+import { NoticeToast, type Notice } from '@/components/ui/notice-toast';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { useCreatePlot } from '../../api/create-plot';
@@ -18,9 +18,12 @@ import { useSitePlots } from '../../api/get-site-plots';
 import { useUpdatePlot } from '../../api/update-plot';
 import { useElementWidth } from '../../hooks/use-element-width';
 import { MapLegend } from './map-legend';
+import { dragIdParts, movedWords, resizedWords } from './drag-words';
 import { clampToSite, defaultPlotSize, findFreeSpot, nextLabel, spansToSize } from './map-math';
 import { PlotInspector } from './plot-inspector';
-import { PlotShape, ResizeHandle, type PlotMark } from './plot-shape';
+import { PlotShape, ResizeHandle, shownOnTile, type PlotMark } from './plot-shape';
+import { statusWord } from './season-status';
+import { SmallPlotsKey } from './small-plots-key';
 import { ScaleBar } from './scale-bar';
 
 export interface MapEditorProps {
@@ -43,9 +46,24 @@ interface DragState {
   byKeyboard?: boolean;
 }
 
+/** A change that Undo can take back: the plot's values before it, saved again through the normal path. */
+interface UndoStep {
+  plotId: number;
+  label: string;
+  /** What the change was, as Undo names it ("the move of plot A-3"). */
+  what: 'move' | 'resize' | 'turn' | 'change' | 'addition';
+  before: Partial<PlotCreateBody>;
+}
+/** How many changes Undo remembers. */
+const UNDO_LIMIT = 20;
+
 const ARROWS: Record<string, [number, number]> = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] };
 /** The smallest side a drag or Shift + arrow leaves a plot with: half a metre, about a small container (common practice). */
 const MIN_SIDE = 0.5;
+/** What the Alt + arrow step is in metres: 1 m, or 3 ft on a site measured in feet. */
+function bigStep(units: Site['units']): number {
+  return units === 'us' ? feetToMetres(3) : 1;
+}
 
 function rectOf(p: Plot): Rect {
   return { x: p.x, y: p.y, width: p.width, length: p.length, rotation: p.rotation };
@@ -63,7 +81,11 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
   const [drag, setDrag] = useState<DragState | null>(null);
   /** The drag as last drawn: what is saved on release, so the saved size is the one on screen. */
   const shownDrag = useRef<DragState | null>(null);
-  const [notice, setNotice] = useState<{ tone: 'error' | 'success'; text: string } | null>(null);
+  const [notice, setNotice] = useState<Notice | null>(null);
+  const [undoSteps, setUndoSteps] = useState<UndoStep[]>([]);
+  const [undoing, setUndoing] = useState(false);
+  /** What the screen reader hears when a pointer drag ends, set by onDragEnd just before dnd-kit asks. */
+  const dragEndWords = useRef<string | undefined>(undefined);
   const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
 
   const fit = wrapWidth ? (wrapWidth - 2) / site.width : 16;
@@ -116,34 +138,78 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
       });
   }, [neighboursQuery.data, selected, plots]);
 
+  /** Values sent but not yet answered, per plot: a quick second key press builds on the first, not on the copy from before it. */
+  const pending = useRef(new Map<number, { token: number; values: Partial<PlotCreateBody> }>());
+  const pendingToken = useRef(0);
+  const latest = useCallback((plot: Plot): Plot => ({ ...plot, ...(pending.current.get(plot.id)?.values ?? {}) }) as Plot, []);
+
+  /** Saves a change; with `undoAs`, remembers the plot's earlier values so Undo can put them back. */
   const save = useCallback(
-    async (plot: Plot, changes: Partial<PlotCreateBody>) => {
+    async (shown: Plot, changes: Partial<PlotCreateBody>, undoAs?: UndoStep['what']) => {
       setNotice(null);
+      const plot = latest(shown);
+      const before = Object.fromEntries(Object.keys(changes).map((k) => [k, (plot as Record<string, unknown>)[k]])) as Partial<PlotCreateBody>;
+      const token = ++pendingToken.current;
+      pending.current.set(plot.id, { token, values: { ...pending.current.get(plot.id)?.values, ...changes } });
       try {
         await updatePlot.mutateAsync({ plotId: plot.id, body: { version: plot.version, ...changes } });
       } catch (err) {
         setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The change could not be saved. Try again.' });
         throw err;
+      } finally {
+        if (pending.current.get(plot.id)?.token === token) pending.current.delete(plot.id);
       }
+      if (undoAs) setUndoSteps((steps) => [...steps, { plotId: plot.id, label: plot.label, what: undoAs, before }].slice(-UNDO_LIMIT));
     },
-    [updatePlot],
+    [updatePlot, latest],
   );
 
+  const lastStep = undoSteps.at(-1) ?? null;
+
+  /** Takes back the last change through the normal save (the server checks it as usual); a refusal says why. */
+  async function undo() {
+    const step = lastStep;
+    if (!step || undoing) return;
+    setUndoSteps((steps) => steps.slice(0, -1));
+    const plot = plots.find((p) => p.id === step.plotId);
+    const what = `the ${step.what} of plot ${step.label}`;
+    if (!plot) {
+      setNotice({ tone: 'error', text: `Could not undo ${what}: the plot is no longer on the map.` });
+      return;
+    }
+    setUndoing(true);
+    try {
+      if (step.what === 'addition') {
+        await deletePlot.mutateAsync({ plotId: plot.id, version: plot.version });
+        if (selectedId === plot.id) setSelectedId(null);
+      } else {
+        await save(plot, step.before);
+      }
+      setNotice({ tone: 'success', text: `Undid ${what}.` });
+      setAnnouncement(`Undid ${what}.`);
+    } catch (err) {
+      setNotice({ tone: 'error', text: `Could not undo ${what}: ${isApiError(err) ? err.message : 'the change was not saved. Try again.'}` });
+    } finally {
+      setUndoing(false);
+    }
+  }
+
   function onDragMove(e: DragMoveEvent) {
-    const [kind, id] = String(e.active.id).split(':');
-    const d: DragState = { kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y };
+    const { kind, id } = dragIdParts(e.active.id);
+    const d: DragState = { kind: kind as DragState['kind'], plotId: id, dx: e.delta.x, dy: e.delta.y };
     shownDrag.current = d;
     setDrag(d);
   }
 
   function onDragEnd(e: DragEndEvent) {
-    const [kind, id] = String(e.active.id).split(':');
-    const plot = plots.find((p) => p.id === Number(id));
+    const { kind, id } = dragIdParts(e.active.id);
+    const plot = plots.find((p) => p.id === id);
     const last = shownDrag.current;
     shownDrag.current = null;
     const d: DragState =
-      last && last.plotId === Number(id) && last.kind === kind ? last : { kind: kind as DragState['kind'], plotId: Number(id), dx: e.delta.x, dy: e.delta.y };
+      last && last.plotId === id && last.kind === kind ? last : { kind: kind as DragState['kind'], plotId: id, dx: e.delta.x, dy: e.delta.y };
     setDrag(null);
+    dragEndWords.current = undefined;
     if (!plot) return;
     setSelectedId(plot.id);
     const to = candidate(plot, d);
@@ -153,19 +219,38 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
     // The red ring said it would not fit there: put it back rather than send a change that will be refused.
     const inTheWay = plots.find((p) => p.id !== plot.id && overlaps(to, rectOf(p)));
     if (changed && inTheWay) {
-      setNotice({ tone: 'error', text: `Plot ${plot.label} was put back: there it would overlap plot ${inTheWay.label}.` });
+      const text = `Plot ${plot.label} was put back: there it would overlap plot ${inTheWay.label}.`;
+      dragEndWords.current = text;
+      setNotice({ tone: 'error', text });
       return;
     }
-    if (changed) save(plot, changes).catch(() => undefined);
+    if (!changed) {
+      dragEndWords.current = `Plot ${plot.label} put down where it was.`;
+      return;
+    }
+    dragEndWords.current = kind === 'move' ? movedWords(plot.label, to.x, to.y, site.units) : resizedWords(plot.label, to.width, to.length, site.units);
+    save(plot, changes, kind === 'move' ? 'move' : 'resize').catch(() => undefined);
   }
 
+  const labelOfDrag = (dragId: string | number) => plots.find((p) => p.id === dragIdParts(dragId).id)?.label ?? '';
+  // What a screen reader hears during a pointer drag: plot labels and metres, never internal ids.
+  const announcements: Announcements = {
+    onDragStart: ({ active }) =>
+      dragIdParts(active.id).kind === 'resize' ? `Resizing plot ${labelOfDrag(active.id)}.` : `Plot ${labelOfDrag(active.id)} picked up.`,
+    onDragOver: () => undefined,
+    onDragEnd: () => dragEndWords.current,
+    onDragCancel: ({ active }) => `Plot ${labelOfDrag(active.id)} put back.`,
+  };
+
   /**
-   * Keyboard: Space or Enter picks the plot up, arrows move it one grid step, Space or Enter
-   * puts it down (saved), Escape puts it back; Shift + arrows resize it, R turns it.
+   * Keyboard: Space or Enter picks the plot up, arrows move it one grid step (Alt + arrows 1 m),
+   * Space or Enter puts it down (saved), Escape puts it back; without picking up, Alt + arrows move
+   * it 1 m at once (saved); Shift + arrows resize it (Shift + Alt by 1 m), R turns it.
    * Returns true when the key was handled.
    */
-  function onKeyCommand(plot: Plot, e: KeyboardEvent<HTMLElement>): boolean {
+  function onKeyCommand(shown: Plot, e: KeyboardEvent<HTMLElement>): boolean {
     if (!canEdit) return false;
+    const plot = latest(shown);
     const d = ARROWS[e.key];
     const carrying = drag?.byKeyboard && drag.plotId === plot.id ? drag : null;
     if (e.key === ' ' || e.key === 'Enter') {
@@ -178,8 +263,8 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
       setDrag(null);
       const to = candidate(plot, carrying);
       if (to.x !== plot.x || to.y !== plot.y) {
-        setAnnouncement(`Plot ${plot.label} put down.`);
-        save(plot, { x: to.x, y: to.y }).catch(() => undefined);
+        setAnnouncement(`Plot ${plot.label} put down. ${movedWords(plot.label, to.x, to.y, site.units)}`);
+        save(plot, { x: to.x, y: to.y }, 'move').catch(() => undefined);
       } else setAnnouncement(`Plot ${plot.label} put down where it was.`);
       return true;
     }
@@ -189,23 +274,37 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
       setAnnouncement(`Plot ${plot.label} put back.`);
       return true;
     }
+    const step = e.altKey ? bigStep(site.units) : grid;
     if (d && carrying) {
       e.preventDefault();
-      setDrag({ ...carrying, dx: carrying.dx + d[0] * grid * scale, dy: carrying.dy + d[1] * grid * scale });
+      setDrag({ ...carrying, dx: carrying.dx + d[0] * step * scale, dy: carrying.dy + d[1] * step * scale });
       return true;
     }
     if (d && e.shiftKey) {
       e.preventDefault();
       const r = rectOf(plot);
       const fp = footprint(r);
-      const spanX = Math.max(MIN_SIDE, snap(fp.maxX - fp.minX + d[0] * grid, grid));
-      const spanY = Math.max(MIN_SIDE, snap(fp.maxY - fp.minY + d[1] * grid, grid));
-      save(plot, spansToSize(r.rotation, spanX, spanY)).catch(() => undefined);
+      const spanX = Math.max(MIN_SIDE, snap(fp.maxX - fp.minX + d[0] * step, grid));
+      const spanY = Math.max(MIN_SIDE, snap(fp.maxY - fp.minY + d[1] * step, grid));
+      const size = spansToSize(r.rotation, spanX, spanY);
+      setAnnouncement(resizedWords(plot.label, size.width, size.length, site.units));
+      save(plot, size, 'resize').catch(() => undefined);
+      return true;
+    }
+    if (d && e.altKey) {
+      e.preventDefault();
+      const to = clampToSite({ ...rectOf(plot), x: snap(plot.x + d[0] * step, grid), y: snap(plot.y + d[1] * step, grid) }, site);
+      if (to.x === plot.x && to.y === plot.y) {
+        setAnnouncement(`Plot ${plot.label} is at the edge of the site.`);
+        return true;
+      }
+      setAnnouncement(movedWords(plot.label, to.x, to.y, site.units));
+      save(plot, { x: to.x, y: to.y }, 'move').catch(() => undefined);
       return true;
     }
     if (e.key === 'r' || e.key === 'R') {
       e.preventDefault();
-      save(plot, { rotation: plot.rotation === 0 ? 90 : 0 }).catch(() => undefined);
+      save(plot, { rotation: plot.rotation === 0 ? 90 : 0 }, 'turn').catch(() => undefined);
       return true;
     }
     return false;
@@ -222,6 +321,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
     try {
       const created = await createPlot.mutateAsync({ label: nextLabel(plots), ...spot, ...size });
       setSelectedId(created.id);
+      setUndoSteps((steps) => [...steps, { plotId: created.id, label: created.label, what: 'addition' as const, before: {} }].slice(-UNDO_LIMIT));
       setNotice({ tone: 'success', text: `Plot ${created.label} added. Drag it into place and give it a label.` });
     } catch (err) {
       setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The plot could not be added.' });
@@ -237,6 +337,12 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
   const draggedRect = dragged ? candidate(dragged, drag) : null;
   const blocked = Boolean(dragged && draggedRect && plots.some((p) => p.id !== dragged.id && overlaps(draggedRect, rectOf(p))));
   const helpId = `map-help-${site.id}`;
+  const smallPlots = plots.flatMap((p) => {
+    const season = seasonOf.get(p.id);
+    const who = season?.holder?.name ?? season?.offer?.name ?? season?.renewal?.name ?? null;
+    const word = season ? statusWord(season.status, who, p.kind) : null;
+    return shownOnTile(p, rectOf(p), scale, word, 15) ? [] : [{ label: p.label, word }];
+  });
 
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[1fr_24rem]">
@@ -245,6 +351,19 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
           {canEdit && (
             <Button onClick={() => void addPlot()} loading={createPlot.isPending} loadingText="Adding…">
               <SquarePlus className="size-5" aria-hidden="true" /> Add plot
+            </Button>
+          )}
+          {canEdit && (
+            <Button
+              variant="secondary"
+              onClick={() => void undo()}
+              disabled={!lastStep}
+              loading={undoing}
+              loadingText="Undoing…"
+              aria-label={lastStep ? `Undo the ${lastStep.what} of plot ${lastStep.label}` : 'Undo (nothing to undo yet)'}
+              title={lastStep ? `Undo the ${lastStep.what} of plot ${lastStep.label} (Ctrl+Z)` : 'Nothing to undo yet'}
+            >
+              <Undo2 className="size-5" aria-hidden="true" /> Undo
             </Button>
           )}
           <div className="ml-auto flex items-center gap-1" role="group" aria-label="Zoom">
@@ -258,22 +377,35 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
         </div>
         <p id={helpId} className="text-sm text-stone">
           {canEdit
-            ? 'Drag a plot to move it and the round grip to resize it. With the keyboard: Tab to a plot, Space to pick it up, arrows to move it, Space to put it down (Escape puts it back); Shift + arrows resize, R turns it.'
+            ? `Drag a plot to move it and the round grip to resize it. With the keyboard: Tab to a plot, Space to pick it up, arrows to move it one grid step, Space to put it down (Escape puts it back). Alt + arrows move it ${site.units === 'us' ? '3 ft' : '1 m'} at once; Shift + arrows resize, R turns it, Ctrl+Z undoes the last change.`
             : 'Select a plot to see its details and neighbours.'}
         </p>
         <p className="sr-only" aria-live="assertive">
           {announcement}
         </p>
-        {notice && (
-          <div role={notice.tone === 'error' ? 'alert' : 'status'}>
-            <Alert tone={notice.tone}>{notice.text}</Alert>
-          </div>
-        )}
-        <div ref={wrapRef} className="overflow-auto rounded-xl border border-paper-300 bg-white">
+        <NoticeToast notice={notice} onDismiss={() => setNotice(null)} />
+        <div
+          ref={wrapRef}
+          className="overflow-auto rounded-xl border border-paper-300 bg-white"
+          onKeyDown={(e) => {
+            // Ctrl+Z (Cmd+Z on a Mac) while the map has focus takes back the last change.
+            if (canEdit && (e.ctrlKey || e.metaKey) && !e.shiftKey && !e.altKey && e.key.toLowerCase() === 'z' && !drag) {
+              e.preventDefault();
+              void undo();
+            }
+          }}
+        >
           {/* No auto-scroll: scrolling the page under a drag moved the plot further than the pointer and ran it off the map. */}
           <DndContext
             sensors={sensors}
             autoScroll={false}
+            accessibility={{
+              announcements,
+              screenReaderInstructions: {
+                draggable:
+                  'Drag the grip with a pointer to resize the plot. With the keyboard, Tab to the plot and press Shift with the arrow keys.',
+              },
+            }}
             onDragMove={onDragMove}
             onDragEnd={onDragEnd}
             onDragCancel={() => setDrag(null)}
@@ -328,6 +460,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
         <p className="min-h-6 font-medium text-clay-700" role="status">
           {blocked ? 'Here it would overlap another plot: plots may touch but not overlap.' : ''}
         </p>
+        <SmallPlotsKey plots={smallPlots} canZoom />
         <div className="flex flex-wrap items-center justify-between gap-3">
           <div className="flex items-end gap-4">
             <ScaleBar scale={scale} units={site.units} />
@@ -348,8 +481,8 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
             canEdit={canEdit}
             neighbours={neighboursOfSelected}
             plotHref={plotHref(selected.id)}
-            onSave={(changes) => save(selected, changes)}
-            onRotate={() => void save(selected, { rotation: selected.rotation === 0 ? 90 : 0 }).catch(() => undefined)}
+            onSave={(changes) => save(selected, changes, 'change')}
+            onRotate={() => void save(selected, { rotation: selected.rotation === 0 ? 90 : 0 }, 'turn').catch(() => undefined)}
             onDelete={async () => {
               try {
                 await deletePlot.mutateAsync({ plotId: selected.id, version: selected.version });

@@ -181,7 +181,8 @@ export function PlotInspector({ plot, units, canEdit, neighbours, plotHref, onSa
             <TextField label={`Width (${u})`} inputMode="decimal" {...register('width')} error={e.width?.message} />
             <TextField label={`Length (${u})`} inputMode="decimal" {...register('length')} error={e.length?.message} />
           </div>
-          <div className="grid grid-cols-2 gap-3">
+          {/* One select a row: the option words are too long for half the panel. */}
+          <div className="grid grid-cols-1 gap-3">
             <Select label="Turned" {...register('rotation')} error={e.rotation?.message}>
               <option value="0">Length north–south</option>
               <option value="90">Length east–west</option>
@@ -200,6 +201,8 @@ export function PlotInspector({ plot, units, canEdit, neighbours, plotHref, onSa
                 </option>
               ))}
             </Select>
+          </div>
+          <div className="grid grid-cols-2 gap-3">
             <TextField label={`Soil depth (${u})`} hint="Raised beds and containers" inputMode="decimal" {...register('soilDepth')} error={e.soilDepth?.message} />
             <TextField label="Soil pH" hint="From the latest soil test" inputMode="decimal" {...register('soilPh')} error={e.soilPh?.message} />
           </div>
