@@ -319,7 +319,8 @@ describe('the map editor', () => {
     const box = (await plot(w.page, 'A-3').boundingBox())!;
     await savedAfter(w.page, () => dragFromCentre(w.page, box, 0, 10, 3));
     expect((await plotRow('A-3')).y_m).toBeGreaterThan(before.y_m);
-    await savedAfter(w.page, () => w.page.getByRole('button', { name: /^Undo/ }).click());
+    // The step is remembered once the save's answer is in; the button then names it.
+    await savedAfter(w.page, () => w.page.getByRole('button', { name: 'Undo the move of plot A-3' }).click());
     await w.page.reload();
     await plot(w.page, 'A-3').waitFor();
     const undone = await plotRow('A-3');
@@ -334,10 +335,11 @@ describe('the map editor', () => {
     await plot(w.page, 'K-2').focus();
     await savedAfter(w.page, () => w.page.keyboard.press('Shift+ArrowLeft'));
     expect((await plotRow('K-2')).width_m).toBeCloseTo(k2.width_m - 0.1, 6); // computed: one 0.1 m grid step
+    await w.page.getByRole('button', { name: 'Undo the resize of plot K-2' }).waitFor();
     await savedAfter(w.page, () => w.page.keyboard.press('Control+z'));
     expect((await plotRow('K-2')).width_m).toBe(k2.width_m);
     expect(w.errors).toEqual([]);
-  });
+  }, 60_000);
 
   for (const width of [1280, 390]) {
     it(`shows selects, the club switcher and small plots in full at ${width} px`, async () => {
