@@ -5,15 +5,10 @@ import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia, requireUser } from '../middleware/auth';
 import { idempotent } from '../middleware/idempotency';
 import { getClubSettings } from '../services/clubs';
-import {
-  clubOfFee,
-  exportFeesCsv,
-  getFeeSchedule,
-  listFees,
-  listMyFees,
-  recordPayment,
-  saveFeeSchedule,
-} from '../services/fees';
+import { exportFeesCsv } from '../services/fee-csv';
+import { clubOfFee, listFees, listMyFees } from '../services/fee-ledger';
+import { getFeeSchedule, saveFeeSchedule } from '../services/fee-schedules';
+import { recordPayment } from '../services/payments';
 
 // A byte-order mark makes spreadsheet programs read the file as UTF-8 (common practice).
 const BOM = '\uFEFF';

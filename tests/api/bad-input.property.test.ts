@@ -4,7 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { ErrorBodySchema } from '@shared/errors';
-import { createFeeForAllocation } from '../../server/services/fees';
+import { createFeeForAllocation } from '../../server/services/fee-charges';
 import { buildApplication, buildClub, buildMember } from '../factories';
 import { signedInMember, type Agent } from '../helpers/api';
 import { setupTestApp, truncateAll } from '../helpers/app';

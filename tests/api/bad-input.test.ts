@@ -2,7 +2,7 @@ import zlib from 'node:zlib';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '@shared/errors';
-import { createFeeForAllocation } from '../../server/services/fees';
+import { createFeeForAllocation } from '../../server/services/fee-charges';
 import { buildApplication, buildClub, buildMember } from '../factories';
 import { signedInMember, type Agent } from '../helpers/api';
 import { browserLikeAgent, setupTestApp, truncateAll } from '../helpers/app';
