@@ -1,22 +1,15 @@
 import { Router } from 'express';
 import { FeeScheduleSchema, FeesQuerySchema, PaymentBodySchema } from '@shared/schemas/fees';
+import { sendCsv } from '../csv-download';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia, requireUser } from '../middleware/auth';
 import { idempotent } from '../middleware/idempotency';
 import { getClubSettings } from '../services/clubs';
-import {
-  clubOfFee,
-  exportFeesCsv,
-  getFeeSchedule,
-  listFees,
-  listMyFees,
-  recordPayment,
-  saveFeeSchedule,
-} from '../services/fees';
-
-// A byte-order mark makes spreadsheet programs read the file as UTF-8 (common practice).
-const BOM = '\uFEFF';
+import { exportFeesCsv } from '../services/fee-csv';
+import { clubOfFee, listFees, listMyFees } from '../services/fee-ledger';
+import { getFeeSchedule, saveFeeSchedule } from '../services/fee-schedules';
+import { recordPayment } from '../services/payments';
 
 /**
  * A club's fee schedule and fees (coordinators), mounted at /api/clubs/:clubId. Roles are checked per
@@ -44,9 +37,7 @@ export function clubFeesRouter({ db }: Deps): Router {
     const query = parseInput(FeesQuerySchema, req.query);
     const club = await getClubSettings(db, req.clubId!);
     const csv = await exportFeesCsv(db, req.clubId!, query);
-    res.attachment(`${club.slug}-fees${query.year ? `-${query.year}` : ''}.csv`);
-    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Cache-Control': 'private, no-cache' });
-    res.send(BOM + csv);
+    sendCsv(res, `${club.slug}-fees${query.year ? `-${query.year}` : ''}.csv`, csv);
   });
 
   return router;

@@ -9,7 +9,7 @@ import { leftOutHolders, renewLeftOutHolder } from '../services/late-renewals';
 import { quoteOffer } from '../services/offer-quotes';
 import { idempotent } from '../middleware/idempotency';
 import { createOffer } from '../services/offers';
-import { seasonPlotStates } from '../services/season-plots';
+import { listSeasonPlotStates } from '../services/season-plots';
 import { clubOfSeason, getSeason, listSeasons, openSeason, previewSeasonOpening } from '../services/seasons';
 
 const PlotStatesQuerySchema = z.object({ siteId: IdTextSchema });
@@ -51,10 +51,8 @@ export function seasonsRouter({ db, mailer, config }: Deps): Router {
 
   router.get('/:seasonId/plot-states', member, async (req, res) => {
     const { siteId } = parseInput(PlotStatesQuerySchema, req.query);
-    const site = await db('sites').where({ id: siteId, club_id: req.clubId }).whereNull('archived_at').first('id');
-    if (!site) return res.json({ items: [], page: 1, total: 0 });
-    const items = await seasonPlotStates(db, Number(req.params.seasonId), siteId, { userId: req.session.userId!, roles: req.clubRoles! });
-    res.json({ items, page: 1, total: items.length });
+    const viewer = { userId: req.session.userId!, roles: req.clubRoles! };
+    res.json(await listSeasonPlotStates(db, { seasonId: Number(req.params.seasonId), clubId: req.clubId!, siteId, viewer }));
   });
 
   // Last season's holders with no renewal this season, and why (arrears are the coordinator's to see).

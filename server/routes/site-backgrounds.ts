@@ -53,13 +53,13 @@ function receiveImage(): RequestHandler {
   };
 }
 
-/** A site's map background image: upload, fetch, remove. Mounted at /api/sites. */
+/** A site's map background image: upload, fetch, remove. Mounted at /api/sites/:siteId/background. */
 export function siteBackgroundsRouter({ db, config }: Deps): Router {
-  const router = Router();
+  const router = Router({ mergeParams: true });
   const member = requireRoleVia(db, 'siteId', clubOfSite, 'The site');
   const coordinator = requireRoleVia(db, 'siteId', clubOfSite, 'The site', 'coordinator');
 
-  router.post('/:siteId/background', coordinator, receiveImage(), async (req, res) => {
+  router.post('/', coordinator, receiveImage(), async (req, res) => {
     const { widthMetres } = parseInput(UploadFieldsSchema, { ...req.body });
     if (!req.file) {
       throw new AppError('validation_failed', 'Choose an image to upload.', { image: 'Choose a PNG, JPEG or WebP image' });
@@ -73,7 +73,7 @@ export function siteBackgroundsRouter({ db, config }: Deps): Router {
     res.json(site);
   });
 
-  router.get('/:siteId/background', member, async (req, res, next) => {
+  router.get('/', member, async (req, res, next) => {
     const found = await findSiteBackground(db, { siteId: Number(req.params.siteId), uploadDir: config.uploadDir });
     const headers = {
       'Content-Type': found.mime,
@@ -90,7 +90,7 @@ export function siteBackgroundsRouter({ db, config }: Deps): Router {
     });
   });
 
-  router.delete('/:siteId/background', coordinator, async (req, res) => {
+  router.delete('/', coordinator, async (req, res) => {
     await deleteSiteBackground(db, { siteId: Number(req.params.siteId), uploadDir: config.uploadDir });
     res.status(204).end();
   });

@@ -1,10 +1,12 @@
 import { Router } from 'express';
 import { PlotCreateBodySchema } from '@shared/schemas/plots';
 import { z } from 'zod';
-import { SiteArchiveBodySchema, SiteCreateBodySchema, SiteUpdateBodySchema } from '@shared/schemas/sites';
+import { SiteArchiveBodySchema, SiteCreateBodySchema, SiteUpdateBodySchema, UnitsQuerySchema } from '@shared/schemas/sites';
+import { siteFileName, sendCsv } from '../csv-download';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
+import { exportPlotsCsv } from '../services/plot-imports';
 import { createPlot, listPlots, siteNeighbours } from '../services/plots';
 import { archiveSite, clubOfSite, createSite, deleteSite, getSite, listSites, updateSite } from '../services/sites';
 
@@ -62,6 +64,12 @@ export function sitesRouter({ db, config }: Deps): Router {
     const body = parseInput(PlotCreateBodySchema, req.body);
     const plot = await createPlot(db, { siteId: Number(req.params.siteId), userId: req.session.userId!, body });
     res.status(201).json(plot);
+  });
+
+  router.get('/:siteId/plots.csv', member, async (req, res) => {
+    const { units } = parseInput(UnitsQuerySchema, req.query);
+    const site = await getSite(db, Number(req.params.siteId));
+    sendCsv(res, siteFileName(site.name, 'plots.csv'), await exportPlotsCsv(db, site.id, units ?? site.units));
   });
 
   router.get('/:siteId/neighbours', member, async (req, res) => {

@@ -1,4 +1,5 @@
 import Papa from 'papaparse';
+import { EmailSchema } from '@shared/schemas/common';
 import type { ImportProblem } from '@shared/schemas/member-imports';
 import { AppError } from '../errors';
 
@@ -181,4 +182,27 @@ export function importRefusal(errors: ImportProblem[]): AppError {
       ? 'The file has problems; nothing was imported.'
       : `${badRows} ${badRows === 1 ? 'row has' : 'rows have'} problems; nothing was imported.`;
   return new AppError('validation_failed', message, fields);
+}
+
+// Files of people (members, waitlist) share these.
+export const emailAliases = { e_mail: 'email', email_address: 'email', e_mail_address: 'email' } as const;
+
+/** An e-mail address cell, or the problem with it. */
+export function readEmail(text: string): { email: string } | { problem: string } {
+  if (text === '') return { problem: 'Enter an e-mail address' };
+  const parsed = EmailSchema.safeParse(text);
+  return parsed.success ? { email: parsed.data } : { problem: parsed.error.issues[0].message };
+}
+
+/** Marks the later rows of an address used twice in the file. */
+export function duplicateRows(rows: Array<{ row: number; email: string }>): ImportProblem[] {
+  const first = new Map<string, number>();
+  const problems: ImportProblem[] = [];
+  for (const r of rows) {
+    if (!r.email) continue;
+    const at = first.get(r.email);
+    if (at !== undefined) problems.push({ row: r.row, field: 'email', message: `The address ${r.email} is also on row ${at}` });
+    else first.set(r.email, r.row);
+  }
+  return problems;
 }

@@ -3,7 +3,7 @@ import { deadlineAfterDays } from '@shared/dates';
 import { meetsNeeds } from '@shared/spring-round/suggest';
 import type { Db } from '../db/knex';
 import { AppError, notFound } from '../errors';
-import { quotePlotFee } from './fees';
+import { quotePlotFee } from './fee-quotes';
 
 /**
  * What offering this plot to this person would send, for the coordinator's confirm step: read

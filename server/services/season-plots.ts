@@ -4,6 +4,19 @@ import type { Db } from '../db/knex';
 import { seesPeople, type Viewer } from './visibility';
 
 /**
+ * The season's plot states for one of the club's live sites, as a list; a site of another club or an
+ * archived one gives an empty list.
+ */
+export async function listSeasonPlotStates(
+  db: Db,
+  opts: { seasonId: number; clubId: number; siteId: number; viewer: Viewer },
+): Promise<{ items: PlotSeasonState[]; page: number; total: number }> {
+  const site = await db('sites').where({ id: opts.siteId, club_id: opts.clubId }).whereNull('archived_at').first('id');
+  const items = site ? await seasonPlotStates(db, opts.seasonId, opts.siteId, opts.viewer) : [];
+  return { items, page: 1, total: items.length };
+}
+
+/**
  * Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free.
  * A coordinator sees who; anyone else sees free or taken, and names only on their own holding or renewal.
  * An offer or renewal past its deadline at `now` has lapsed, whether or not the sweep has run.

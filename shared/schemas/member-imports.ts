@@ -3,10 +3,6 @@ import { PreferredSizeSchema } from './applications';
 import { RoleSchema } from './auth';
 import { csvFileSchema } from './common';
 
-export const memberImportKinds = ['members', 'waitlist'] as const;
-export const MemberImportKindSchema = z.enum(memberImportKinds);
-export type MemberImportKind = z.infer<typeof MemberImportKindSchema>;
-
 /** Columns of a members file, in the order exports and the template use. */
 export const memberCsvColumns = ['name', 'email', 'roles', 'send_invite'] as const;
 /** Columns of a waitlist file, in the order exports and the template use. */
@@ -27,13 +23,13 @@ export const allocationCsvColumns = ['year', 'site', 'plot', 'holder_name', 'hol
 /** The most rows one member or waitlist file may hold. */
 export const MAX_MEMBER_IMPORT_ROWS = 2000;
 
-export const MemberImportBodySchema = z.strictObject({
-  kind: MemberImportKindSchema,
+/** A members file (POST /member-imports) or a waitlist file (POST /waitlist-imports). */
+export const PeopleImportBodySchema = z.strictObject({
   csv: csvFileSchema(2_000_000, 'The file is larger than 2 MB'),
   /** false: check and preview only; true: check and save all rows or none. */
   commit: z.boolean(),
 });
-export type MemberImportBody = z.infer<typeof MemberImportBodySchema>;
+export type PeopleImportBody = z.infer<typeof PeopleImportBodySchema>;
 
 /** One problem in a file: the line (the header is line 1), the column, and what is wrong. */
 export const ImportProblemSchema = z.object({ row: z.number().int(), field: z.string(), message: z.string() });
@@ -110,5 +106,4 @@ export type WaitlistImportResult = z.infer<typeof WaitlistImportResultSchema>;
 export const MemberImportResultSchema = z.discriminatedUnion('kind', [MembersImportResultSchema, WaitlistImportResultSchema]);
 export type MemberImportResult = z.infer<typeof MemberImportResultSchema>;
 
-export const ImportTemplateQuerySchema = z.object({ kind: MemberImportKindSchema });
 export const AllocationsExportQuerySchema = z.object({ year: z.coerce.number().int().min(2000).max(2100).optional() });

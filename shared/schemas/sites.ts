@@ -3,6 +3,8 @@ import { textSchema, VersionSchema } from './common';
 
 export const unitsValues = ['metric', 'us'] as const;
 export const UnitsSchema = z.enum(unitsValues);
+/** ?units=metric|us on CSV downloads and templates; the site's own units when left out. */
+export const UnitsQuerySchema = z.object({ units: UnitsSchema.optional() });
 
 /** A typical frost date as month-day, e.g. "04-25". */
 export const MonthDaySchema = z

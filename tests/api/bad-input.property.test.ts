@@ -4,7 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { ErrorBodySchema } from '@shared/errors';
-import { createFeeForAllocation } from '../../server/services/fees';
+import { createFeeForAllocation } from '../../server/services/fee-charges';
 import { buildApplication, buildClub, buildMember } from '../factories';
 import { signedInMember, type Agent } from '../helpers/api';
 import { setupTestApp, truncateAll } from '../helpers/app';
@@ -206,7 +206,8 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
   'PATCH /api/clubs/:clubId': () => ({ name: 'Renamed club' }),
   'POST /api/clubs/:clubId/seasons': () => ({ year: 2028, renewalDeadline: '2027-12-01T12:00:00Z' }),
   'POST /api/sites/:siteId/plot-imports': () => ({ csv: 'label,x,y,width,length\nI-1,35,0,3,6\n', units: 'metric', commit: false }),
-  'POST /api/clubs/:clubId/member-imports': () => ({ kind: 'waitlist', csv: 'name,email\nW,w@example.org\n', commit: false }),
+  'POST /api/clubs/:clubId/member-imports': () => ({ csv: 'name,email,roles\nM,m@example.org,volunteer\n', commit: false }),
+  'POST /api/clubs/:clubId/waitlist-imports': () => ({ csv: 'name,email\nW,w@example.org\n', commit: false }),
 };
 const feeSchedule = {
   basis: 'kind',

@@ -2,7 +2,7 @@ import zlib from 'node:zlib';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '@shared/errors';
-import { createFeeForAllocation } from '../../server/services/fees';
+import { createFeeForAllocation } from '../../server/services/fee-charges';
 import { buildApplication, buildClub, buildMember } from '../factories';
 import { signedInMember, type Agent } from '../helpers/api';
 import { browserLikeAgent, setupTestApp, truncateAll } from '../helpers/app';
@@ -237,14 +237,14 @@ const probes: Probe[] = [
   {
     name: 'members CSV with NUL',
     send: (x) =>
-      x.c.post(`/api/clubs/${x.clubId}/member-imports`, { kind: 'members', csv: `name,email\nNul${NUL} Person,nul@example.org\n`, commit: true }),
+      x.c.post(`/api/clubs/${x.clubId}/member-imports`, { csv: `name,email\nNul${NUL} Person,nul@example.org\n`, commit: true }),
     status: 400,
     field: 'csv',
   },
   {
     name: 'waitlist CSV with NUL (preview)',
     send: (x) =>
-      x.c.post(`/api/clubs/${x.clubId}/member-imports`, { kind: 'waitlist', csv: `name,email,notes\nWait,w@example.org,a${NUL}\n`, commit: false }),
+      x.c.post(`/api/clubs/${x.clubId}/waitlist-imports`, { csv: `name,email,notes\nWait,w@example.org,a${NUL}\n`, commit: false }),
     status: 400,
     field: 'csv',
   },
@@ -324,7 +324,7 @@ const probes: Probe[] = [
   {
     name: 'waitlist CSV applied on 0000-01-01',
     send: (x) =>
-      x.c.post(`/api/clubs/${x.clubId}/member-imports`, { kind: 'waitlist', csv: 'name,email,applied_on\nOld,old@example.org,0000-01-01\n', commit: true }),
+      x.c.post(`/api/clubs/${x.clubId}/waitlist-imports`, { csv: 'name,email,applied_on\nOld,old@example.org,0000-01-01\n', commit: true }),
     status: 400,
     field: 'row 2.applied_on',
   },

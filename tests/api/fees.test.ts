@@ -2,7 +2,7 @@ import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
 import { feetToMetres } from '@shared/geometry';
 import type { FeeSchedule } from '@shared/schemas/fees';
-import { createFeeForAllocation } from '../../server/services/fees';
+import { createFeeForAllocation } from '../../server/services/fee-charges';
 import { buildClub, buildMember } from '../factories';
 import { browserLikeAgent, mailUrl, setupTestApp, truncateAll } from '../helpers/app';
 import { waitForMail } from '../helpers/inbox';

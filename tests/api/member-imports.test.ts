@@ -17,7 +17,7 @@ const WAITLIST_HEADER = waitlistCsvColumns.join(',');
 const signedIn = (clubId: number, roles: Role[]) => signedInMember(t, clubId, roles);
 
 const importCsv = (c: Agent, clubId: number, kind: 'members' | 'waitlist', csv: string, commit = false) =>
-  c.post(`/api/clubs/${clubId}/member-imports`, { kind, csv, commit });
+  c.post(`/api/clubs/${clubId}/${kind === 'members' ? 'member' : 'waitlist'}-imports`, { csv, commit });
 
 const count = async (table: string, where: Record<string, unknown> = {}) =>
   Number((await t.db(table).where(where).count({ n: '*' }))[0].n);
@@ -250,7 +250,7 @@ describe('waitlist import', () => {
     const club = await buildClub(t.db);
     const c = await signedIn(club.id, ['coordinator']);
     for (const kind of ['members', 'waitlist'] as const) {
-      const csv = await download(c, `/api/clubs/${club.id}/member-imports/template.csv?kind=${kind}`);
+      const csv = await download(c, `/api/clubs/${club.id}/${kind === 'members' ? 'member' : 'waitlist'}-imports/template.csv`);
       const res = await importCsv(c, club.id, kind, csv);
       expect(res.body.errors).toEqual([]);
       expect(res.body.rows).toHaveLength(2);
@@ -325,6 +325,7 @@ describe('exports', () => {
     const club = await buildClub(t.db);
     const holder = await signedIn(club.id, ['plot_holder']);
     expect((await importCsv(holder, club.id, 'waitlist', `${WAITLIST_HEADER}\nA,a@example.org`)).status).toBe(403);
+    expect((await importCsv(holder, club.id, 'members', 'name,email,roles\nA,a@example.org,volunteer')).status).toBe(403);
     for (const file of ['members.csv', 'waitlist.csv', 'allocations.csv']) {
       expect((await holder.get(`/api/clubs/${club.id}/exports/${file}`)).status).toBe(403);
     }

@@ -1,7 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { sessionQueryOptions } from '@/features/auth/api/get-session';
 import { ClubSettingsPage } from '@/features/club-settings/components/club-settings-page';
-import { SettingsCoordinatorsOnly } from '@/features/club-settings/components/coordinators-only';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { FeeScheduleSection } from '@/features/fees/components/fee-schedule-section';
 import { useClubContext } from '../app-context';
 
@@ -9,7 +9,7 @@ import { useClubContext } from '../app-context';
 export function ClubSettingsRoute() {
   const { club } = useClubContext();
   const queryClient = useQueryClient();
-  if (!club.roles.includes('coordinator')) return <SettingsCoordinatorsOnly clubId={club.clubId} />;
+  if (!club.roles.includes('coordinator')) return <CoordinatorsOnly clubId={club.clubId} page="settings" />;
   return (
     <ClubSettingsPage
       clubId={club.clubId}

@@ -1,5 +1,5 @@
 import { useClubSettings } from '@/features/club-settings/api/get-club-settings';
-import { FeesCoordinatorsOnly } from '@/features/fees/components/coordinators-only';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { FeesPage } from '@/features/fees/components/fees-page';
 import { useClubContext } from '../app-context';
 
@@ -7,6 +7,6 @@ import { useClubContext } from '../app-context';
 export function FeesRoute() {
   const { club } = useClubContext();
   const settings = useClubSettings(club.clubId);
-  if (!club.roles.includes('coordinator')) return <FeesCoordinatorsOnly clubId={club.clubId} />;
+  if (!club.roles.includes('coordinator')) return <CoordinatorsOnly clubId={club.clubId} page="fees" />;
   return <FeesPage clubId={club.clubId} clubName={club.clubName} currency={settings.data?.currency ?? 'GBP'} />;
 }

@@ -1,5 +1,5 @@
 import { useParams } from 'react-router-dom';
-import { CoordinatorsOnly } from '@/features/sites/components/coordinators-only';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { SiteEditPage } from '@/features/sites/components/site-edit-page';
 import { SiteGate } from '@/features/sites/components/site-gate';
 import { useClubContext } from '../app-context';
@@ -8,7 +8,7 @@ import { useClubContext } from '../app-context';
 export function SiteEditRoute() {
   const { club } = useClubContext();
   const { siteId } = useParams();
-  if (!club.roles.includes('coordinator')) return <CoordinatorsOnly clubId={club.clubId} />;
+  if (!club.roles.includes('coordinator')) return <CoordinatorsOnly clubId={club.clubId} page="sites" />;
   return (
     <SiteGate clubId={club.clubId} siteId={Number(siteId)}>
       {(site) => <SiteEditPage clubId={club.clubId} clubName={club.clubName} site={site} />}

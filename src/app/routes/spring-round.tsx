@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
-import { NotAllowed } from '@/components/ui/not-allowed';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
 import { AllocationMap, type AllocationPerson } from '@/features/plots/components/map/allocation-map';
@@ -69,12 +69,7 @@ function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; s
 export function SpringRoundRoute() {
   const { club } = useClubContext();
   if (!club.roles.includes('coordinator')) {
-    return (
-      <NotAllowed
-        clubId={club.clubId}
-        message="The spring round (renewals, the waitlist and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail."
-      />
-    );
+    return <CoordinatorsOnly clubId={club.clubId} page="spring-round" />;
   }
   return <SpringRound />;
 }

@@ -1,5 +1,5 @@
 import { useSites } from '@/features/sites/api/get-sites';
-import { CoordinatorsOnly } from '@/features/waitlist/components/coordinators-only';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { WaitlistPage } from '@/features/waitlist/components/waitlist-page';
 import { paths } from '@/lib/paths';
 import { useClubContext } from '../app-context';
@@ -9,7 +9,7 @@ export function WaitlistRoute() {
   const { club } = useClubContext();
   const coordinator = club.roles.includes('coordinator');
   const sites = useSites(club.clubId);
-  if (!coordinator) return <CoordinatorsOnly clubId={club.clubId} />;
+  if (!coordinator) return <CoordinatorsOnly clubId={club.clubId} page="people" />;
   return (
     <WaitlistPage
       clubId={club.clubId}

@@ -59,16 +59,21 @@ export function rowColumn<Row extends { row: number }>(): ColumnDef<PreviewRow<R
   return { id: 'row', header: 'Row', accessorFn: (r) => r.row, enableGlobalFilter: false };
 }
 
-/** A "Name" column for files of people: the name, with the e-mail address under it. */
-export function nameEmailColumn<Row extends { name: string; email: string }>(): ColumnDef<PreviewRow<Row>> {
+/** A column showing a main line with a smaller second line under it (a name and its e-mail, say). */
+export function twoLineColumn<Row>(opts: {
+  id: string;
+  header: string;
+  main: (row: Row) => string;
+  sub: (row: Row) => string;
+}): ColumnDef<PreviewRow<Row>> {
   return {
-    id: 'name',
-    header: 'Name',
-    accessorFn: (r) => `${r.name} ${r.email}`,
+    id: opts.id,
+    header: opts.header,
+    accessorFn: (r) => `${opts.main(r)} ${opts.sub(r)}`,
     cell: ({ row }) => (
       <div>
-        <span className="block font-medium">{row.original.name || '(no name)'}</span>
-        <span className="block text-sm break-all text-stone">{row.original.email}</span>
+        <span className="block font-medium">{opts.main(row.original)}</span>
+        <span className="block text-sm break-all text-stone">{opts.sub(row.original)}</span>
       </div>
     ),
   };

@@ -7,7 +7,7 @@ import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { useClubSettings } from '../api/get-club-settings';
 import { ClubSettingsForm } from './club-settings-form';
-import { SettingsCoordinatorsOnly } from './coordinators-only';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 
 export interface ClubSettingsPageProps {
   clubId: number;
@@ -20,7 +20,7 @@ export interface ClubSettingsPageProps {
 /** Coordinators' settings page: the club's own rules, then whatever sections the app adds. */
 export function ClubSettingsPage({ clubId, clubName, onSaved, children }: ClubSettingsPageProps) {
   const settings = useClubSettings(clubId);
-  if (isApiError(settings.error, 403)) return <SettingsCoordinatorsOnly clubId={clubId} />;
+  if (isApiError(settings.error, 403)) return <CoordinatorsOnly clubId={clubId} page="settings" />;
   return (
     <>
       <title>{`Settings · ${clubName} · Tillwell`}</title>

@@ -10,7 +10,7 @@ import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { feesCsvUrl } from '../api/fees-csv';
 import { useFees } from '../api/get-fees';
-import { FeesCoordinatorsOnly } from './coordinators-only';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { FeeTotals } from './fee-totals';
 import { FeesTable } from './fees-table';
 import { PaymentPanel } from './payment-panel';
@@ -55,7 +55,7 @@ export function FeesPage({ clubId, clubName, currency }: FeesPageProps) {
     setParams(next, { replace: true });
   };
 
-  if (isApiError(fees.error, 403)) return <FeesCoordinatorsOnly clubId={clubId} />;
+  if (isApiError(fees.error, 403)) return <CoordinatorsOnly clubId={clubId} page="fees" />;
 
   const shownCurrency = fees.data?.items[0]?.currency ?? currency;
 

@@ -3,11 +3,11 @@ import { MembersImportResultSchema } from '@shared/schemas/member-imports';
 import { apiFetch } from '@/lib/api/client';
 import { membersKeys } from './keys';
 
-/** POST /api/clubs/:clubId/member-imports with kind members: checks (commit false) or saves every row or none. */
+/** POST /api/clubs/:clubId/member-imports: checks (commit false) or saves every row or none. */
 export function importMembers(clubId: number, csv: string, commit: boolean) {
   return apiFetch(`/api/clubs/${clubId}/member-imports`, {
     method: 'POST',
-    body: { kind: 'members', csv, commit },
+    body: { csv, commit },
     schema: MembersImportResultSchema,
   });
 }

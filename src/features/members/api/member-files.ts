@@ -8,7 +8,7 @@ export function allocationsCsvUrl(clubId: number, year?: number): string {
   return `/api/clubs/${clubId}/exports/allocations.csv${year ? `?year=${year}` : ''}`;
 }
 
-/** GET /api/clubs/:clubId/member-imports/template.csv?kind=members: a starting file with two examples. */
+/** GET /api/clubs/:clubId/member-imports/template.csv: a starting file with two examples. */
 export function membersTemplateUrl(clubId: number): string {
-  return `/api/clubs/${clubId}/member-imports/template.csv?kind=members`;
+  return `/api/clubs/${clubId}/member-imports/template.csv`;
 }

@@ -3,7 +3,7 @@ import type { ColumnDef } from '@tanstack/react-table';
 import { Download } from 'lucide-react';
 import { memberImportOutcomeLabels, type MembersImportResult } from '@shared/schemas/member-imports';
 import { buttonClasses } from '@/components/ui/button';
-import { checkColumn, CsvImport, nameEmailColumn, rowColumn, type PreviewRow } from '@/components/ui/csv-import';
+import { checkColumn, CsvImport, rowColumn, twoLineColumn, type PreviewRow } from '@/components/ui/csv-import';
 import { inputClasses } from '@/components/ui/field';
 import { useImportMembers } from '../api/import-members';
 import { allocationsCsvUrl, membersCsvUrl, membersTemplateUrl } from '../api/member-files';
@@ -13,7 +13,7 @@ type Row = MembersImportResult['rows'][number];
 
 const columns: ColumnDef<PreviewRow<Row>>[] = [
   rowColumn<Row>(),
-  nameEmailColumn<Row>(),
+  twoLineColumn<Row>({ id: 'name', header: 'Name', main: (r) => r.name || '(no name)', sub: (r) => r.email }),
   {
     id: 'roles',
     header: 'Roles',

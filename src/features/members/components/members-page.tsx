@@ -12,7 +12,7 @@ import { InviteForm } from './invite-form';
 import { InvitesTable } from './invites-table';
 import { MembersImport } from './members-import';
 import { MembersTable } from './members-table';
-import { MembersNotAllowed } from './not-allowed';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 
 function PartialNote({ shown, total, noun }: { shown: number; total: number; noun: string }) {
   if (total <= shown) return null;
@@ -32,7 +32,7 @@ export function MembersPage({ clubId, clubName }: { clubId: number; clubName: st
     return (
       <>
         <title>{`Not allowed · ${clubName} · Tillwell`}</title>
-        <MembersNotAllowed clubId={clubId} />
+        <CoordinatorsOnly clubId={clubId} page="members" />
       </>
     );
   }

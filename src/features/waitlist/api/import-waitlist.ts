@@ -3,11 +3,11 @@ import { WaitlistImportResultSchema } from '@shared/schemas/member-imports';
 import { apiFetch } from '@/lib/api/client';
 import { waitlistKeys } from './keys';
 
-/** POST /api/clubs/:clubId/member-imports with kind waitlist: checks (commit false) or saves every row or none. */
+/** POST /api/clubs/:clubId/waitlist-imports: checks (commit false) or saves every row or none. */
 export function importWaitlist(clubId: number, csv: string, commit: boolean) {
-  return apiFetch(`/api/clubs/${clubId}/member-imports`, {
+  return apiFetch(`/api/clubs/${clubId}/waitlist-imports`, {
     method: 'POST',
-    body: { kind: 'waitlist', csv, commit },
+    body: { csv, commit },
     schema: WaitlistImportResultSchema,
   });
 }

@@ -3,7 +3,7 @@ export function waitlistCsvUrl(clubId: number): string {
   return `/api/clubs/${clubId}/exports/waitlist.csv`;
 }
 
-/** GET /api/clubs/:clubId/member-imports/template.csv?kind=waitlist: a starting file with two examples. */
+/** GET /api/clubs/:clubId/waitlist-imports/template.csv: a starting file with two examples. */
 export function waitlistTemplateUrl(clubId: number): string {
-  return `/api/clubs/${clubId}/member-imports/template.csv?kind=waitlist`;
+  return `/api/clubs/${clubId}/waitlist-imports/template.csv`;
 }

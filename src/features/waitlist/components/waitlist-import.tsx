@@ -1,6 +1,6 @@
 import type { ColumnDef } from '@tanstack/react-table';
 import { waitlistCsvColumns, type WaitlistImportResult } from '@shared/schemas/member-imports';
-import { checkColumn, CsvImport, nameEmailColumn, rowColumn, type PreviewRow } from '@/components/ui/csv-import';
+import { checkColumn, CsvImport, rowColumn, twoLineColumn, type PreviewRow } from '@/components/ui/csv-import';
 import { LocalDate } from '@/lib/time-zone';
 import { useImportWaitlist } from '../api/import-waitlist';
 import { waitlistTemplateUrl } from '../api/waitlist-files';
@@ -11,7 +11,7 @@ type Row = WaitlistImportResult['rows'][number];
 
 const columns: ColumnDef<PreviewRow<Row>>[] = [
   rowColumn<Row>(),
-  nameEmailColumn<Row>(),
+  twoLineColumn<Row>({ id: 'name', header: 'Name', main: (r) => r.name || '(no name)', sub: (r) => r.email }),
   {
     id: 'applied',
     header: 'Applied',

@@ -13,7 +13,7 @@ import { isApiError } from '@/lib/api/client';
 import { useWaitlist } from '../api/get-waitlist';
 import type { WaitlistFilters } from '../api/keys';
 import { waitlistCsvUrl } from '../api/waitlist-files';
-import { CoordinatorsOnly } from './coordinators-only';
+import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { HistoryDialog } from './history-dialog';
 import { MoveDialog } from './move-dialog';
 import { RemoveDialog } from './remove-dialog';
@@ -58,7 +58,7 @@ export function WaitlistPage({ clubId, clubName, applyUrl, sites }: WaitlistPage
     return (
       <>
         <title>{`Not allowed · ${clubName} · Tillwell`}</title>
-        <CoordinatorsOnly clubId={clubId} />
+        <CoordinatorsOnly clubId={clubId} page="people" />
       </>
     );
   }

@@ -1,0 +1,24 @@
+import { ShieldBan } from 'lucide-react';
+import { DeadEnd } from '@/components/ui/dead-end';
+
+/** Why each coordinators' page is closed to others: what only coordinators do there. */
+const reasons = {
+  fees: "Only the club's coordinators see everyone's fees and record payments. Your own fees are on the club home page.",
+  sites: "Only the club's coordinators add and change sites. If a site's details look wrong, tell one of them.",
+  people: "This page holds people's contact details, so only the club's coordinators see it.",
+  settings: "Only the club's coordinators change its name, rules and fees. If something needs changing, tell one of them.",
+  members: "Only the club's coordinators can see the member list and send invites. If something here needs changing, ask one of them.",
+  'spring-round':
+    "The spring round (renewals, the waitlist and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail.",
+} as const;
+
+export type CoordinatorsPage = keyof typeof reasons;
+
+/** Shown instead of a coordinators' page to someone in the club who is not a coordinator (or when the server answers 403). */
+export function CoordinatorsOnly({ clubId, page }: { clubId: number; page: CoordinatorsPage }) {
+  return (
+    <DeadEnd clubId={clubId} icon={ShieldBan} title="This page is for coordinators">
+      <p>{reasons[page]}</p>
+    </DeadEnd>
+  );
+}
