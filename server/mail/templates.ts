@@ -10,16 +10,19 @@ interface Layout {
   greeting: string;
   paragraphs: string[];
   action?: { label: string; url: string };
+  /** Several links side by side (an offer's accept and decline); shown after `action`. */
+  actions?: { label: string; url: string }[];
   why: string;
 }
 
 /** Renders one e-mail as plain text and simple HTML from the same parts, with a footer saying why it was sent. */
 export function renderMail(m: Layout): OutgoingMail {
+  const actions = [...(m.action ? [m.action] : []), ...(m.actions ?? [])];
   const text = [
     m.greeting,
     '',
     ...m.paragraphs.flatMap((p) => [p, '']),
-    ...(m.action ? [`${m.action.label}: ${m.action.url}`, ''] : []),
+    ...actions.flatMap((a) => [`${a.label}: ${a.url}`, '']),
     '-- ',
     `Tillwell. ${m.why}`,
   ].join('\n');
@@ -28,12 +31,12 @@ export function renderMail(m: Layout): OutgoingMail {
 <p style="font-size:18px;font-weight:600;color:#2f6b3b;margin:0 0 16px">Tillwell</p>
 <p>${escape(m.greeting)}</p>
 ${m.paragraphs.map((p) => `<p style="line-height:1.5">${escape(p)}</p>`).join('\n')}
-${
-  m.action
-    ? `<p style="margin:24px 0"><a href="${escape(m.action.url)}" style="background:#2f6b3b;color:#ffffff;padding:12px 20px;border-radius:8px;text-decoration:none;font-weight:600">${escape(m.action.label)}</a></p>
-<p style="font-size:14px;color:#6f695f">Or open this address: <a href="${escape(m.action.url)}" style="color:#2e6b8c">${escape(m.action.url)}</a></p>`
-    : ''
-}
+${actions
+  .map(
+    (a) => `<p style="margin:24px 0 8px"><a href="${escape(a.url)}" style="background:#2f6b3b;color:#ffffff;padding:12px 20px;border-radius:8px;text-decoration:none;font-weight:600">${escape(a.label)}</a></p>
+<p style="font-size:14px;color:#6f695f">Or open this address: <a href="${escape(a.url)}" style="color:#2e6b8c">${escape(a.url)}</a></p>`,
+  )
+  .join('\n')}
 <hr style="border:none;border-top:1px solid #e4dccb;margin:24px 0">
 <p style="font-size:13px;color:#6f695f">${escape(m.why)}</p>
 </div></body></html>`;
@@ -105,6 +108,7 @@ export function offerMail(p: {
   siteName: string;
   size: string;
   fee: string;
+  /** The offer's link; the e-mail adds `answer=accept` or `answer=decline` to it. */
   url: string;
   deadline: Date;
   timeZone: string;
@@ -116,9 +120,12 @@ export function offerMail(p: {
     paragraphs: [
       `Good news: plot ${p.plotLabel} at ${p.siteName} (${p.size}) is free for the ${p.year} season and you are next on the waitlist.`,
       `The season's fee would be ${p.fee}.`,
-      `Follow the link to accept or decline. The offer stays open until ${formatDateTime(p.deadline, p.timeZone)}; after that the plot goes to the next person.`,
+      `Choose a link to accept or decline; each opens a page where you confirm. The offer stays open until ${formatDateTime(p.deadline, p.timeZone)}; after that the plot goes to the next person.`,
     ],
-    action: { label: 'Accept or decline the plot', url: p.url },
+    actions: [
+      { label: 'Accept the plot', url: `${p.url}&answer=accept` },
+      { label: 'Decline the plot', url: `${p.url}&answer=decline` },
+    ],
     why: `You got this because you are on the waitlist of ${p.clubName}.`,
   });
 }

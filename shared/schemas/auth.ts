@@ -49,6 +49,12 @@ export const PasswordResetBodySchema = z.strictObject({
 });
 export type PasswordResetBody = z.infer<typeof PasswordResetBodySchema>;
 
+/** `GET /api/password-resets/check?token=…`: whether a link still works, without using it up. */
+export const PasswordResetCheckQuerySchema = PasswordResetBodySchema.pick({ token: true });
+/** A working link, and whether it sets the account's first password (none yet) or replaces one. */
+export const PasswordResetCheckSchema = z.object({ firstPassword: z.boolean() });
+export type PasswordResetCheck = z.infer<typeof PasswordResetCheckSchema>;
+
 export const InviteCreateBodySchema = z.strictObject({
   email: EmailSchema,
   name: textSchema({ min: 1, minMessage: 'Enter a name', max: 120 }),
