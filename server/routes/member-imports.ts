@@ -20,7 +20,7 @@ function sendCsv(res: Response, name: string, csv: string) {
   res.send(BOM + csv);
 }
 
-/** Members and waitlist CSV imports and their templates (coordinators), mounted at /api/clubs/:clubId/member-imports. */
+/** Members and waiting list CSV imports and their templates (coordinators), mounted at /api/clubs/:clubId/member-imports. */
 export function memberImportsRouter({ db, mailer, config }: Deps): Router {
   const router = Router({ mergeParams: true });
   router.use(requireClubRole(db, 'coordinator'));
@@ -48,7 +48,7 @@ export function memberImportsRouter({ db, mailer, config }: Deps): Router {
   return router;
 }
 
-/** The club's members, waitlist and allocations as CSV downloads (coordinators), mounted at /api/clubs/:clubId/exports. */
+/** The club's members, waiting list and allocations as CSV downloads (coordinators), mounted at /api/clubs/:clubId/exports. */
 export function clubExportsRouter({ db }: Deps): Router {
   const router = Router({ mergeParams: true });
   router.use(requireClubRole(db, 'coordinator'));

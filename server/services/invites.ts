@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import bcrypt from 'bcryptjs';
-import { roleLabels, type Invite, type InviteCreateBody, type InvitePreview, type Role } from '@shared/schemas/auth';
+import { type Invite, type InviteCreateBody, type InvitePreview, type Role } from '@shared/schemas/auth';
 import { AppError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { inviteMail } from '../mail/templates';
@@ -110,7 +110,7 @@ export async function recordInvite(trx: Knex.Transaction, p: InviteToIssue): Pro
     to: p.email,
     name: p.name,
     clubName: p.clubName,
-    roles: p.roles.map((r) => roleLabels[r]),
+    roles: p.roles,
     url: `${p.publicUrl}/invite?token=${encodeURIComponent(token)}`,
     expiresAt,
     timeZone: await clubTimeZone(trx, p.clubId),

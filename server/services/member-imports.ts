@@ -264,7 +264,7 @@ function parseWaitlistCsv(csv: string, sites: Array<{ id: number; name: string }
   const table = readCsvTable<WaitlistColumn>(csv, {
     columns: waitlistCsvColumns,
     required: ['name', 'email'],
-    noun: 'waitlist',
+    noun: 'waiting list',
     maxRows: MAX_MEMBER_IMPORT_ROWS,
     aliases: { ...emailAliases, telephone: 'phone', phone_number: 'phone', site: 'preferred_site', size: 'preferred_size' },
   });
@@ -356,11 +356,11 @@ async function liveWaitlistClashes(db: Db, clubId: number, rows: ParsedEntry[]):
   }
   return rows
     .filter((r) => live.has(r.email))
-    .map((r) => ({ row: r.row, field: 'email', message: `${r.email} is already on this club's waitlist` }));
+    .map((r) => ({ row: r.row, field: 'email', message: `${r.email} is already on this club's waiting list` }));
 }
 
 /**
- * Checks a waitlist CSV and, with commit, adds every row or none. applied_on keeps people's original
+ * Checks a waiting list CSV and, with commit, adds every row or none. applied_on keeps people's original
  * place: the queue orders by it, and rows with the same date (or none) keep the file's order.
  */
 export async function importWaitlist(
@@ -411,7 +411,7 @@ export function membersTemplateCsv(): string {
   ]);
 }
 
-/** A starting waitlist file: the header and two example applications, oldest first. */
+/** A starting waiting list file: the header and two example applications, oldest first. */
 export function waitlistTemplateCsv(): string {
   return csvText(waitlistCsvColumns, [
     ['Nell Example', 'nell@example.org', '07700 900123', 'medium', 'no', 'no', '', '2024-02-11', 'Happy to share'],

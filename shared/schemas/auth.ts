@@ -11,6 +11,11 @@ export const roleLabels: Record<Role, string> = {
   volunteer: 'Volunteer',
 };
 
+/** Roles as words in a sentence, in the order of `roles`: "plot holder, volunteer" ("coordinator" for one). */
+export function roleWords(held: readonly Role[]): string {
+  return roles.filter((r) => held.includes(r)).map((r) => roleLabels[r].toLowerCase()).join(', ');
+}
+
 export const SignInBodySchema = z.strictObject({
   email: EmailSchema,
   password: z.string().min(1, 'Enter your password').max(200),

@@ -9,7 +9,7 @@ export type MemberImportKind = z.infer<typeof MemberImportKindSchema>;
 
 /** Columns of a members file, in the order exports and the template use. */
 export const memberCsvColumns = ['name', 'email', 'roles', 'send_invite'] as const;
-/** Columns of a waitlist file, in the order exports and the template use. */
+/** Columns of a waiting list file, in the order exports and the template use. */
 export const waitlistCsvColumns = [
   'name',
   'email',
@@ -24,7 +24,7 @@ export const waitlistCsvColumns = [
 /** Columns of the allocations export. */
 export const allocationCsvColumns = ['year', 'site', 'plot', 'holder_name', 'holder_email', 'status'] as const;
 
-/** The most rows one member or waitlist file may hold. */
+/** The most rows one member or waiting list file may hold. */
 export const MAX_MEMBER_IMPORT_ROWS = 2000;
 
 export const MemberImportBodySchema = z.strictObject({
@@ -66,7 +66,7 @@ export const ImportedMemberSchema = z.object({
 });
 export type ImportedMember = z.infer<typeof ImportedMemberSchema>;
 
-/** A waitlist row as the import reads it. */
+/** A waiting list row as the import reads it. */
 export const ImportedWaitlistEntrySchema = z.object({
   name: z.string(),
   email: z.string(),

@@ -31,7 +31,7 @@ function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; s
   const withdraw = useWithdrawOffer(() => waiting.refetch());
   if (states.isPending || waiting.isPending) return <LoadingState label="Loading the season…" />;
   if (states.isError) return <ErrorState title="The season could not be loaded" message={states.error.message} onRetry={() => void states.refetch()} />;
-  if (waiting.isError) return <ErrorState title="The waitlist could not be loaded" message={waiting.error.message} onRetry={() => void waiting.refetch()} />;
+  if (waiting.isError) return <ErrorState title="The waiting list could not be loaded" message={waiting.error.message} onRetry={() => void waiting.refetch()} />;
   const people: AllocationPerson[] = waiting.data.items.map((w) => ({
     id: w.id,
     name: w.name,
@@ -69,7 +69,7 @@ export function SpringRoundRoute() {
     return (
       <NotAllowed
         clubId={club.clubId}
-        message="The spring round (renewals, the waitlist and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail."
+        message="The spring round (renewals, the waiting list and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail."
       />
     );
   }
@@ -96,7 +96,7 @@ function SpringRound() {
       <PageHeader
         eyebrow={club.clubName}
         title={current ? `Spring round ${current.year}` : 'Spring round'}
-        description="Renew last season's plot holders, then offer the free plots to the waitlist in fair order."
+        description="Renew last season's plot holders, then offer the free plots to the waiting list in fair order."
       />
       {current ? (
         <>

@@ -3,7 +3,7 @@ import { WaitlistImportResultSchema } from '@shared/schemas/member-imports';
 import { apiFetch } from '@/lib/api/client';
 import { waitlistKeys } from './keys';
 
-/** POST /api/clubs/:clubId/member-imports with kind waitlist: checks (commit false) or saves every row or none. */
+/** POST /api/clubs/:clubId/member-imports with kind waiting list: checks (commit false) or saves every row or none. */
 export function importWaitlist(clubId: number, csv: string, commit: boolean) {
   return apiFetch(`/api/clubs/${clubId}/member-imports`, {
     method: 'POST',
@@ -12,7 +12,7 @@ export function importWaitlist(clubId: number, csv: string, commit: boolean) {
   });
 }
 
-/** Checks or imports a waitlist CSV; a committed import refreshes the waitlist. */
+/** Checks or imports a waiting list CSV; a committed import refreshes the waiting list. */
 export function useImportWaitlist(clubId: number) {
   const queryClient = useQueryClient();
   return useMutation({
