@@ -3,7 +3,8 @@ import path from 'node:path';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/knex';
 import { startServer, type RunningServer } from '../server/start-server';
-import { DEMO_PASSWORD, demoPeople } from '../seeds/01-demo-club';
+import { roleWords } from '@shared/schemas/auth';
+import { DEMO_PASSWORD, demoSignIns } from '../seeds/01-demo-club';
 import { root, startLocalServices, type LocalServices } from './lib/local-env';
 
 // `npm start` (built client) and `npm run dev` (Vite with hot reload): local Postgres,
@@ -70,7 +71,7 @@ Tillwell is running.
   App:         ${appUrl}
   Fake inbox:  ${services.mail?.url ?? '(not started: SMTP_URL points elsewhere)'}
   Demo sign-ins (password for all: ${DEMO_PASSWORD}):
-${demoPeople.map((p) => `    ${p.email.padEnd(22)} ${p.roles.join(', ')}`).join('\n')}
+${demoSignIns().map((p) => `    ${p.email.padEnd(22)} ${roleWords(p.roles)}`).join('\n')}
 Press Ctrl-C to stop everything.`);
 } catch (err) {
   console.error(err instanceof Error ? err.message : err);

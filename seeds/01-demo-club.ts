@@ -17,6 +17,19 @@ export const demoPeople: Array<{ name: string; email: string; roles: Role[]; clu
   { name: 'Odile Nkem', email: 'odile@example.org', roles: ['coordinator'], club: 'cinder' },
 ];
 
+/** The coordinator also volunteers at the second club, so the demo shows the club switcher. */
+const extraMemberships: Array<{ email: string; club: 'mossgate' | 'cinder'; role: Role }> = [
+  { email: 'maren@example.org', club: 'cinder', role: 'volunteer' },
+];
+
+/** Each demo person with every role they hold in any club, for the start-up summary. */
+export function demoSignIns(): Array<{ email: string; roles: Role[] }> {
+  return demoPeople.map((p) => ({
+    email: p.email,
+    roles: [...p.roles, ...extraMemberships.filter((m) => m.email === p.email).map((m) => m.role)],
+  }));
+}
+
 export async function seed(knex: Knex): Promise<void> {
   await knex.raw('truncate table memberships, invites, password_resets, users, clubs restart identity cascade');
   const mossgate = await buildClub(knex, { name: 'Mossgate Community Garden Club', slug: 'mossgate' });
@@ -26,7 +39,8 @@ export async function seed(knex: Knex): Promise<void> {
     const user = await buildUser(knex, { name: p.name, email: p.email, password: DEMO_PASSWORD });
     await knex('memberships').insert(p.roles.map((role) => ({ club_id: clubIds[p.club], user_id: user.id, role })));
   }
-  // The coordinator also volunteers at the second club, so the demo shows the club switcher.
-  const maren = await knex('users').where({ email: 'maren@example.org' }).first('id');
-  await knex('memberships').insert({ club_id: cinder.id, user_id: maren.id, role: 'volunteer' });
+  for (const m of extraMemberships) {
+    const user = await knex('users').where({ email: m.email }).first('id');
+    await knex('memberships').insert({ club_id: clubIds[m.club], user_id: user.id, role: m.role });
+  }
 }

@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 
 // The demo club's last season (2026) so the spring round of 2027 can be run in the demo:
 // five holders at Mossgate Lane (two still owe part of their fee), a fee schedule, and a
-// waitlist of fifteen invented people with varied needs. Everything here is made up.
+// waiting list of fifteen invented people with varied needs. Everything here is made up.
 
 const DAY = 24 * 3600 * 1000;
 const NOW = new Date('2026-11-20T10:00:00Z'); // fixed, so the seed is the same every run

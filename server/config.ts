@@ -57,7 +57,7 @@ export interface Config {
   signInMaxFailuresPerAddress: number;
   /** How long both counts run and a lock lasts. */
   signInLockMinutes: number;
-  /** Public waitlist applications per client address per hour. */
+  /** Public waiting list applications per client address per hour. */
   applyRateLimit: number;
   trustProxy: boolean;
   logLevel: Env['LOG_LEVEL'];

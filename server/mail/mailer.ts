@@ -7,6 +7,8 @@ export interface OutgoingMail {
   html: string;
   /** Extra headers, kept with the message in the outbox. */
   headers?: Record<string, string>;
+  /** The sender's display name (the address stays the configured one), e.g. a coordinator's name and club. */
+  fromName?: string | null;
 }
 
 export interface Mailer {
@@ -30,8 +32,10 @@ export function createMailer(smtpUrl: string, from: string): Mailer {
     socketTimeout: 60_000,
   });
   return {
-    async send(mail) {
-      await transport.sendMail({ from, ...mail });
+    async send({ fromName, ...mail }) {
+      // Only the display name changes: the address stays ours, so the mail still passes the domain's checks.
+      const address = /<([^>]+)>\s*$/.exec(from)?.[1] ?? from;
+      await transport.sendMail({ from: fromName ? { name: fromName, address } : from, ...mail });
     },
     close() {
       transport.close();

@@ -18,6 +18,8 @@ export function clubNewsMail(p: {
   to: string;
   name: string;
   clubName: string;
+  /** The coordinator who sends it; the message is signed with their name. */
+  senderName: string;
   subject: string;
   body: string;
   /** Why this person is in the audience, e.g. "you hold a plot at Mossgate in 2027". */
@@ -28,7 +30,7 @@ export function clubNewsMail(p: {
     to: p.to,
     subject: p.subject,
     greeting: `Hello ${p.name},`,
-    paragraphs: [...paragraphsOf(p.body), `From the coordinator of ${p.clubName}.`],
+    paragraphs: [...paragraphsOf(p.body), `${p.senderName}, coordinator of ${p.clubName}`],
     why: `You got this because ${p.because}. It is club news, which you can turn off: change your e-mail choices at ${p.preferencesUrl}. Messages about your own plot (offers, renewals, receipts) are always sent.`,
   });
   // renderMail writes the footer as text; make the address of the e-mail choices a link in the HTML part.

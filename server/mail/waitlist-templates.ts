@@ -3,7 +3,7 @@ import type { OutgoingMail } from './mailer';
 
 const sizeWords = { small: 'a small plot', medium: 'a medium plot', large: 'a large plot', any: 'any size of plot' } as const;
 
-/** The confirmation an applicant gets: their place on the waitlist and what happens next. */
+/** The confirmation an applicant gets: their place on the waiting list and what happens next. */
 export function applicationReceivedMail(p: {
   to: string;
   name: string;
@@ -17,13 +17,13 @@ export function applicationReceivedMail(p: {
   const wishes = [sizeWords[p.preferredSize], ...p.needs, ...(p.siteName ? [`at ${p.siteName}`] : [])].join(', ');
   return renderMail({
     to: p.to,
-    subject: `You're on the ${p.clubName} waitlist: number ${p.position}`,
+    subject: `You're on the ${p.clubName} waiting list: number ${p.position}`,
     greeting: `Hello ${p.name},`,
     paragraphs: [
-      `Thank you for applying for a plot at ${p.clubName}. You are number ${p.position} on the waitlist. We noted that you would like ${wishes}.`,
-      'What happens next: each spring the plot holders of last season renew first. Plots that are free after that are offered to the waitlist in order. When a plot comes free for you, you get an e-mail with a link to accept or decline it.',
+      `Thank you for applying for a plot at ${p.clubName}. You are number ${p.position} on the waiting list. We noted that you would like ${wishes}.`,
+      'What happens next: each spring the plot holders of last season renew first. Plots that are free after that are offered to the waiting list in order. When a plot comes free for you, you get an e-mail with a link to accept or decline it.',
       `You have ${p.offerDays} ${p.offerDays === 1 ? 'day' : 'days'} to answer an offer, so keep an eye on this address. Your place can change a little if the coordinator records a reason, for example a plot that suits a need you mentioned.`,
-      'To change your details or leave the waitlist, reply to the club coordinator.',
+      'To change your details or leave the waiting list, reply to the club coordinator.',
     ],
     why: `You got this because this address was entered on the plot application form of ${p.clubName} on Tillwell. If it was not you, ignore this e-mail or ask the club to remove it.`,
   });
@@ -44,15 +44,15 @@ export function alreadyOnWaitlistMail(p: {
     to: p.to,
     subject:
       p.position === null
-        ? `You're already on the ${p.clubName} waitlist, with a plot on offer`
-        : `You're already on the ${p.clubName} waitlist: number ${p.position}`,
+        ? `You're already on the ${p.clubName} waiting list, with a plot on offer`
+        : `You're already on the ${p.clubName} waiting list: number ${p.position}`,
     greeting: `Hello ${p.name},`,
     paragraphs: [
-      `This address was entered again on the plot application form of ${p.clubName}. It was already on the waitlist, so the new form was not kept: your earlier application and its date stand.`,
+      `This address was entered again on the plot application form of ${p.clubName}. It was already on the waiting list, so the new form was not kept: your earlier application and its date stand.`,
       p.position === null
         ? 'A plot is on offer to you at the moment. The e-mail with the offer has the link to accept or decline it.'
-        : `You are number ${p.position} on the waitlist. When a plot comes free for you, you get an e-mail with a link to accept or decline it.`,
-      'To change your details or leave the waitlist, reply to the club coordinator.',
+        : `You are number ${p.position} on the waiting list. When a plot comes free for you, you get an e-mail with a link to accept or decline it.`,
+      'To change your details or leave the waiting list, reply to the club coordinator.',
     ],
     why: `You got this because this address was entered on the plot application form of ${p.clubName} on Tillwell. If it was not you, ignore this e-mail or ask the club to remove it.`,
   });

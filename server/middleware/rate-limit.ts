@@ -17,7 +17,7 @@ export function authRateLimit(max: number) {
   return clientRateLimit({ windowMs: 15 * 60 * 1000, limit: max, message: 'Too many attempts. Wait a few minutes and try again.' });
 }
 
-/** Limits a public form (the waitlist application) to `max` submissions per client address per hour. */
+/** Limits a public form (the waiting list application) to `max` submissions per client address per hour. */
 export function publicFormRateLimit(max: number) {
   return clientRateLimit({
     windowMs: 60 * 60 * 1000,

@@ -41,7 +41,7 @@ export function applyRouter({ db, mailer, config }: Deps): Router {
   return router;
 }
 
-/** A club's waitlist (coordinators), mounted at /api/clubs/:clubId/waitlist. */
+/** A club's waiting list (coordinators), mounted at /api/clubs/:clubId/waitlist. */
 export function clubWaitlistRouter({ db }: Deps): Router {
   const router = Router({ mergeParams: true });
 
@@ -53,7 +53,7 @@ export function clubWaitlistRouter({ db }: Deps): Router {
   return router;
 }
 
-/** Changing one person's place on the waitlist (coordinators of their club), mounted at /api/applications. */
+/** Changing one person's place on the waiting list (coordinators of their club), mounted at /api/applications. */
 export function applicationsRouter({ db }: Deps): Router {
   const router = Router();
   const coordinator = requireRoleVia(db, 'applicationId', clubOfApplication, 'The application', 'coordinator');

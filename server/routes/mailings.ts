@@ -1,10 +1,10 @@
 import { Router } from 'express';
-import { MailingCreateBodySchema, MailPreferencesBodySchema } from '@shared/schemas/mailings';
+import { MailingAudienceQuerySchema, MailingCreateBodySchema, MailPreferencesBodySchema } from '@shared/schemas/mailings';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole } from '../middleware/auth';
 import { idempotent } from '../middleware/idempotency';
-import { getMailPreferences, listMailings, sendMailing, setMailPreferences } from '../services/mailings';
+import { countAudience, getMailPreferences, listMailings, sendMailing, setMailPreferences } from '../services/mailings';
 
 /** Messages from the coordinator to the club (coordinators), mounted at /api/clubs/:clubId/mailings. */
 export function mailingsRouter({ db, mailer, config }: Deps): Router {
@@ -13,6 +13,10 @@ export function mailingsRouter({ db, mailer, config }: Deps): Router {
 
   router.get('/', async (req, res) => {
     res.json(await listMailings(db, req.clubId!));
+  });
+
+  router.get('/audience', async (req, res) => {
+    res.json(await countAudience(db, req.clubId!, parseInput(MailingAudienceQuerySchema, req.query)));
   });
 
   router.post('/', idempotent(db), async (req, res) => {

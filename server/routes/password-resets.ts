@@ -1,9 +1,9 @@
 import { Router } from 'express';
-import { PasswordResetBodySchema, PasswordResetRequestBodySchema } from '@shared/schemas/auth';
+import { PasswordResetBodySchema, PasswordResetCheckQuerySchema, PasswordResetRequestBodySchema } from '@shared/schemas/auth';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { authRateLimit } from '../middleware/rate-limit';
-import { completePasswordReset, requestPasswordReset } from '../services/password-resets';
+import { checkPasswordReset, completePasswordReset, requestPasswordReset } from '../services/password-resets';
 
 /** Asking for a reset link and using it. */
 export function passwordResetsRouter({ db, mailer, config }: Deps): Router {
@@ -17,6 +17,11 @@ export function passwordResetsRouter({ db, mailer, config }: Deps): Router {
       req.log.error({ err }, 'password reset e-mail failed'),
     );
     res.status(202).json({ message: 'If that address has an account, a reset link is on its way.' });
+  });
+
+  router.get('/check', limit, async (req, res) => {
+    const { token } = parseInput(PasswordResetCheckQuerySchema, req.query);
+    res.json(await checkPasswordReset(db, { token }));
   });
 
   router.post('/complete', limit, async (req, res) => {

@@ -61,7 +61,7 @@ function toEntry(r: EntryRow, now: Date): WaitlistEntry {
   };
 }
 
-/** The club a waitlist application belongs to, or null. */
+/** The club a waiting list application belongs to, or null. */
 export async function clubOfApplication(db: Db, applicationId: number): Promise<number | null> {
   const row = await db('applications').where({ id: applicationId }).first('club_id');
   return row ? row.club_id : null;
@@ -99,7 +99,7 @@ const isLiveEmailClash = (err: unknown) =>
   (err as { constraint?: string }).constraint === 'applications_live_email_unique';
 
 /**
- * Puts someone on a club's waitlist from the public form and e-mails them their place. A filled-in
+ * Puts someone on a club's waiting list from the public form and e-mails them their place. A filled-in
  * honeypot gets the same kind of answer but nothing is stored or sent, so a bot learns nothing.
  */
 export async function submitApplication(
@@ -111,7 +111,7 @@ export async function submitApplication(
   const club = await clubBySlug(db, opts.slug);
   const receipt = (position: number) => ({
     position,
-    message: `You are number ${position} on the waitlist of ${club.name}. We have e-mailed ${body.email} a confirmation with what happens next.`,
+    message: `You are number ${position} on the waiting list of ${club.name}. We have e-mailed ${body.email} a confirmation with what happens next.`,
   });
   if (body.website.trim() !== '') return receipt((await waitingCount(db, club.id)) + 1);
 
@@ -205,7 +205,7 @@ function entries(db: Db, clubId: number) {
     .select('a.*', 'q.position', 's.name as preferred_site_name');
 }
 
-/** A club's waitlist in queue order; positions count only the people waiting, whatever the filter shows. */
+/** A club's waiting list in queue order; positions count only the people waiting, whatever the filter shows. */
 export async function listWaitlist(db: Knex, clubId: number, query: WaitlistQuery, now = new Date()) {
   await lapseOverdueOffersOfClub(db, clubId, now);
   const q = entries(db, clubId).orderBy('a.queue_at').orderBy('a.id');
@@ -217,7 +217,7 @@ export async function listWaitlist(db: Knex, clubId: number, query: WaitlistQuer
   return { items: rows.map((r) => toEntry(r, now)), page: 1, total: rows.length };
 }
 
-/** One application as the waitlist shows it. */
+/** One application as the waiting list shows it. */
 export async function getWaitlistEntry(db: Db, applicationId: number, now = new Date()): Promise<WaitlistEntry> {
   const clubId = await clubOfApplication(db, applicationId);
   if (!clubId) throw notFound('The application');

@@ -19,7 +19,7 @@ export async function membersCsv(db: Db, clubId: number): Promise<string> {
   );
 }
 
-/** The live waitlist (waiting and offered) in queue order, in the waitlist import's columns. */
+/** The live waiting list (waiting and offered) in queue order, in the waiting list import's columns. */
 export async function waitlistCsv(db: Db, clubId: number): Promise<string> {
   const rows = await db('applications as a')
     .leftJoin('sites as s', 's.id', 'a.preferred_site_id')

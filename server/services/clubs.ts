@@ -13,9 +13,12 @@ interface ClubRow {
   declined_offer_policy: ClubSettings['declinedOfferPolicy'];
   allow_multiple_offers: boolean;
   time_zone: string;
+  contact_email: string | null;
+  fee_note: string | null;
+  typical_wait: string | null;
 }
 
-function toClubSettings(r: ClubRow): ClubSettings {
+function toClubSettings(r: ClubRow, currencyLocked: boolean): ClubSettings {
   return {
     id: r.id,
     name: r.name,
@@ -26,10 +29,17 @@ function toClubSettings(r: ClubRow): ClubSettings {
     declinedOfferPolicy: r.declined_offer_policy,
     allowMultipleOffers: r.allow_multiple_offers,
     timeZone: r.time_zone,
+    contactEmail: r.contact_email,
+    feeNote: r.fee_note,
+    typicalWait: r.typical_wait,
+    currencyLocked,
   };
 }
 
-const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers', 'time_zone'];
+const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers', 'time_zone',
+  'contact_email', 'fee_note', 'typical_wait'];
+
+const hasFees = async (db: Db, clubId: number) => Boolean(await db('fees').where({ club_id: clubId }).first('id'));
 
 /** The club's time zone (IANA name), in which its people see every date and time. */
 export async function clubTimeZone(db: Db, clubId: number): Promise<string> {
@@ -41,7 +51,7 @@ export async function clubTimeZone(db: Db, clubId: number): Promise<string> {
 export async function getClubSettings(db: Db, clubId: number): Promise<ClubSettings> {
   const row: ClubRow | undefined = await db('clubs').where({ id: clubId }).first(columns);
   if (!row) throw notFound('The club');
-  return toClubSettings(row);
+  return toClubSettings(row, await hasFees(db, clubId));
 }
 
 /**
@@ -53,8 +63,7 @@ export async function updateClubSettings(db: Knex, clubId: number, body: ClubSet
     const current: ClubRow | undefined = await trx('clubs').where({ id: clubId }).forUpdate().first(columns);
     if (!current) throw notFound('The club');
     if (body.currency !== undefined && body.currency !== current.currency) {
-      const fee = await trx('fees').where({ club_id: clubId }).first('id');
-      if (fee) {
+      if (await hasFees(trx, clubId)) {
         throw new AppError('conflict', `Fees are already recorded in ${current.currency}, so the currency cannot change.`, {
           currency: `Fees are already recorded in ${current.currency}`,
         });
@@ -68,6 +77,10 @@ export async function updateClubSettings(db: Knex, clubId: number, body: ClubSet
       declined_offer_policy: body.declinedOfferPolicy,
       allow_multiple_offers: body.allowMultipleOffers,
       time_zone: body.timeZone,
+      contact_email: body.contactEmail,
+      // An emptied note is no note.
+      fee_note: body.feeNote === undefined ? undefined : body.feeNote || null,
+      typical_wait: body.typicalWait === undefined ? undefined : body.typicalWait || null,
     };
     const set = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined));
     if (Object.keys(set).length > 0) {

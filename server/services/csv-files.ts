@@ -3,7 +3,7 @@ import { EmailSchema } from '@shared/schemas/common';
 import type { ImportProblem } from '@shared/schemas/member-imports';
 import { AppError } from '../errors';
 
-// One set of file rules for every import (plots, members, waitlist): the header is line 1 and names
+// One set of file rules for every import (plots, members, waiting list): the header is line 1 and names
 // ignore case (spaces and dashes read as underscores); comma, semicolon or tab separate cells;
 // problems name the line.
 

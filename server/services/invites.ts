@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import bcrypt from 'bcryptjs';
-import { roleLabels, type Invite, type InviteCreateBody, type InvitePreview, type Role } from '@shared/schemas/auth';
+import { type Invite, type InviteCreateBody, type InvitePreview, type Role } from '@shared/schemas/auth';
 import { AppError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { inviteMail } from '../mail/templates';
@@ -117,7 +117,7 @@ async function queueInviteMail(trx: Knex.Transaction, row: InviteRow, clubName: 
     to: row.email,
     name: row.name,
     clubName,
-    roles: row.roles.map((r) => roleLabels[r]),
+    roles: row.roles,
     url: `${publicUrl}/invite?token=${encodeURIComponent(token)}`,
     expiresAt: row.expires_at,
     timeZone: await clubTimeZone(trx, row.club_id),

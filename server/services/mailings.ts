@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import type {
   Mailing,
   MailingAudience,
+  MailingAudienceCount,
   MailingCreateBody,
   MailingSent,
   MailPreferences,
@@ -61,6 +62,16 @@ function audienceWords(audience: MailingAudience, clubName: string, site: string
   }
 }
 
+/** How many people a message to `audience` would go to now (the confirm step says it before sending). */
+export async function countAudience(db: Db, clubId: number, audience: MailingAudience): Promise<MailingAudienceCount> {
+  if (audience.kind === 'site' && !(await siteName(db, clubId, audience.siteId))) {
+    throw new AppError('validation_failed', 'Some fields need attention.', { siteId: "Choose one of the club's sites" });
+  }
+  const people = await audiencePeople(db, clubId, audience);
+  const recipients = people.filter((p) => !p.opted_out).length;
+  return { recipients, skipped: people.length - recipients };
+}
+
 /**
  * Sends a club message to each person in the audience as their own e-mail, skipping people who
  * turned club news off, and records the mailing with how many it was for. The mailing and every
@@ -76,6 +87,7 @@ export async function sendMailing(
   const { clubId, body } = opts;
   const club = await db('clubs').where({ id: clubId }).first('name');
   if (!club) throw notFound('The club');
+  const sender = await db('users').where({ id: opts.userId }).first('name');
   let site: string | null = null;
   if (body.audience.kind === 'site') {
     site = await siteName(db, clubId, body.audience.siteId);
@@ -101,10 +113,12 @@ export async function sendMailing(
       })
       .returning('id');
     for (const p of recipients) {
-      await enqueueMail(trx, { clubId, kind: 'club_news', mailingId: inserted.id }, clubNewsMail({
+      const fromName = `${sender.name} (${club.name})`;
+      await enqueueMail(trx, { clubId, kind: 'club_news', mailingId: inserted.id, fromName }, clubNewsMail({
         to: p.email,
         name: p.name,
         clubName: club.name,
+        senderName: sender.name,
         subject: body.subject,
         body: body.body,
         because,

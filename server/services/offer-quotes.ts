@@ -29,7 +29,7 @@ export async function quoteOffer(
   if (!plot) throw notFound('The plot');
   if (plot.kind === 'shared_bed') throw new AppError('conflict', 'A shared bed is tended by the club together and is not offered to one person.');
   const app = await db('applications').where({ id: opts.applicationId, club_id: opts.clubId }).first();
-  if (!app) throw notFound('The person on the waitlist');
+  if (!app) throw notFound('The person on the waiting list');
   if (app.status !== 'waiting') throw new AppError('conflict', `${app.name} is no longer waiting for a plot.`);
   const quote = await quotePlotFee(db, opts.clubId, plot.id);
   return {

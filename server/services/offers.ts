@@ -36,7 +36,7 @@ export async function clubOfOffer(db: Db, offerId: number): Promise<number | nul
 }
 
 /**
- * Offers a free plot to someone on the waitlist. The plot row is locked so two coordinators
+ * Offers a free plot to someone on the waiting list. The plot row is locked so two coordinators
  * dropping onto the same plot at once get one offer and one refusal; unique indexes back it up.
  */
 export async function createOffer(
@@ -71,7 +71,7 @@ export async function createOffer(
       if (blocker) throw new AppError('conflict', `Plot ${plot.label} cannot be offered: ${blocker}.`);
       const app = await trx('applications').where({ id: opts.applicationId }).forUpdate().first();
       if (!app || app.club_id !== season.club_id) {
-        throw new AppError('validation_failed', 'That person is not on this club’s waitlist.', { applicationId: 'Unknown person' });
+        throw new AppError('validation_failed', 'That person is not on this club’s waiting list.', { applicationId: 'Unknown person' });
       }
       const mayHoldMore = season.allow_multiple_offers && app.status === 'offered';
       if (app.status !== 'waiting' && !mayHoldMore) {
@@ -160,7 +160,7 @@ export async function plotStillThere(trx: Knex.Transaction, plotId: number): Pro
   return (await clubOfPlot(trx, plotId)) !== null;
 }
 
-const PLOT_REMOVED = 'The club has taken this plot off its map since the offer was sent, so it can no longer be accepted. Your place on the waitlist is kept.';
+const PLOT_REMOVED = 'The club has taken this plot off its map since the offer was sent, so it can no longer be accepted. Your place on the waiting list is kept.';
 
 /**
  * Closes an open offer whose plot has been removed (the person keeps their place), in its own
@@ -279,7 +279,7 @@ export async function acceptOffer(db: Knex, mailer: Mailer, opts: { token: strin
     // The person may hold several offers (if the club allows it) but take only one plot.
     const app = await trx('applications').where({ id: o.application_id }).forUpdate().first('status');
     if (app?.status !== 'offered') {
-      throw new AppError('gone', app?.status === 'allocated' ? 'You have already accepted another plot from this club.' : 'This offer is no longer open: you are not on the waitlist any more.');
+      throw new AppError('gone', app?.status === 'allocated' ? 'You have already accepted another plot from this club.' : 'This offer is no longer open: you are not on the waiting list any more.');
     }
     let user = await trx('users').whereRaw('lower(email) = lower(?)', [o.email]).first('id', 'password_hash');
     if (!user) {
@@ -373,7 +373,7 @@ export async function declineOffer(db: Knex, opts: { token: string; now?: Date }
   });
 }
 
-/** The coordinator takes back an open offer; the person keeps their place on the waitlist. */
+/** The coordinator takes back an open offer; the person keeps their place on the waiting list. */
 export async function withdrawOffer(db: Knex, opts: { offerId: number; userId: number; now?: Date }) {
   const now = opts.now ?? new Date();
   await db.transaction(async (trx) => {
@@ -389,7 +389,7 @@ export async function withdrawOffer(db: Knex, opts: { offerId: number; userId: n
 }
 
 /**
- * Lapses a club's overdue offers before its waitlist is read, so nobody reads as "offered" past
+ * Lapses a club's overdue offers before its waiting list is read, so nobody reads as "offered" past
  * the deadline while the sweep has yet to run. Writes only when something is overdue.
  */
 export async function lapseOverdueOffersOfClub(db: Knex, clubId: number, now: Date) {

@@ -25,6 +25,8 @@ export interface MailCause {
   kind: MailKind;
   /** The club message this is one copy of. */
   mailingId?: number;
+  /** The display name to send under; a club's mail defaults to the club's name. */
+  fromName?: string;
 }
 
 /**
@@ -32,6 +34,9 @@ export interface MailCause {
  * sent yet. Call `kickMail` after the commit so it goes out at once.
  */
 export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMail): Promise<number> {
+  // A club's mail comes under its name and is answered at its contact address, when it has one.
+  const club = cause.clubId === null ? undefined : await trx('clubs').where({ id: cause.clubId }).first('name', 'contact_email');
+  const headers = { ...(club?.contact_email ? { 'Reply-To': club.contact_email as string } : {}), ...message.headers };
   const [row] = await trx('mail_outbox')
     .insert({
       club_id: cause.clubId,
@@ -41,7 +46,8 @@ export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMa
       subject: message.subject,
       html: message.html,
       text: message.text,
-      headers: JSON.stringify(message.headers ?? {}),
+      headers: JSON.stringify(headers),
+      from_name: cause.fromName ?? message.fromName ?? club?.name ?? null,
       // The server's clock, like the sender's `now`, so a kick right after the commit finds it due.
       next_attempt_at: new Date(),
     })
@@ -75,7 +81,7 @@ export async function sendDueMail(db: Knex, mailer: Mailer, now: Date, limit = 5
       if (!row) return null;
       const attempts = row.attempts + 1;
       try {
-        await mailer.send({ to: row.to_address, subject: row.subject, text: row.text, html: row.html, headers: row.headers });
+        await mailer.send({ to: row.to_address, subject: row.subject, text: row.text, html: row.html, headers: row.headers, fromName: row.from_name });
       } catch (err) {
         const failed = attempts >= MAX_ATTEMPTS;
         await trx('mail_outbox')

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
-import { AppError } from '../errors';
+import type { PasswordResetCheck } from '@shared/schemas/auth';
+import { AppError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { passwordResetMail } from '../mail/templates';
 import { hashPassword } from './auth';
@@ -31,6 +32,22 @@ export async function requestPasswordReset(
     );
   });
   kickMail(db, mailer);
+}
+
+/**
+ * Says whether a reset link still works, without using it: 404 for a link we never made, 410 for one
+ * used or expired; a working one says whether the account has no password yet (its first).
+ */
+export async function checkPasswordReset(db: Knex, opts: { token: string; now?: Date }): Promise<PasswordResetCheck> {
+  const row = await db('password_resets as r')
+    .join('users as u', 'u.id', 'r.user_id')
+    .where('r.token_hash', hashToken(opts.token))
+    .first('r.used_at', 'r.expires_at', 'u.password_hash');
+  if (!row) throw notFound('That reset link');
+  if (row.used_at || row.expires_at <= (opts.now ?? new Date())) {
+    throw new AppError('gone', 'This reset link has been used or has expired. Ask for a new one.');
+  }
+  return { firstPassword: !row.password_hash };
 }
 
 /** Sets a new password from a reset link; the link works once and only before it expires. */

@@ -39,6 +39,9 @@ function summarise(kind: string, d: Record<string, unknown>): string {
   }
 }
 
+/** Who the history credits for steps no signed-in person took. */
+export const AUTOMATIC_BY = 'Tillwell';
+
 /** A plot's history, newest first, with who did each step. */
 export async function listPlotEvents(db: Db, plotId: number, limit = 200): Promise<PlotEvent[]> {
   const rows = await db('plot_events as e')
@@ -46,13 +49,14 @@ export async function listPlotEvents(db: Db, plotId: number, limit = 200): Promi
     .where('e.plot_id', plotId)
     .orderBy([{ column: 'e.created_at', order: 'desc' }, { column: 'e.id', order: 'desc' }])
     .limit(limit)
-    .select('e.id', 'e.kind', 'e.details', 'e.created_at', 'u.name as by_name');
+    .select('e.id', 'e.kind', 'e.details', 'e.created_at', 'e.user_id', 'u.name as by_name');
   return rows.map((r) => ({
     id: r.id,
     kind: r.kind,
     summary: summarise(r.kind, r.details),
     details: r.details,
-    byName: r.by_name ?? null,
+    // No one's doing: the deadline sweep, a lapse or an answer from an e-mailed link, recorded by the product.
+    byName: r.user_id === null ? AUTOMATIC_BY : (r.by_name ?? null),
     at: new Date(r.created_at).toISOString(),
   }));
 }

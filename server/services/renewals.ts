@@ -70,7 +70,7 @@ export async function keepPlot(db: Knex, opts: { token: string; now?: Date }) {
   });
 }
 
-/** "Give it up": the plot is free for the waitlist. */
+/** "Give it up": the plot is free for the waiting list. */
 export async function releasePlot(db: Knex, opts: { token: string; now?: Date }) {
   const now = opts.now ?? new Date();
   return db.transaction(async (trx) => {
@@ -83,6 +83,6 @@ export async function releasePlot(db: Knex, opts: { token: string; now?: Date })
       kind: 'released',
       details: { summary: `${r.user_name} gave the plot up for ${r.year}` },
     });
-    return { status: 'released', message: 'Thank you for letting us know. The plot will go to someone on the waitlist.' };
+    return { status: 'released', message: 'Thank you for letting us know. The plot will go to someone on the waiting list.' };
   });
 }

@@ -50,7 +50,7 @@ function parseWaitlistCsv(csv: string, sites: Array<{ id: number; name: string }
   const table = readCsvTable<WaitlistColumn>(csv, {
     columns: waitlistCsvColumns,
     required: ['name', 'email'],
-    noun: 'waitlist',
+    noun: 'waiting list',
     maxRows: MAX_MEMBER_IMPORT_ROWS,
     aliases: { ...emailAliases, telephone: 'phone', phone_number: 'phone', site: 'preferred_site', size: 'preferred_size' },
   });
@@ -142,7 +142,7 @@ async function liveWaitlistClashes(db: Db, clubId: number, rows: ParsedEntry[]):
   }
   return rows
     .filter((r) => live.has(r.email))
-    .map((r) => ({ row: r.row, field: 'email', message: `${r.email} is already on this club's waitlist` }));
+    .map((r) => ({ row: r.row, field: 'email', message: `${r.email} is already on this club's waiting list` }));
 }
 
 /**

@@ -36,7 +36,7 @@ export type ApplyInfo = z.infer<typeof ApplyInfoSchema>;
 
 export const ApplicationReceiptSchema = z.object({ position: z.number().int(), message: z.string() });
 
-/** One person on the waitlist as the coordinator sees them. */
+/** One person on the waiting list as the coordinator sees them. */
 export const WaitlistEntrySchema = z.object({
   id: z.number().int(),
   position: z.number().int().nullable(),

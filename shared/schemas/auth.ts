@@ -11,6 +11,11 @@ export const roleLabels: Record<Role, string> = {
   volunteer: 'Volunteer',
 };
 
+/** Roles as words in a sentence, in the order of `roles`: "plot holder, volunteer" ("coordinator" for one). */
+export function roleWords(held: readonly Role[]): string {
+  return roles.filter((r) => held.includes(r)).map((r) => roleLabels[r].toLowerCase()).join(', ');
+}
+
 export const SignInBodySchema = z.strictObject({
   email: EmailSchema,
   password: z.string().min(1, 'Enter your password').max(200),
@@ -54,6 +59,12 @@ export const PasswordResetBodySchema = z.strictObject({
   password: PasswordSchema,
 });
 export type PasswordResetBody = z.infer<typeof PasswordResetBodySchema>;
+
+/** `GET /api/password-resets/check?token=…`: whether a link still works, without using it up. */
+export const PasswordResetCheckQuerySchema = PasswordResetBodySchema.pick({ token: true });
+/** A working link, and whether it sets the account's first password (none yet) or replaces one. */
+export const PasswordResetCheckSchema = z.object({ firstPassword: z.boolean() });
+export type PasswordResetCheck = z.infer<typeof PasswordResetCheckSchema>;
 
 export const InviteCreateBodySchema = z.strictObject({
   email: EmailSchema,

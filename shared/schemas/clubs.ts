@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { textSchema } from './common';
+import { EmailSchema, textSchema } from './common';
 import { isTimeZone } from '../dates';
 
 export const currencies = ['GBP', 'EUR', 'USD', 'CAD', 'AUD', 'NZD'] as const;
@@ -16,11 +16,24 @@ export const ClubSettingsSchema = z.object({
   allowMultipleOffers: z.boolean(),
   /** Every date and time the club's people see is shown in this zone; it starts as the club's first site's. */
   timeZone: z.string().refine(isTimeZone, 'Unknown time zone (use a name like Europe/London)'),
+  /** Where replies to the club's e-mails go (their Reply-To); null until a coordinator sets it. */
+  contactEmail: z.string().nullable(),
+  /** What a plot costs, in the club's words, shown on the public application form. */
+  feeNote: z.string().nullable(),
+  /** How long people usually wait for a plot, in the club's words, shown on the application form. */
+  typicalWait: z.string().nullable(),
+  /** True once a fee is recorded: the currency can no longer change (read only). */
+  currencyLocked: z.boolean(),
 });
 export type ClubSettings = z.infer<typeof ClubSettingsSchema>;
 
-export const ClubSettingsUpdateBodySchema = ClubSettingsSchema.omit({ id: true, slug: true })
-  .extend({ name: textSchema({ min: 1, minMessage: 'Enter a name', max: 160 }) })
+export const ClubSettingsUpdateBodySchema = ClubSettingsSchema.omit({ id: true, slug: true, currencyLocked: true })
+  .extend({
+    name: textSchema({ min: 1, minMessage: 'Enter a name', max: 160 }),
+    contactEmail: EmailSchema.nullable(),
+    feeNote: textSchema({ max: 200 }).nullable(),
+    typicalWait: textSchema({ max: 200 }).nullable(),
+  })
   .partial()
   .strict();
 export type ClubSettingsUpdateBody = z.infer<typeof ClubSettingsUpdateBodySchema>;

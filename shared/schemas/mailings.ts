@@ -11,6 +11,17 @@ export const MailingAudienceSchema = z.discriminatedUnion('kind', [
 ]);
 export type MailingAudience = z.infer<typeof MailingAudienceSchema>;
 
+const wholeNumberText = z.string().regex(/^\d{1,10}$/, 'A whole number').transform(Number);
+
+/** `GET …/mailings/audience?kind=site&year=2027&siteId=4`: the audience as a query string. */
+export const MailingAudienceQuerySchema = z
+  .strictObject({ kind: z.string(), year: wholeNumberText.optional(), siteId: wholeNumberText.optional() })
+  .pipe(MailingAudienceSchema);
+
+/** How many people a message to an audience would reach now, and how many turned club news off. */
+export const MailingAudienceCountSchema = z.object({ recipients: z.number().int(), skipped: z.number().int() });
+export type MailingAudienceCount = z.infer<typeof MailingAudienceCountSchema>;
+
 export const MailingCreateBodySchema = z.strictObject({
   subject: textSchema({ min: 1, minMessage: 'Enter a subject', max: 200 }),
   body: textSchema({ min: 1, minMessage: 'Write the message', max: 20_000, maxMessage: 'At most 20,000 characters', multiline: true }),

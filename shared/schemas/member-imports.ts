@@ -5,7 +5,7 @@ import { csvFileSchema } from './common';
 
 /** Columns of a members file, in the order exports and the template use. */
 export const memberCsvColumns = ['name', 'email', 'roles', 'send_invite'] as const;
-/** Columns of a waitlist file, in the order exports and the template use. */
+/** Columns of a waiting list file, in the order exports and the template use. */
 export const waitlistCsvColumns = [
   'name',
   'email',
@@ -20,7 +20,7 @@ export const waitlistCsvColumns = [
 /** Columns of the allocations export. */
 export const allocationCsvColumns = ['year', 'site', 'plot', 'holder_name', 'holder_email', 'status'] as const;
 
-/** The most rows one member or waitlist file may hold. */
+/** The most rows one member or waiting list file may hold. */
 export const MAX_MEMBER_IMPORT_ROWS = 2000;
 
 /** A members file (POST /member-imports) or a waitlist file (POST /waitlist-imports). */
@@ -62,7 +62,7 @@ export const ImportedMemberSchema = z.object({
 });
 export type ImportedMember = z.infer<typeof ImportedMemberSchema>;
 
-/** A waitlist row as the import reads it. */
+/** A waiting list row as the import reads it. */
 export const ImportedWaitlistEntrySchema = z.object({
   name: z.string(),
   email: z.string(),

@@ -26,7 +26,7 @@ export type MailKind = (typeof mailKinds)[number];
 export const mailKindLabels: Record<MailKind, string> = {
   invite: 'Invitation',
   password_reset: 'Password link',
-  application_received: 'Waitlist confirmation',
+  application_received: 'Waiting list confirmation',
   offer: 'Plot offer',
   welcome_holder: 'Welcome to a plot',
   renewal: 'Renewal',

@@ -25,7 +25,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
       { to: paths.map(id), label: 'Map', icon: MapIcon },
       { to: paths.sites(id), label: 'Sites', icon: LandPlot },
       { to: paths.springRound(id), label: 'Spring round', icon: CalendarRange },
-      { to: paths.waitlist(id), label: 'Waitlist', icon: ListOrdered },
+      { to: paths.waitlist(id), label: 'Waiting list', icon: ListOrdered },
       { to: paths.fees(id), label: 'Fees', icon: Coins },
       { to: paths.members(id), label: 'Members', icon: Users },
       { to: paths.messages(id), label: 'Messages', icon: Mail },

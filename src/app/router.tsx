@@ -39,7 +39,7 @@ export const router = createBrowserRouter([
             lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })),
           },
           { path: 'invite', lazy: () => import('./routes/invite').then((m) => ({ Component: m.InviteRoute })) },
-          // The waitlist form is public: anyone may apply, signed in or not.
+          // The waiting list form is public: anyone may apply, signed in or not.
           { path: 'apply/:clubSlug', lazy: () => import('./routes/apply').then((m) => ({ Component: m.ApplyRoute })) },
           {
             path: 'respond/offer',

@@ -9,7 +9,7 @@ const reasons = {
   settings: "Only the club's coordinators change its name, rules and fees. If something needs changing, tell one of them.",
   members: "Only the club's coordinators can see the member list and send invites. If something here needs changing, ask one of them.",
   'spring-round':
-    "The spring round (renewals, the waitlist and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail.",
+    "The spring round (renewals, the waiting list and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail.",
 } as const;
 
 export type CoordinatorsPage = keyof typeof reasons;

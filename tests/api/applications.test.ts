@@ -67,7 +67,7 @@ describe('the public application form', () => {
     const res = await visitor.post('/api/apply/elm-row', application({ email: 'Hana@Example.org' }));
     expect(res.status).toBe(201);
     expect(res.body.position).toBe(2);
-    expect(res.body.message).toContain('number 2 on the waitlist of Elm Row Growers');
+    expect(res.body.message).toContain('number 2 on the waiting list of Elm Row Growers');
 
     const row = await t.db('applications').where({ club_id: club.id, name: 'Hana Okoro' }).first();
     expect(row).toMatchObject({
@@ -80,9 +80,9 @@ describe('the public application form', () => {
       notes: 'Evenings and weekends',
     });
 
-    const mail = await waitForMail(mailUrl(), { to: 'hana@example.org', subject: 'Elm Row Growers waitlist', after });
-    expect(mail.subject).toBe("You're on the Elm Row Growers waitlist: number 2");
-    expect(mail.text).toContain('You are number 2 on the waitlist');
+    const mail = await waitForMail(mailUrl(), { to: 'hana@example.org', subject: 'Elm Row Growers waiting list', after });
+    expect(mail.subject).toBe("You're on the Elm Row Growers waiting list: number 2");
+    expect(mail.text).toContain('You are number 2 on the waiting list');
     expect(mail.text).toContain('a medium plot, a raised bed');
     expect(mail.text).toContain('What happens next');
     expect(mail.text).toContain('You have 7 days to answer an offer'); // the club's default offer_days
@@ -129,7 +129,7 @@ describe('the public application form', () => {
     expect(await t.db('applications').where({ club_id: club.id }).count({ n: '*' })).toEqual([{ n: 3 }]);
 
     const mail = await waitForMail(mailUrl(), { to: 'hana@example.org', subject: 'already on the', after: since });
-    expect(mail.subject).toBe("You're already on the Elm Row Growers waitlist: number 2");
+    expect(mail.subject).toBe("You're already on the Elm Row Growers waiting list: number 2");
     expect(mail.text).toContain('Hello Hana Okoro,');
     expect(mail.text).toContain('your earlier application and its date stand');
 

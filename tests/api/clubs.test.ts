@@ -35,6 +35,11 @@ describe('club settings', () => {
       allowMultipleOffers: false,
       // A club with no site yet keeps the default zone (the migration's default).
       timeZone: 'UTC',
+      // The migration adds these empty; no fee is recorded yet.
+      contactEmail: null,
+      feeNote: null,
+      typicalWait: null,
+      currencyLocked: false,
     });
     const outsider = await signedIn(await buildMember(t.db, { roles: ['coordinator'] }));
     expect((await outsider.get(`/api/clubs/${row.id}`)).status).toBe(403);
@@ -116,5 +121,20 @@ describe('club settings', () => {
     // Sending the same currency with other changes is fine.
     await c.patch(`/api/clubs/${row.id}`, { currency: 'GBP', offerDays: 5 }).expect(200);
     expect((await t.db('clubs').where({ id: row.id }).first()).currency).toBe('GBP');
+    // The settings say the currency is fixed, so the form can disable it.
+    expect((await c.get(`/api/clubs/${row.id}`).expect(200)).body.currencyLocked).toBe(true);
+  });
+
+  it('keeps a contact address only when it is an e-mail address, and clears notes left empty', async () => {
+    const { club: row, c } = await club();
+    const bad = await c.patch(`/api/clubs/${row.id}`, { contactEmail: 'not an address', feeNote: 'x'.repeat(201) });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toEqual({ contactEmail: 'Enter a valid e-mail address', feeNote: 'At most 200 characters' });
+    const ok = await c.patch(`/api/clubs/${row.id}`, { contactEmail: ' Hello@Allotment.example.org ', feeNote: 'From £25 a year', typicalWait: 'About a year' });
+    expect(ok.status, JSON.stringify(ok.body)).toBe(200);
+    // EmailSchema trims and lower-cases (shared/schemas/common.ts).
+    expect(ok.body).toMatchObject({ contactEmail: 'hello@allotment.example.org', feeNote: 'From £25 a year', typicalWait: 'About a year' });
+    await c.patch(`/api/clubs/${row.id}`, { contactEmail: null, feeNote: '', typicalWait: '  ' }).expect(200);
+    expect(await t.db('clubs').where({ id: row.id }).first('contact_email', 'fee_note', 'typical_wait')).toEqual({ contact_email: null, fee_note: null, typical_wait: null });
   });
 });

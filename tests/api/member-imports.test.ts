@@ -236,7 +236,7 @@ describe('waitlist import', () => {
       { row: 4, field: 'applied_on', message: 'Enter a date like 2024-03-15' },
       { row: 5, field: 'preferred_size', message: 'Use one of: small, medium, large, any' },
       { row: 5, field: 'applied_on', message: 'Cannot be in the future' },
-      { row: 6, field: 'email', message: "taken@example.org is already on this club's waitlist" },
+      { row: 6, field: 'email', message: "taken@example.org is already on this club's waiting list" },
       { row: 7, field: 'name', message: 'Enter your name' },
     ]);
     const commit = await importCsv(c, club.id, 'waitlist', csv, true);

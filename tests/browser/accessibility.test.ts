@@ -30,7 +30,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       ['/map', 'Map of Mossgate Lane'],
       ['/sites', 'Sites'],
       ['/spring-round', 'Spring round 2026'],
-      ['/waitlist', 'Waitlist'],
+      ['/waitlist', 'Waiting list'],
       ['/fees', 'Fees'],
       ['/members', 'Members'],
       ['/outgoing-mail', 'Outgoing mail'],

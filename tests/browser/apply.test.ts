@@ -46,8 +46,8 @@ describe('applying for a plot and the waitlist', () => {
     await w.shot('apply-form-phone');
 
     const after = Date.now();
-    await w.page.getByRole('button', { name: 'Join the waitlist' }).click();
-    await w.page.getByRole('heading', { name: "You're on the waitlist" }).waitFor();
+    await w.page.getByRole('button', { name: 'Join the waiting list' }).click();
+    await w.page.getByRole('heading', { name: "You're on the waiting list" }).waitFor();
     const stored = await db('applications as a')
       .join('clubs as c', 'c.id', 'a.club_id')
       .where({ 'c.slug': 'mossgate', 'a.email': 'pat.newcomer@example.org' })
@@ -57,10 +57,10 @@ describe('applying for a plot and the waitlist', () => {
     const position = Number(
       (await db('applications').where({ club_id: stored.club_id, status: 'waiting' }).count({ n: '*' }))[0].n,
     );
-    await w.page.getByText(`You are number ${position} on the waitlist`).waitFor();
+    await w.page.getByText(`You are number ${position} on the waiting list`).waitFor();
     await w.page.getByText(String(position), { exact: true }).waitFor();
     const mail = await waitForMail(mailUrl(), { to: 'pat.newcomer@example.org', after });
-    expect(mail.text).toContain(`You are number ${position} on the waitlist`);
+    expect(mail.text).toContain(`You are number ${position} on the waiting list`);
     // Nothing wider than the phone's screen.
     expect(await w.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await w.shot('apply-received-phone');
@@ -71,16 +71,16 @@ describe('applying for a plot and the waitlist', () => {
     const w = await openPage(suite.browser, 1280);
     await fillApplication(w.page, { name: 'Robin Second', email: 'robin.second@example.org', accessible: true });
     await w.shot('apply-form-desktop');
-    await w.page.getByRole('button', { name: 'Join the waitlist' }).click();
-    await w.page.getByRole('heading', { name: "You're on the waitlist" }).waitFor();
+    await w.page.getByRole('button', { name: 'Join the waiting list' }).click();
+    await w.page.getByRole('heading', { name: "You're on the waiting list" }).waitFor();
     expect(w.errors).toEqual([]);
   });
 
   it('the coordinator sees them on the waitlist and moves one up with a reason', async () => {
     const w = await coordinator(1280);
     await switchClub(w.page);
-    await (await mainNav(w.page)).getByRole('link', { name: 'Waitlist' }).click();
-    await w.page.getByRole('heading', { name: 'Waitlist', exact: true }).waitFor();
+    await (await mainNav(w.page)).getByRole('link', { name: 'Waiting list' }).click();
+    await w.page.getByRole('heading', { name: 'Waiting list', exact: true }).waitFor();
     await w.page.getByRole('cell', { name: /^Pat Newcomer/ }).waitFor();
     await w.page.getByRole('cell', { name: /^Robin Second/ }).waitFor();
     const link = await w.page.getByLabel('Application form for people who want a plot').inputValue();

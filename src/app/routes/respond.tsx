@@ -1,13 +1,13 @@
 import { useSearchParams } from 'react-router-dom';
-import { LinkResponse } from '@/features/spring-round/components/link-response';
+import { LinkResponse, answerOf } from '@/features/spring-round/components/link-response';
 
-/** `/respond/offer?token=…`: accept or decline a plot offer from its e-mail. */
+/** `/respond/offer?token=…&answer=accept|decline`: confirm accepting or declining a plot offer from its e-mail. */
 export function OfferResponseRoute() {
   const [params] = useSearchParams();
   return (
     <>
       <title>Your plot offer · Tillwell</title>
-      <LinkResponse kind="offer" token={params.get('token') ?? ''} />
+      <LinkResponse kind="offer" token={params.get('token') ?? ''} chosen={answerOf('offer', params.get('answer'))} />
     </>
   );
 }

@@ -34,7 +34,7 @@ function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; s
   const withdraw = useWithdrawOffer(() => waiting.refetch());
   if (states.isPending || waiting.isPending) return <LoadingState label="Loading the season…" />;
   if (states.isError) return <ErrorState title="The season could not be loaded" message={states.error.message} onRetry={() => void states.refetch()} />;
-  if (waiting.isError) return <ErrorState title="The waitlist could not be loaded" message={waiting.error.message} onRetry={() => void waiting.refetch()} />;
+  if (waiting.isError) return <ErrorState title="The waiting list could not be loaded" message={waiting.error.message} onRetry={() => void waiting.refetch()} />;
   const people: AllocationPerson[] = waiting.data.items.map((w) => ({
     id: w.id,
     name: w.name,
@@ -99,7 +99,7 @@ function SpringRound() {
       <PageHeader
         eyebrow={club.clubName}
         title={current ? `Spring round ${current.year}` : 'Spring round'}
-        description="Renew last season's plot holders, then offer the free plots to the waitlist in fair order."
+        description="Renew last season's plot holders, then offer the free plots to the waiting list in fair order."
       />
       {current ? (
         <>

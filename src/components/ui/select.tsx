@@ -25,7 +25,7 @@ export function Select({ label, hint, error, id, hideLabel = false, className = 
           id={inputId}
           aria-describedby={describedBy}
           aria-invalid={invalid || undefined}
-          className={`${inputClasses} cursor-pointer pr-8`}
+          className={`${inputClasses} cursor-pointer pr-8 disabled:cursor-not-allowed disabled:bg-paper-100`}
           {...rest}
         >
           {children}

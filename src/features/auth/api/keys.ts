@@ -5,4 +5,5 @@ export const authKeys = {
   detail: (id: string) => [...authKeys.details(), id] as const,
   session: () => authKeys.detail('session'),
   invitePreview: (token: string) => authKeys.detail(`invite-preview:${token}`),
+  passwordResetCheck: (token: string) => authKeys.detail(`password-reset-check:${token}`),
 };

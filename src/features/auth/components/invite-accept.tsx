@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useNavigate } from 'react-router-dom';
-import { InviteAcceptBodySchema, roleLabels, type InvitePreview } from '@shared/schemas/auth';
+import { InviteAcceptBodySchema, roleWords, type InvitePreview } from '@shared/schemas/auth';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ErrorState } from '@/components/ui/error-state';
@@ -48,7 +48,7 @@ function AcceptForm({ token, preview, onSpent }: { token: string; preview: Invit
     resolver: zodResolver(InviteAcceptFormSchema),
     defaultValues: { name: preview.name, password: '' },
   });
-  const roleText = preview.roles.map((role) => roleLabels[role]).join(', ');
+  const roleText = roleWords(preview.roles);
 
   const onSubmit = handleSubmit((values) => {
     setFormError(null);

@@ -7,6 +7,7 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Checkbox } from '@/components/ui/checkbox';
 import { TextField } from '@/components/ui/field';
+import { EmailSchema } from '@shared/schemas/common';
 import { Select } from '@/components/ui/select';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useUpdateClubSettings } from '../api/update-club-settings';
@@ -36,25 +37,35 @@ const daysText = (days: typeof shape.offerDays) =>
 /** What the inputs hold: day counts as typed text. */
 interface SettingsFormValues {
   name: string;
-  currency: ClubSettings['currency'];
+  currency?: ClubSettings['currency'];
   offerDays: string;
   renewalDays: string;
   declinedOfferPolicy: ClubSettings['declinedOfferPolicy'];
   allowMultipleOffers: boolean;
   timeZone: string;
+  contactEmail: string;
+  feeNote: string;
+  typicalWait: string;
 }
+
+/** An empty box clears the value. */
+const orNull = (schema: z.ZodType<string, string>) =>
+  z.string().transform((v) => v.trim()).pipe(z.union([z.literal('').transform(() => null), schema]));
 
 const SettingsFormSchema = z.object({
   name: z.string().trim().min(1, 'Enter a name').max(160, 'At most 160 characters'),
-  currency: shape.currency,
+  currency: shape.currency.optional(),
   offerDays: daysText(shape.offerDays),
   renewalDays: daysText(shape.renewalDays),
   declinedOfferPolicy: shape.declinedOfferPolicy,
   allowMultipleOffers: z.boolean(),
   timeZone: z.string().trim().min(1, 'Enter a time zone, like Europe/London').pipe(shape.timeZone),
+  contactEmail: orNull(EmailSchema),
+  feeNote: orNull(z.string().max(200, 'At most 200 characters')),
+  typicalWait: orNull(z.string().max(200, 'At most 200 characters')),
 });
 
-const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone'] as const;
+const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone', 'contactEmail', 'feeNote', 'typicalWait'] as const;
 
 function toForm(s: ClubSettings): SettingsFormValues {
   return {
@@ -65,6 +76,9 @@ function toForm(s: ClubSettings): SettingsFormValues {
     declinedOfferPolicy: s.declinedOfferPolicy,
     allowMultipleOffers: s.allowMultipleOffers,
     timeZone: s.timeZone,
+    contactEmail: s.contactEmail ?? '',
+    feeNote: s.feeNote ?? '',
+    typicalWait: s.typicalWait ?? '',
   };
 }
 
@@ -90,9 +104,11 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
     defaultValues: toForm(settings),
   });
 
-  const onSubmit = handleSubmit((body) => {
+  const onSubmit = handleSubmit((values) => {
     setFormError(null);
     setSaved(false);
+    // A locked currency is not the person's to send; the field only shows it.
+    const body = settings.currencyLocked ? { ...values, currency: undefined } : values;
     update.mutate(body, {
       onSuccess: (next) => {
         reset(toForm(next));
@@ -111,8 +127,13 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
         <TextField label="Club name" autoComplete="organization" error={errors.name?.message} {...register('name')} />
         <Select
           label="Currency"
-          hint="Fees and receipts are in this currency. It is fixed once the first fee is recorded."
+          hint={
+            settings.currencyLocked
+              ? `Fees are already recorded in ${currencyLabels[settings.currency]}, so the currency cannot change: fees keep the currency they were charged in.`
+              : 'Fees and receipts are in this currency. It is fixed once the first fee is recorded.'
+          }
           error={errors.currency?.message}
+          disabled={settings.currencyLocked}
           {...register('currency')}
         >
           {currencies.map((c) => (
@@ -151,6 +172,26 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
           spellCheck={false}
           error={errors.timeZone?.message}
           {...register('timeZone')}
+        />
+        <TextField
+          label="Contact e-mail"
+          hint="Replies to the club's e-mails go here. Leave it empty and people cannot answer them."
+          type="email"
+          autoComplete="email"
+          error={errors.contactEmail?.message}
+          {...register('contactEmail')}
+        />
+        <TextField
+          label="Fee, for the application form"
+          hint="What a plot costs, in your words, e.g. “From £25 a year for a small plot”. Leave it empty to say nothing."
+          error={errors.feeNote?.message}
+          {...register('feeNote')}
+        />
+        <TextField
+          label="Typical wait, for the application form"
+          hint="How long people usually wait for a plot, e.g. “About 18 months”. Leave it empty to say nothing."
+          error={errors.typicalWait?.message}
+          {...register('typicalWait')}
         />
         <datalist id="club-settings-time-zones">
           {timeZones.map((zone) => (

@@ -34,11 +34,11 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
         { title: 'Map', body: 'Draw the plots and paths to scale, and see each plot’s neighbours.', icon: MapIcon, href: paths.map(clubId) },
         {
           title: 'Spring round',
-          body: 'Renew last season’s holders, then offer free plots to the waitlist in fair order.',
+          body: 'Renew last season’s holders, then offer free plots to the waiting list in fair order.',
           icon: CalendarRange,
           href: paths.springRound(clubId),
         },
-        { title: 'Waitlist', body: 'Everyone waiting for a plot, in the order they applied.', icon: ListOrdered, href: paths.waitlist(clubId) },
+        { title: 'Waiting list', body: 'Everyone waiting for a plot, in the order they applied.', icon: ListOrdered, href: paths.waitlist(clubId) },
         { title: 'Fees', body: 'What each holder owes, what has come in, and deposits held.', icon: Coins, href: paths.fees(clubId) },
         { title: 'Season at a glance', body: 'Plots taken, shifts covered and hours given this season.', icon: ChartNoAxesColumn },
         {

@@ -16,11 +16,11 @@ import { useMailPreferences } from '../api/get-mail-preferences';
 import { useUpdateMailPreferences } from '../api/update-mail-preferences';
 
 const alwaysSent = [
-  'Offers of a plot from the waitlist, and their deadlines',
+  'Offers of a plot from the waiting list, and their deadlines',
   'Renewal of your plot for the next season',
   'Fees due and receipts for payments',
   'Invitations and password reset links',
-  'Your waitlist confirmation',
+  'Your waiting list confirmation',
 ];
 
 function ChoicesForm({ clubId, clubName, saved }: { clubId: number; clubName: string; saved: MailPreferences }) {

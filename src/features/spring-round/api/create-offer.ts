@@ -4,12 +4,12 @@ import { apiFetch } from '@/lib/api/client';
 import { useIdempotencyKeys } from '@/lib/api/idempotency';
 import { springRoundKeys } from './keys';
 
-/** POST /api/seasons/:seasonId/offers: offers a free plot to someone on the waitlist (e-mails them). */
+/** POST /api/seasons/:seasonId/offers: offers a free plot to someone on the waiting list (e-mails them). */
 export function createOffer(seasonId: number, body: OfferCreateBody, idempotencyKey?: string) {
   return apiFetch(`/api/seasons/${seasonId}/offers`, { method: 'POST', body, schema: OfferSchema, idempotencyKey });
 }
 
-/** Makes an offer, then refreshes the season's plot states and counts (and, through onDone, the waitlist). */
+/** Makes an offer, then refreshes the season's plot states and counts (and, through onDone, the waiting list). */
 export function useCreateOffer(seasonId: number, onDone?: () => Promise<unknown>) {
   const queryClient = useQueryClient();
   const keys = useIdempotencyKeys();

@@ -1,4 +1,5 @@
 import { CircleCheck, Sprout } from 'lucide-react';
+import { Link } from 'react-router-dom';
 import { formatMoney } from '@shared/fees/compute';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -9,12 +10,36 @@ import { useAnswerLink, useLinkPreview, type LinkKind } from '../api/answer-link
 import { formatDateTime } from '@/lib/format';
 
 const words = {
-  offer: { title: 'A plot for you', yes: 'Accept the plot', no: 'Decline', yesBusy: 'Accepting…' },
-  renewal: { title: 'Keep your plot?', yes: 'Keep my plot', no: 'Give it up', yesBusy: 'Saving…' },
+  offer: {
+    title: 'A plot for you',
+    yes: 'Accept the plot',
+    no: 'Decline',
+    yesBusy: 'Accepting…',
+    confirm: { yes: 'Accept this plot?', no: 'Decline this plot?' },
+    instead: { yes: 'Decline it instead', no: 'Accept it instead' },
+    param: { yes: 'accept', no: 'decline' },
+  },
+  renewal: {
+    title: 'Keep your plot?',
+    yes: 'Keep my plot',
+    no: 'Give it up',
+    yesBusy: 'Saving…',
+    confirm: { yes: 'Keep your plot?', no: 'Give up your plot?' },
+    instead: { yes: 'Give it up instead', no: 'Keep it instead' },
+    param: { yes: 'keep', no: 'release' },
+  },
 } as const;
 
+export type LinkAnswer = 'yes' | 'no';
+
+/** The answer a link from the e-mail already carries (`answer=accept`), if any. */
+export function answerOf(kind: LinkKind, param: string | null): LinkAnswer | undefined {
+  const w = words[kind].param;
+  return param === w.yes ? 'yes' : param === w.no ? 'no' : undefined;
+}
+
 /** The page an offer or renewal e-mail opens: the plot, the fee and the deadline, with the two answers. */
-export function LinkResponse({ kind, token }: { kind: LinkKind; token: string }) {
+export function LinkResponse({ kind, token, chosen }: { kind: LinkKind; token: string; chosen?: LinkAnswer }) {
   const preview = useLinkPreview(kind, token);
   const answer = useAnswerLink(kind, token);
   const w = words[kind];
@@ -23,9 +48,14 @@ export function LinkResponse({ kind, token }: { kind: LinkKind; token: string })
   if (preview.isPending) return <LoadingState label="Opening your link…" />;
   if (preview.isError) {
     return (
+      // A link cut short or made up (400) or unknown (404) is simply not a valid link.
       <ErrorState
-        title={isApiError(preview.error, 404) ? 'We do not know this link' : 'This link cannot be used'}
-        message={preview.error.message}
+        title={isApiError(preview.error, 404) || isApiError(preview.error, 400) ? 'This link is not valid' : 'This link cannot be used'}
+        message={
+          isApiError(preview.error, 404) || isApiError(preview.error, 400)
+            ? 'It may have been cut short when it was copied. Open the link from the e-mail again, or copy all of it.'
+            : preview.error.message
+        }
       />
     );
   }
@@ -45,7 +75,7 @@ export function LinkResponse({ kind, token }: { kind: LinkKind; token: string })
       <p className="flex items-center gap-2 font-semibold text-leaf">
         <Sprout className="size-5" aria-hidden="true" /> {p.clubName}
       </p>
-      <h1 className="text-2xl font-bold">{w.title}</h1>
+      <h1 className="text-2xl font-bold">{chosen && !answered ? w.confirm[chosen] : w.title}</h1>
       <p>
         Hello {p.name}. {kind === 'offer' ? 'This plot is offered to you' : 'You can keep this plot'} for the {p.year} season:
       </p>
@@ -71,13 +101,28 @@ export function LinkResponse({ kind, token }: { kind: LinkKind; token: string })
       ) : (
         <>
           {answer.isError && <Alert tone="error">{answer.error.message}</Alert>}
-          <div className="flex flex-wrap gap-3">
-            <Button onClick={() => answer.mutate('yes')} loading={answer.isPending && answer.variables === 'yes'} loadingText={w.yesBusy} disabled={answer.isPending}>
-              {w.yes}
-            </Button>
-            <Button variant="secondary" onClick={() => answer.mutate('no')} loading={answer.isPending && answer.variables === 'no'} loadingText="Saving…" disabled={answer.isPending}>
-              {w.no}
-            </Button>
+          <div className="flex flex-wrap items-center gap-3">
+            {chosen !== 'no' && (
+              <Button onClick={() => answer.mutate('yes')} loading={answer.isPending && answer.variables === 'yes'} loadingText={w.yesBusy} disabled={answer.isPending}>
+                {w.yes}
+              </Button>
+            )}
+            {chosen !== 'yes' && (
+              <Button
+                variant={chosen === 'no' ? 'primary' : 'secondary'}
+                onClick={() => answer.mutate('no')}
+                loading={answer.isPending && answer.variables === 'no'}
+                loadingText="Saving…"
+                disabled={answer.isPending}
+              >
+                {w.no}
+              </Button>
+            )}
+            {chosen && (
+              <Link to={`?token=${encodeURIComponent(token)}&answer=${w.param[chosen === 'yes' ? 'no' : 'yes']}`} className="text-water underline">
+                {w.instead[chosen]}
+              </Link>
+            )}
           </div>
         </>
       )}

@@ -14,7 +14,7 @@ export function getWaitlist(clubId: number, filters: WaitlistFilters, signal?: A
   return apiFetch(`/api/clubs/${clubId}/waitlist${query ? `?${query}` : ''}`, { schema: WaitlistPageSchema, signal });
 }
 
-/** Query options for one filtered view of the waitlist. */
+/** Query options for one filtered view of the waiting list. */
 export function waitlistQueryOptions(clubId: number, filters: WaitlistFilters) {
   return queryOptions({
     queryKey: waitlistKeys.list(clubId, filters),
@@ -24,7 +24,7 @@ export function waitlistQueryOptions(clubId: number, filters: WaitlistFilters) {
   });
 }
 
-/** The club's waitlist with the given filters. */
+/** The club's waiting list with the given filters. */
 export function useWaitlist(clubId: number, filters: WaitlistFilters) {
   return useQuery(waitlistQueryOptions(clubId, filters));
 }

@@ -3,7 +3,7 @@ import type { WaitlistQuerySchema } from '@shared/schemas/applications';
 
 export type WaitlistFilters = z.input<typeof WaitlistQuerySchema>;
 
-/** Query keys for the waitlist: `['waitlist', 'list', { clubId, ...filters }]`, `['waitlist', 'history', id]`, `['waitlist', 'apply', slug]`. */
+/** Query keys for the waiting list: `['waitlist', 'list', { clubId, ...filters }]`, `['waitlist', 'history', id]`, `['waitlist', 'apply', slug]`. */
 export const waitlistKeys = {
   all: ['waitlist'] as const,
   lists: () => [...waitlistKeys.all, 'list'] as const,

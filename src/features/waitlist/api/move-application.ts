@@ -11,7 +11,7 @@ export function moveApplication(applicationId: number, body: WaitlistMoveBody) {
   return apiFetch(`/api/applications/${applicationId}/move`, { method: 'POST', body, schema: WaitlistEntrySchema });
 }
 
-/** Moves someone in the queue and refreshes every waitlist view and their history. */
+/** Moves someone in the queue and refreshes every waiting list view and their history. */
 export function useMoveApplication() {
   const queryClient = useQueryClient();
   return useMutation({

@@ -6,12 +6,12 @@ import { waitlistKeys } from './keys';
 
 export type ApplicationRemoveBody = z.infer<typeof ApplicationRemoveBodySchema>;
 
-/** POST /api/applications/:id/remove: takes someone off the waitlist, keeping the reason. */
+/** POST /api/applications/:id/remove: takes someone off the waiting list, keeping the reason. */
 export function removeApplication(applicationId: number, body: ApplicationRemoveBody) {
   return apiFetch(`/api/applications/${applicationId}/remove`, { method: 'POST', body, schema: WaitlistEntrySchema });
 }
 
-/** Removes someone from the waitlist and refreshes every waitlist view and their history. */
+/** Removes someone from the waiting list and refreshes every waiting list view and their history. */
 export function useRemoveApplication() {
   const queryClient = useQueryClient();
   return useMutation({

@@ -125,10 +125,10 @@ export function ApplyForm({ slug, info, onApplied }: ApplyFormProps) {
         <input id={`${ids}-website`} type="text" tabIndex={-1} autoComplete="off" {...register('website')} />
       </div>
       <Button type="submit" loading={submit.isPending} loadingText="Sending…">
-        Join the waitlist
+        Join the waiting list
       </Button>
       <p className="text-sm text-stone">
-        {info.clubName} uses your details only to run its waitlist and offer you a plot.
+        {info.clubName} uses your details only to run its waiting list and offer you a plot.
       </p>
     </form>
   );

@@ -12,7 +12,7 @@ function Receipt({ clubName, position, message }: { clubName: string; position: 
     <div className="flex flex-col gap-4" role="status">
       <div className="flex items-center gap-3">
         <CircleCheck className="size-8 shrink-0 text-leaf" aria-hidden="true" />
-        <h1 className="text-2xl font-bold">You're on the waitlist</h1>
+        <h1 className="text-2xl font-bold">You're on the waiting list</h1>
       </div>
       <p className="rounded-xl bg-leaf-50 p-4 text-center">
         <span className="block text-sm font-semibold tracking-wide text-leaf-800 uppercase">Your place</span>
@@ -22,7 +22,7 @@ function Receipt({ clubName, position, message }: { clubName: string; position: 
       <h2 className="text-lg font-semibold">What happens next</h2>
       <ul className="list-disc space-y-1 pl-5 text-stone">
         <li>Each spring, last season's plot holders renew first.</li>
-        <li>Plots still free are then offered to the waitlist in order.</li>
+        <li>Plots still free are then offered to the waiting list in order.</li>
         <li>When it is your turn you get an e-mail with a link to accept or decline, and a few days to answer.</li>
       </ul>
       <p className="text-sm text-stone">You can close this page. {clubName} has your details.</p>
@@ -30,7 +30,7 @@ function Receipt({ clubName, position, message }: { clubName: string; position: 
   );
 }
 
-/** The public page where someone asks for a plot at a club and sees their place on the waitlist. */
+/** The public page where someone asks for a plot at a club and sees their place on the waiting list. */
 export function ApplyPage({ slug }: { slug: string }) {
   const info = useApplyInfo(slug);
   const [receipt, setReceipt] = useState<{ position: number; message: string } | null>(null);
@@ -69,7 +69,7 @@ export function ApplyPage({ slug }: { slug: string }) {
             <p className="text-sm font-semibold tracking-wide text-leaf uppercase">{clubName}</p>
             <h1 className="text-2xl font-bold">Apply for a plot</h1>
             <p className="mt-1 text-stone">
-              Join the waitlist. We e-mail you your place straight away, and again when a plot is free for you.
+              Join the waiting list. We e-mail you your place straight away, and again when a plot is free for you.
             </p>
           </div>
           <ApplyForm slug={slug} info={info.data} onApplied={setReceipt} />

@@ -24,7 +24,7 @@ function RemoveForm({ entry, onDone }: { entry: WaitlistEntry; onDone: (message:
     remove.mutate(
       { applicationId: entry.id, body: values },
       {
-        onSuccess: () => onDone(`${entry.name} is off the waitlist; everyone behind moved up one.`),
+        onSuccess: () => onDone(`${entry.name} is off the waiting list; everyone behind moved up one.`),
         onError: (error) => setFormError(applyServerErrors(error, setError, ['reason'])),
       },
     );
@@ -35,13 +35,13 @@ function RemoveForm({ entry, onDone }: { entry: WaitlistEntry; onDone: (message:
       {formError && <Alert tone="error">{formError}</Alert>}
       <TextAreaField label="Reason" hint="For example: asked to leave, moved away, no answer to letters." error={errors.reason?.message} rows={3} {...register('reason')} />
       <Button type="submit" variant="danger" loading={remove.isPending} loadingText="Removing…" className="self-start">
-        Remove from the waitlist
+        Remove from the waiting list
       </Button>
     </form>
   );
 }
 
-/** Asks for the reason, then takes the person off the waitlist. */
+/** Asks for the reason, then takes the person off the waiting list. */
 export function RemoveDialog({
   entry,
   onClose,

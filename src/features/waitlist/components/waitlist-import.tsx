@@ -42,19 +42,19 @@ const columns: ColumnDef<PreviewRow<Row>>[] = [
   checkColumn<Row>(),
 ];
 
-/** Brings a waitlist kept elsewhere (a spreadsheet) into Tillwell, keeping everyone's original place. */
+/** Brings a waiting list kept elsewhere (a spreadsheet) into Tillwell, keeping everyone's original place. */
 export function WaitlistImport({ clubId }: { clubId: number }) {
   const run = useImportWaitlist(clubId);
   return (
     <CsvImport
-      textLabel="Waitlist rows"
+      textLabel="Waiting list rows"
       columnsHint={`The first line names the columns: name and email, then any of ${waitlistCsvColumns.slice(2).join(', ')}. applied_on (like 2024-03-15) keeps each person's place; rows without it join at the back in file order.`}
       noun={{ one: 'person', many: 'people' }}
       templateUrl={waitlistTemplateUrl(clubId)}
       check={(csv) => run.mutateAsync({ csv, commit: false })}
       commit={(csv) => run.mutateAsync({ csv, commit: true })}
       columns={columns}
-      done={(result) => `Added ${result.counts.imported} ${result.counts.imported === 1 ? 'person' : 'people'} to the waitlist, in order of when they applied.`}
+      done={(result) => `Added ${result.counts.imported} ${result.counts.imported === 1 ? 'person' : 'people'} to the waiting list, in order of when they applied.`}
     />
   );
 }

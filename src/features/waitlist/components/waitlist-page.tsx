@@ -32,7 +32,7 @@ export interface WaitlistPageProps {
   sites: Array<{ id: number; name: string }>;
 }
 
-/** The coordinator's waitlist: the queue with filters, moves and removals with reasons, import and export. */
+/** The coordinator's waiting list: the queue with filters, moves and removals with reasons, import and export. */
 export function WaitlistPage({ clubId, clubName, applyUrl, sites }: WaitlistPageProps) {
   const [status, setStatus] = useState<Status>('waiting');
   const [needs, setNeeds] = useState<Needs>('');
@@ -67,10 +67,10 @@ export function WaitlistPage({ clubId, clubName, applyUrl, sites }: WaitlistPage
 
   return (
     <>
-      <title>{`Waitlist · ${clubName} · Tillwell`}</title>
+      <title>{`Waiting list · ${clubName} · Tillwell`}</title>
       <PageHeader
         eyebrow={clubName}
-        title="Waitlist"
+        title="Waiting list"
         description="People waiting for a plot, in the order offers go out. Every move and removal keeps its reason."
         actions={
           <>
@@ -134,7 +134,7 @@ export function WaitlistPage({ clubId, clubName, applyUrl, sites }: WaitlistPage
           )}
         </PageSection>
 
-        <PageSection id="import-waitlist" title="Import a waitlist">
+        <PageSection id="import-waitlist" title="Import a waiting list">
           <Card>
             <p className="mb-5 text-stone">
               Moving from a spreadsheet? Bring your list in once, with the date each person applied, and the queue keeps

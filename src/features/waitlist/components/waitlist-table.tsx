@@ -98,7 +98,7 @@ function columns(onAction: (action: WaitlistAction, entry: WaitlistEntry) => voi
                   className="px-2.5"
                   onClick={() => onAction('remove', e)}
                   aria-label={`Remove ${e.name}`}
-                  title="Remove from the waitlist"
+                  title="Remove from the waiting list"
                 >
                   <UserMinus className="size-5" aria-hidden="true" />
                 </Button>
@@ -120,7 +120,7 @@ function columns(onAction: (action: WaitlistAction, entry: WaitlistEntry) => voi
   ];
 }
 
-/** The waitlist in queue order, with move, remove and history for each person. */
+/** The waiting list in queue order, with move, remove and history for each person. */
 export function WaitlistTable({
   entries,
   onAction,
@@ -134,9 +134,9 @@ export function WaitlistTable({
     <DataTable
       data={rows}
       columns={cols}
-      caption="Waitlist"
+      caption="Waiting list"
       filterLabel="Find a person"
-      emptyMessage="Nobody matches. Share the application form to start the waitlist."
+      emptyMessage="Nobody matches. Share the application form to start the waiting list."
       initialSorting={[{ id: 'position', desc: false }]}
       pageSizes={[25, 50, 100]}
       getRowId={(e) => String(e.id)}

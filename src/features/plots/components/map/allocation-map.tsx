@@ -38,7 +38,7 @@ import { plotName, statusClasses, statusWord } from './season-status';
 import { ScaleBar } from './scale-bar';
 import { LocalDate } from '@/lib/time-zone';
 
-/** Someone on the waitlist, as the allocation map shows them. */
+/** Someone on the waiting list, as the allocation map shows them. */
 export interface AllocationPerson extends SuggestPerson {
   name: string;
   position: number | null;
@@ -122,7 +122,7 @@ function PersonChip({ person, suggested, fitsSelected, describedBy }: { person: 
   );
 }
 
-/** The spring-round map: plots coloured and labelled by their status, and the waitlist to drag onto free plots. */
+/** The spring-round map: plots coloured and labelled by their status, and the waiting list to drag onto free plots. */
 export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer, onWithdraw }: AllocationMapProps) {
   const plotsQuery = useSitePlots(site.id);
   const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
@@ -191,7 +191,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
     onDragStart: ({ active }) => `Picked up ${labelOf(active.id)}.`,
     onDragOver: ({ active, over }) => (over ? `${labelOf(active.id)} is over ${labelOf(over.id)}.` : `${labelOf(active.id)} is over no free plot.`),
     onDragEnd: ({ active, over }) => (over ? `${labelOf(active.id)} dropped on ${labelOf(over.id)}.` : `${labelOf(active.id)} dropped outside the free plots.`),
-    onDragCancel: ({ active }) => `${labelOf(active.id)} put back on the waitlist.`,
+    onDragCancel: ({ active }) => `${labelOf(active.id)} put back on the waiting list.`,
   };
 
   if (plotsQuery.isPending) return <LoadingState label="Loading the map…" />;
@@ -227,7 +227,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
         <div className="min-w-0 space-y-3">
           <NoticeToast notice={notice} onDismiss={() => setNotice(null)} />
           <p id={`drag-help-${site.id}`} className="text-sm text-stone">
-            Drag a person from the waitlist onto a free plot to send them an offer, or select a plot and choose a person
+            Drag a person from the waiting list onto a free plot to send them an offer, or select a plot and choose a person
             below the map.
           </p>
           <div ref={wrapRef} className="overflow-auto rounded-xl border border-paper-300 bg-white">
@@ -311,7 +311,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
         </div>
         <Card className="h-fit min-w-0 p-4 lg:sticky lg:top-4">
           <h2 className="flex items-center gap-2 text-xl font-semibold">
-            <UserRound className="size-5" aria-hidden="true" /> Waitlist
+            <UserRound className="size-5" aria-hidden="true" /> Waiting list
           </h2>
           <p className="mb-3 text-sm text-stone">
             In order of application. {suggested ? `For plot ${selected?.label}, the next who fits is ${suggested.name}.` : 'Select a free plot to see who fits it.'}
