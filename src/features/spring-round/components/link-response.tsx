@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
-import { useAnswerLink, useLinkPreview, type LinkKind } from '../api/answer-link';
+import { useAnswerLink, useLinkPreview, type LinkKind, type LinkRef } from '../api/answer-link';
 import { formatDateTime } from '@/lib/format';
 
 const words = {
@@ -13,15 +13,22 @@ const words = {
   renewal: { title: 'Keep your plot?', yes: 'Keep my plot', no: 'Give it up', yesBusy: 'Saving…' },
 } as const;
 
-/** The page an offer or renewal e-mail opens: the plot, the fee and the deadline, with the two answers. */
-export function LinkResponse({ kind, token }: { kind: LinkKind; token: string }) {
-  const preview = useLinkPreview(kind, token);
-  const answer = useAnswerLink(kind, token);
+/**
+ * The page an offer or renewal e-mail opens (by its token), and the club home's renewal link opens
+ * for the signed-in holder (by the renewal's id): the plot, the fee and the deadline, with the two answers.
+ */
+export function LinkResponse({ kind, linkRef }: { kind: LinkKind; linkRef: LinkRef | null }) {
+  const ref = linkRef ?? { token: '' };
+  const preview = useLinkPreview(kind, ref);
+  const answer = useAnswerLink(kind, ref);
   const w = words[kind];
 
-  if (!token) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
+  if (!linkRef) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
   if (preview.isPending) return <LoadingState label="Opening your link…" />;
   if (preview.isError) {
+    if (isApiError(preview.error, 401)) {
+      return <ErrorState title="Please sign in first" message="Sign in, then open the renewal from your club's home page, or use the link in the e-mail." />;
+    }
     return (
       <ErrorState
         title={isApiError(preview.error, 404) ? 'We do not know this link' : 'This link cannot be used'}
