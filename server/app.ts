@@ -21,6 +21,7 @@ import { clubsRouter } from './routes/clubs';
 import { clubFeesRouter, feesRouter, myFeesRouter } from './routes/fees';
 import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
 import { membersRouter } from './routes/members';
+import { myPlotRouter } from './routes/my-plot';
 import { passwordResetsRouter } from './routes/password-resets';
 import { plotImportsRouter } from './routes/plot-imports';
 import { offersRouter } from './routes/offers';
@@ -133,6 +134,7 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/clubs/:clubId/mailings', mailingsRouter(deps));
   app.use('/api/clubs/:clubId/mail-preferences', mailPreferencesRouter(deps));
   app.use('/api/clubs/:clubId/outbox', outboxRouter(deps));
+  app.use('/api/clubs/:clubId/my-plot', myPlotRouter(deps));
   app.use('/api/clubs/:clubId/seasons', clubSeasonsRouter(deps));
   app.use('/api/seasons', seasonsRouter(deps));
   app.use('/api/offers', offersRouter(deps));

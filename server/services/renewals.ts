@@ -9,16 +9,23 @@ import { plotStillThere } from './offers';
 import { recordPlotEvent } from './plot-events';
 import { hashToken } from './tokens';
 
-async function findRenewal(db: Knex | Knex.Transaction, token: string, lock = false) {
+/**
+ * A renewal is reached by its e-mailed token, or by its id when its own holder is signed in (from the
+ * club home). Another person's id is not found, so nobody learns whose renewals exist.
+ */
+export type RenewalRef = { token: string } | { renewalId: number; userId: number };
+
+async function findRenewal(db: Knex | Knex.Transaction, ref: RenewalRef, lock = false) {
   const q = db('renewals as r')
     .join('seasons as s', 's.id', 'r.season_id')
     .join('clubs as c', 'c.id', 's.club_id')
     .join('users as u', 'u.id', 'r.user_id')
-    .where('r.token_hash', hashToken(token))
     .first('r.*', 's.year', 's.club_id', 'c.name as club_name', 'c.time_zone', 'u.name as user_name');
+  if ('token' in ref) q.where('r.token_hash', hashToken(ref.token));
+  else q.where({ 'r.id': ref.renewalId, 'r.user_id': ref.userId });
   if (lock) q.forUpdate('r');
   const row = await q;
-  if (!row) throw notFound('That renewal link');
+  if (!row) throw notFound('token' in ref ? 'That renewal link' : 'That renewal');
   return row;
 }
 
@@ -28,8 +35,8 @@ function assertOpen(row: { status: string; deadline: Date }, now: Date) {
 }
 
 /** What the renewal page shows. */
-export async function previewRenewal(db: Knex, token: string): Promise<LinkPreview> {
-  const r = await findRenewal(db, token);
+export async function previewRenewal(db: Knex, ref: RenewalRef): Promise<LinkPreview> {
+  const r = await findRenewal(db, ref);
   const quote = await quotePlotFee(db, r.club_id, r.plot_id);
   // A deposit the holder already paid carries over: only a shortfall is asked for.
   const deposit = depositDue(quote.depositMinor, await depositHeld(db, r.club_id, r.user_id));
@@ -47,10 +54,10 @@ export async function previewRenewal(db: Knex, token: string): Promise<LinkPrevi
 }
 
 /** "Keep my plot": the holder keeps it for the new season and the season's fee becomes due. */
-export async function keepPlot(db: Knex, opts: { token: string; now?: Date }) {
+export async function keepPlot(db: Knex, opts: RenewalRef & { now?: Date }) {
   const now = opts.now ?? new Date();
   return db.transaction(async (trx) => {
-    const r = await findRenewal(trx, opts.token, true);
+    const r = await findRenewal(trx, opts, true);
     assertOpen(r, now);
     if (!(await plotStillThere(trx, r.plot_id))) {
       throw new AppError('gone', 'The club has taken this plot off its map, so it cannot be kept for the new season. Please ask your coordinator about another plot.');
@@ -71,10 +78,10 @@ export async function keepPlot(db: Knex, opts: { token: string; now?: Date }) {
 }
 
 /** "Give it up": the plot is free for the waiting list. */
-export async function releasePlot(db: Knex, opts: { token: string; now?: Date }) {
+export async function releasePlot(db: Knex, opts: RenewalRef & { now?: Date }) {
   const now = opts.now ?? new Date();
   return db.transaction(async (trx) => {
-    const r = await findRenewal(trx, opts.token, true);
+    const r = await findRenewal(trx, opts, true);
     assertOpen(r, now);
     await trx('renewals').where({ id: r.id }).update({ status: 'released', answered_at: now });
     await recordPlotEvent(trx, {

@@ -20,5 +20,7 @@ export const paths = {
   fees: (clubId: number, year?: number) => `/clubs/${clubId}/fees${year ? `?year=${year}` : ''}`,
   clubSettings: (clubId: number) => `/clubs/${clubId}/settings`,
   myPlot: (clubId: number) => `/clubs/${clubId}/my-plot`,
+  /** The page a renewal e-mail opens, for the signed-in holder by the renewal's id instead of the e-mailed token. */
+  renewalAnswer: (renewalId: number) => `/respond/renewal?renewal=${renewalId}`,
   shifts: (clubId: number) => `/clubs/${clubId}/shifts`,
 };

@@ -265,6 +265,8 @@ function paramValue(name: string, x: Fixture): string | null {
     feeId: x.feeId,
     applicationId: x.applicationId,
     offerId: 1,
+    // Someone else's or no renewal: the signed-in answer routes then answer 404, never 5xx.
+    renewalId: 999999,
     messageId: 1,
     // Records that do not exist: the destructive member and invite routes then answer 404, never 5xx.
     inviteId: 999999,

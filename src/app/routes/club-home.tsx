@@ -1,5 +1,6 @@
 import { ClubHome } from '@/features/clubs/components/club-home';
 import { MyFees } from '@/features/fees/components/my-fees';
+import { MyPlot } from '@/features/plots/components/my-plot';
 import { useClubContext } from '../app-context';
 
 /** `/clubs/:clubId`: the club's home page. */
@@ -7,7 +8,9 @@ export function ClubHomeRoute() {
   const { user, club } = useClubContext();
   return (
     <>
-      <ClubHome club={club} personName={user.name} />
+      <ClubHome club={club} personName={user.name}>
+        {club.roles.includes('plot_holder') && <MyPlot clubId={club.clubId} />}
+      </ClubHome>
       {club.roles.includes('plot_holder') && <MyFees clubId={club.clubId} />}
     </>
   );

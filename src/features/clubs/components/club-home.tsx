@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import {
   BookOpen,
@@ -9,7 +10,6 @@ import {
   HandHelping,
   ListOrdered,
   Map as MapIcon,
-  Shovel,
   Users,
   type LucideIcon,
 } from 'lucide-react';
@@ -50,7 +50,6 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
       ];
     case 'plot_holder':
       return [
-        { title: 'My plot', body: 'Your plot number, size and where it sits on the map.', icon: Shovel },
         { title: 'Plot book', body: 'Note what you sowed, planted and harvested, bed by bed.', icon: BookOpen },
         { title: 'Ask for watering cover', body: 'Going away? Ask a volunteer to water while you are gone.', icon: Droplets },
       ];
@@ -99,10 +98,12 @@ function HomeCardView({ card }: { card: HomeCard }) {
 export interface ClubHomeProps {
   club: ClubMembership;
   personName: string;
+  /** What comes first under the greeting, before the cards (a holder's own plot). */
+  children?: ReactNode;
 }
 
 /** The club's home page: a greeting and one section of cards per role the person holds. */
-export function ClubHome({ club, personName }: ClubHomeProps) {
+export function ClubHome({ club, personName, children }: ClubHomeProps) {
   const roles = club.roles;
   const roleWords = roles.map((role) => roleLabels[role].toLowerCase());
   return (
@@ -118,6 +119,7 @@ export function ClubHome({ club, personName }: ClubHomeProps) {
           </p>
         }
       />
+      {children}
       <div className="flex flex-col gap-10">
         {roles.map((role) => {
           const headingId = `home-${role}`;

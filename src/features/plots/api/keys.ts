@@ -1,4 +1,4 @@
-/** Query keys for plots: `['plots']`, `['plots', 'list', { siteId }]`, `['plots', 'neighbours', { siteId }]`, `['plots', 'detail', id]`. */
+/** Query keys for plots: `['plots']`, `['plots', 'list', { siteId }]`, `['plots', 'neighbours', { siteId }]`, `['plots', 'detail', id]`, `['plots', 'mine', clubId]`. */
 export const plotsKeys = {
   all: ['plots'] as const,
   lists: () => [...plotsKeys.all, 'list'] as const,
@@ -6,4 +6,5 @@ export const plotsKeys = {
   neighbours: (filters: { siteId: number }) => [...plotsKeys.all, 'neighbours', filters] as const,
   details: () => [...plotsKeys.all, 'detail'] as const,
   detail: (id: number) => [...plotsKeys.details(), id] as const,
+  mine: (clubId: number) => [...plotsKeys.all, 'mine', clubId] as const,
 };

@@ -7,5 +7,5 @@ export const springRoundKeys = {
   detail: (id: number) => [...springRoundKeys.details(), id] as const,
   plotStates: (filters: { seasonId: number; siteId: number }) => [...springRoundKeys.all, 'plot-states', filters] as const,
   leftOut: (seasonId: number) => [...springRoundKeys.all, 'left-out', seasonId] as const,
-  link: (filters: { kind: 'offer' | 'renewal'; token: string }) => [...springRoundKeys.all, 'link', filters] as const,
+  link: (filters: { kind: 'offer' | 'renewal' } & ({ token: string } | { renewalId: number })) => [...springRoundKeys.all, 'link', filters] as const,
 };

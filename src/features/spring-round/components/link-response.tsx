@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
-import { useAnswerLink, useLinkPreview, type LinkKind } from '../api/answer-link';
+import { useAnswerLink, useLinkPreview, type LinkKind, type LinkRef } from '../api/answer-link';
 import { formatDateTime } from '@/lib/format';
 
 const words = {
@@ -38,15 +38,22 @@ export function answerOf(kind: LinkKind, param: string | null): LinkAnswer | und
   return param === w.yes ? 'yes' : param === w.no ? 'no' : undefined;
 }
 
-/** The page an offer or renewal e-mail opens: the plot, the fee and the deadline, with the two answers. */
-export function LinkResponse({ kind, token, chosen }: { kind: LinkKind; token: string; chosen?: LinkAnswer }) {
-  const preview = useLinkPreview(kind, token);
-  const answer = useAnswerLink(kind, token);
+/**
+ * The page an offer or renewal e-mail opens (by its token), and the club home's renewal link opens
+ * for the signed-in holder (by the renewal's id): the plot, the fee and the deadline, with the two answers.
+ */
+export function LinkResponse({ kind, linkRef, chosen }: { kind: LinkKind; linkRef: LinkRef | null; chosen?: LinkAnswer }) {
+  const ref = linkRef ?? { token: '' };
+  const preview = useLinkPreview(kind, ref);
+  const answer = useAnswerLink(kind, ref);
   const w = words[kind];
 
-  if (!token) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
+  if (!linkRef) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
   if (preview.isPending) return <LoadingState label="Opening your link…" />;
   if (preview.isError) {
+    if (isApiError(preview.error, 401)) {
+      return <ErrorState title="Please sign in first" message="Sign in, then open the renewal from your club's home page, or use the link in the e-mail." />;
+    }
     return (
       // A link cut short or made up (400) or unknown (404) is simply not a valid link.
       <ErrorState
@@ -119,7 +126,7 @@ export function LinkResponse({ kind, token, chosen }: { kind: LinkKind; token: s
               </Button>
             )}
             {chosen && (
-              <Link to={`?token=${encodeURIComponent(token)}&answer=${w.param[chosen === 'yes' ? 'no' : 'yes']}`} className="text-water underline">
+              <Link to={`?${'token' in ref ? `token=${encodeURIComponent(ref.token)}` : `renewal=${ref.renewalId}`}&answer=${w.param[chosen === 'yes' ? 'no' : 'yes']}`} className="text-water underline">
                 {w.instead[chosen]}
               </Link>
             )}
