@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { MAX_INT4 } from '@shared/schemas/common';
+import { IdTextSchema, MAX_INT4 } from '@shared/schemas/common';
 import type { Deps } from '../deps';
 import { parseInput } from '../errors';
 import { requireClubRole } from '../middleware/auth';
@@ -12,7 +12,7 @@ const ListQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(500).default(100),
 });
 
-const MemberParamsSchema = z.object({ userId: z.coerce.number().int().positive() });
+const MemberParamsSchema = z.object({ userId: IdTextSchema });
 const RoleParamsSchema = MemberParamsSchema.extend({ role: z.enum(roles, { message: `One of ${roles.join(', ')}` }) });
 
 /** A club's members and their roles (coordinators), mounted at /api/clubs/:clubId/members. */

@@ -106,7 +106,7 @@ describe('removing a plot that is in use', () => {
     const anon = await browserLikeAgent(t.app);
     const accepted = await anon.post('/api/offers/accept', { token });
     expect(accepted.status).toBe(410);
-    expect(accepted.body.error.message).toMatch(/taken this plot off its map.*Your place on the waitlist is kept/);
+    expect(accepted.body.error.message).toMatch(/taken this plot off its map.*Your place on the waiting list is kept/);
     expect(await t.db('allocations').where({ season_id: season.id }).count({ n: '*' })).toEqual([{ n: 0 }]);
     expect((await t.db('applications').where({ id: appId }).first('status')).status).toBe('waiting');
     expect((await t.db('offers').where({ application_id: appId }).first('status')).status).toBe('withdrawn');
@@ -161,7 +161,7 @@ describe('several offers at once', () => {
     await t.db('applications').where({ id: appId }).update({ status: 'withdrawn' });
     const res = await (await browserLikeAgent(t.app)).post('/api/offers/accept', { token });
     expect(res.status).toBe(410);
-    expect(res.body.error.message).toMatch(/not on the waitlist any more/);
+    expect(res.body.error.message).toMatch(/not on the waiting list any more/);
     expect(await t.db('allocations').count({ n: '*' })).toEqual([{ n: 0 }]);
   });
 

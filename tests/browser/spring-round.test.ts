@@ -88,10 +88,13 @@ describe('the spring round in the browser', () => {
 
     const mail = await waitForMail(mailUrl(), { to: 'ines@example.org', after: since });
     expect(mail.subject).toMatch(/^A plot for you at Mossgate Community Garden Club: A-3/);
-    const link = extractLink(mail, '/respond/offer');
+    // Two links: one to accept, one to decline, each opening its own confirm page.
+    const link = extractLink(mail, 'answer=accept');
+    expect(extractLink(mail, 'answer=decline')).not.toBe(link);
     const applicant = await openPage(suite.browser, 390);
     await applicant.page.goto(link.replace(/^http:\/\/127\.0\.0\.1:\d+/, suite.server.url));
-    await applicant.page.getByRole('heading', { name: 'A plot for you' }).waitFor();
+    await applicant.page.getByRole('heading', { name: 'Accept this plot?' }).waitFor();
+    expect(await applicant.page.getByRole('button', { name: 'Decline' }).count()).toBe(0);
     await applicant.page.getByText('£45.00 plus a refundable deposit of £15.00').waitFor();
     await applicant.shot('offer-link-phone');
     await applicant.page.getByRole('button', { name: 'Accept the plot' }).click();

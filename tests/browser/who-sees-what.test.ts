@@ -43,10 +43,10 @@ function coordinatorRequests(page: Page): string[] {
 
 /** Pages only coordinators use, with a control each offers a coordinator. */
 const coordinatorPages = (): Array<[path: string, control: (p: Page) => ReturnType<Page['getByRole']>]> => [
-  ['/spring-round', (p) => p.getByRole('button', { name: 'Open the season and send renewals' })],
+  ['/spring-round', (p) => p.getByRole('button', { name: 'Review and open the season' })],
   ['/sites', (p) => p.getByRole('heading', { name: 'Sites', exact: true })],
   [`/sites/${siteId}/edit`, (p) => p.getByRole('button', { name: 'Save changes' })],
-  ['/waitlist', (p) => p.getByRole('heading', { name: 'Waitlist', exact: true })],
+  ['/waitlist', (p) => p.getByRole('heading', { name: 'Waiting list', exact: true })],
   ['/fees', (p) => p.getByRole('heading', { name: 'Fees', exact: true })],
   ['/members', (p) => p.getByRole('link', { name: 'Invite someone' })],
   ['/messages', (p) => p.getByRole('heading', { name: 'Write a message' })],
@@ -117,8 +117,9 @@ describe('a plot holder’s own plot on the club home', () => {
     // The coordinator opens the 2027 season, so Teodor (paid for 2026) gets a renewal.
     const c = await signInAsCoordinator(suite.browser, suite.server.url, 1280);
     await c.page.goto(`${suite.server.url}/clubs/${clubId}/spring-round`);
-    await c.page.getByRole('button', { name: 'Open the season and send renewals' }).click();
-    await c.page.getByText('The 2027 season is open').waitFor();
+    await c.page.getByRole('button', { name: 'Review and open the season' }).click();
+    await c.page.getByRole('dialog', { name: 'Open the 2027 season?' }).getByRole('button', { name: /^Open and send \d+ renewals?$/ }).click();
+    await c.page.getByRole('heading', { name: 'Spring round 2027' }).waitFor();
     const teodor = await db('users').where({ email: HOLDER }).first('id');
     const renewal = await db('renewals').where({ user_id: teodor.id, status: 'pending' }).first('id', 'deadline');
 

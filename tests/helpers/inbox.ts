@@ -88,6 +88,7 @@ export async function clearMail(baseUrl: string): Promise<void> {
 
 /** Returns the first URL in the message (text part first, then HTML links) whose path contains `pathFragment`. */
 export function extractLink(message: Message, pathFragment: string): string {
+  // Matched against the path and query, so "answer=decline" picks one of two links to the same page.
   const html = message.html ?? '';
   const candidates = [...findUrls(message.text), ...findHrefs(html), ...findUrls(decodeEntities(html))];
   for (const candidate of candidates) {
@@ -97,7 +98,7 @@ export function extractLink(message: Message, pathFragment: string): string {
     } catch {
       continue;
     }
-    if ((url.protocol === 'http:' || url.protocol === 'https:') && url.pathname.includes(pathFragment)) {
+    if ((url.protocol === 'http:' || url.protocol === 'https:') && (url.pathname + url.search).includes(pathFragment)) {
       return candidate;
     }
   }
