@@ -20,3 +20,8 @@ export function firstName(name: string): string {
 export function formatDateTime(iso: string, timeZone: string): string {
   return formatDateTimeIn(iso, timeZone);
 }
+
+/** "1 holder", "3 holders": a count with the word that fits it (`many` defaults to `one` + "s"). */
+export function plural(n: number, one: string, many = `${one}s`): string {
+  return `${n} ${n === 1 ? one : many}`;
+}

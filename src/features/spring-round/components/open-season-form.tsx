@@ -13,6 +13,7 @@ import { applyServerErrors } from '@/lib/forms/server-errors';
 import { LocalDate, useTimeZone } from '@/lib/time-zone';
 import { getOpeningPreview } from '../api/get-opening-preview';
 import { useOpenSeason } from '../api/open-season';
+import { plural } from '@/lib/format';
 
 // The form takes a calendar date; the deadline is the end of that day (23:59:59) in the club's zone.
 function formSchema(timeZone: string) {
@@ -24,7 +25,6 @@ function formSchema(timeZone: string) {
 type FormSchema = ReturnType<typeof formSchema>;
 type FormInput = z.input<FormSchema>;
 
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 export interface OpenSeasonFormProps {
   clubId: number;

@@ -2,8 +2,8 @@ import { useEffect, useRef } from 'react';
 import type { Season } from '@shared/schemas/seasons';
 import { LocalDate } from '@/lib/time-zone';
 import { useLeftOut } from '../api/get-left-out';
+import { plural } from '@/lib/format';
 
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 /**
  * How the season was opened, from the server, so it still reads the same after a reload: when,

@@ -1,6 +1,6 @@
 import type { WaitlistEntry } from '@shared/schemas/applications';
+import { plural } from '@/lib/format';
 
-const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 
 /** How long someone has waited, in the unit people use: days, then weeks, then months, then years and months. */
 export function formatWaited(days: number): string {
