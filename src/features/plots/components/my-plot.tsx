@@ -49,7 +49,7 @@ export function MyPlot({ clubId }: { clubId: number }) {
                   <h3 className="font-semibold text-water-700">Keep plot {mine.data.renewal.plotLabel} for {mine.data.renewal.seasonYear}?</h3>
                   <p className="text-soil">
                     Please answer by <strong><LocalDate value={mine.data.renewal.deadline} withTime /></strong>. If you don't, the plot goes to
-                    someone on the waitlist.
+                    someone on the waiting list.
                   </p>
                 </div>
               </div>
