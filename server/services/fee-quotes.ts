@@ -4,6 +4,17 @@ import { computePlotFee, feeBalance } from '@shared/fees/compute';
 import type { Db } from '../db/knex';
 import { getFeeSchedule } from './fee-schedules';
 
+/** Whether a member pays the club's concession rate on plot fees. */
+export async function hasConcession(db: Db, clubId: number, userId: number): Promise<boolean> {
+  const row = await db('member_settings').where({ club_id: clubId, user_id: userId }).first('has_concession');
+  return row?.has_concession ?? false;
+}
+
+/** What a plot would cost this person (a member with the concession, or someone not yet a member) this season. */
+export async function quoteForPerson(db: Knex | Knex.Transaction, clubId: number, plotId: number, userId: number | null) {
+  return quotePlotFee(db, clubId, plotId, userId === null ? false : await hasConcession(db, clubId, userId));
+}
+
 /** What a plot would cost a person this season under the club's schedule. */
 export async function quotePlotFee(db: Knex | Knex.Transaction, clubId: number, plotId: number, concession = false) {
   const plot = await db('plots').where({ id: plotId }).first('x_m', 'y_m', 'width_m', 'length_m', 'rotation', 'kind');

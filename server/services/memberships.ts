@@ -3,6 +3,7 @@ import type { ClubMembership, Member, Role } from '@shared/schemas/auth';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { recordPlotEvent } from './plot-events';
+import { repriceUnpaidFees } from './fee-charges';
 
 /** The roles a person holds in one club (empty when they are not a member). */
 export async function rolesInClub(db: Db, clubId: number, userId: number): Promise<Role[]> {
@@ -55,37 +56,44 @@ export async function grantRoles(db: Db, clubId: number, userId: number, roles: 
     .ignore();
 }
 
-/** One page of a club's members with their roles, by name. */
+/** One page of a club's members with their roles and concession, by name. */
 export async function listMembers(
   db: Db,
   clubId: number,
   opts: { page: number; pageSize: number },
 ): Promise<{ items: Member[]; page: number; total: number }> {
-  const base = db('memberships as m').join('users as u', 'u.id', 'm.user_id').where('m.club_id', clubId);
-  const [{ count }] = await base.clone().countDistinct({ count: 'u.id' });
-  const rows = await base
-    .clone()
-    .groupBy('u.id')
+  const [{ count }] = await db('memberships').where({ club_id: clubId }).countDistinct({ count: 'user_id' });
+  const rows = await memberRows(db, clubId)
     .orderBy('u.name')
     .limit(opts.pageSize)
-    .offset((opts.page - 1) * opts.pageSize)
+    .offset((opts.page - 1) * opts.pageSize);
+  return { items: rows.map(toMember), page: opts.page, total: Number(count) };
+}
+
+function memberRows(db: Db, clubId: number) {
+  return db('memberships as m')
+    .join('users as u', 'u.id', 'm.user_id')
+    .leftJoin('member_settings as ms', (j) => j.on('ms.club_id', 'm.club_id').andOn('ms.user_id', 'm.user_id'))
+    .where('m.club_id', clubId)
+    .groupBy('u.id', 'ms.has_concession')
     .select(
       'u.id',
       'u.name',
       'u.email',
       db.raw('array_agg(m.role order by m.role) as roles'),
       db.raw('min(m.created_at) as joined_at'),
+      db.raw('coalesce(ms.has_concession, false) as has_concession'),
     );
+}
+
+function toMember(r: { id: number; name: string; email: string; roles: Role[]; joined_at: Date; has_concession: boolean }): Member {
   return {
-    items: rows.map((r) => ({
-      userId: r.id,
-      name: r.name,
-      email: r.email,
-      roles: r.roles,
-      joinedAt: new Date(r.joined_at).toISOString(),
-    })),
-    page: opts.page,
-    total: Number(count),
+    userId: r.id,
+    name: r.name,
+    email: r.email,
+    roles: r.roles,
+    concession: r.has_concession,
+    joinedAt: new Date(r.joined_at).toISOString(),
   };
 }
 
@@ -102,49 +110,11 @@ export async function removeMembership(
 ): Promise<void> {
   const now = opts.now ?? new Date();
   await db.transaction(async (trx) => {
-    // Serialises removals in a club, so two coordinators removing each other leave one.
+    // Serialises membership changes in a club, so two coordinators removing each other leave one.
     await trx('clubs').where({ id: opts.clubId }).forUpdate().first('id');
     const held = await rolesInClub(trx, opts.clubId, opts.userId);
     if (held.length === 0 || (opts.role && !held.includes(opts.role))) throw notFound(opts.role ? 'That role of the member' : 'The member');
-    const removing = opts.role ? [opts.role] : held;
-    if (removing.includes('coordinator')) {
-      const [{ n }] = await trx('memberships').where({ club_id: opts.clubId, role: 'coordinator' }).count({ n: '*' });
-      if (Number(n) <= 1) {
-        throw new AppError('conflict', 'A club needs at least one coordinator. Make someone else coordinator first.');
-      }
-    }
-    await trx('memberships').where({ club_id: opts.clubId, user_id: opts.userId }).whereIn('role', removing).delete();
-
-    if (removing.includes('plot_holder')) {
-      const renewals = await trx('renewals as r')
-        .join('seasons as s', 's.id', 'r.season_id')
-        .where({ 's.club_id': opts.clubId, 'r.user_id': opts.userId, 'r.status': 'pending' })
-        .select('r.id', 'r.plot_id', 's.year');
-      for (const r of renewals) {
-        await trx('renewals').where({ id: r.id }).update({ status: 'released', answered_at: now });
-        await recordPlotEvent(trx, {
-          plotId: r.plot_id,
-          userId: opts.actorId,
-          kind: 'renewal_withdrawn',
-          details: { summary: `Renewal for ${r.year} withdrawn: the holder was removed from the club` },
-        });
-      }
-      const newest = await trx('seasons').where({ club_id: opts.clubId }).orderBy('year', 'desc').first('id', 'year');
-      if (newest) {
-        const held = await trx('allocations')
-          .where({ season_id: newest.id, user_id: opts.userId, status: 'active' })
-          .select('id', 'plot_id');
-        for (const a of held) {
-          await trx('allocations').where({ id: a.id }).update({ status: 'released', released_at: now });
-          await recordPlotEvent(trx, {
-            plotId: a.plot_id,
-            userId: opts.actorId,
-            kind: 'allocation_released',
-            details: { summary: `Freed for ${newest.year}: the holder was removed from the club` },
-          });
-        }
-      }
-    }
+    await takeRoles(trx, { ...opts, removing: opts.role ? [opts.role] : held, now });
     if (!opts.role) {
       const user = await trx('users').where({ id: opts.userId }).first('email');
       await trx('invites')
@@ -155,4 +125,87 @@ export async function removeMembership(
         .update({ cancelled_at: now });
     }
   });
+}
+
+/**
+ * A coordinator's change to a member, in one transaction: the new set of roles (taking a role away
+ * has the same effects as removing it, and the club keeps a coordinator) and the concession, which
+ * also re-prices the member's fees that have nothing paid yet. Returns the member as listed.
+ */
+export async function updateMember(
+  db: Knex,
+  opts: { clubId: number; userId: number; roles?: Role[]; concession?: boolean; actorId: number; now?: Date },
+): Promise<Member> {
+  const now = opts.now ?? new Date();
+  await db.transaction(async (trx) => {
+    await trx('clubs').where({ id: opts.clubId }).forUpdate().first('id');
+    const held = await rolesInClub(trx, opts.clubId, opts.userId);
+    if (held.length === 0) throw notFound('The member');
+    if (opts.roles) {
+      const wanted = opts.roles;
+      const removing = held.filter((r) => !wanted.includes(r));
+      if (removing.length > 0) await takeRoles(trx, { ...opts, removing, now });
+      await grantRoles(trx, opts.clubId, opts.userId, wanted.filter((r) => !held.includes(r)));
+    }
+    if (opts.concession !== undefined) {
+      await trx('member_settings')
+        .insert({ club_id: opts.clubId, user_id: opts.userId, has_concession: opts.concession, updated_by_user_id: opts.actorId, updated_at: now })
+        .onConflict(['club_id', 'user_id'])
+        .merge(['has_concession', 'updated_by_user_id', 'updated_at']);
+      await repriceUnpaidFees(trx, { clubId: opts.clubId, userId: opts.userId, concession: opts.concession });
+    }
+  });
+  return getMember(db, opts.clubId, opts.userId);
+}
+
+async function getMember(db: Db, clubId: number, userId: number): Promise<Member> {
+  const [row] = await memberRows(db, clubId).where('u.id', userId);
+  if (!row) throw notFound('The member');
+  return toMember(row);
+}
+
+/** Takes roles from a member inside the caller's transaction, with what losing each role means. */
+async function takeRoles(
+  trx: Knex.Transaction,
+  opts: { clubId: number; userId: number; removing: Role[]; actorId: number; now: Date },
+): Promise<void> {
+  const { removing, now } = opts;
+  if (removing.includes('coordinator')) {
+    const [{ n }] = await trx('memberships').where({ club_id: opts.clubId, role: 'coordinator' }).count({ n: '*' });
+    if (Number(n) <= 1) {
+      throw new AppError('conflict', 'A club needs at least one coordinator. Make someone else coordinator first.');
+    }
+  }
+  await trx('memberships').where({ club_id: opts.clubId, user_id: opts.userId }).whereIn('role', removing).delete();
+
+  if (removing.includes('plot_holder')) {
+    const renewals = await trx('renewals as r')
+      .join('seasons as s', 's.id', 'r.season_id')
+      .where({ 's.club_id': opts.clubId, 'r.user_id': opts.userId, 'r.status': 'pending' })
+      .select('r.id', 'r.plot_id', 's.year');
+    for (const r of renewals) {
+      await trx('renewals').where({ id: r.id }).update({ status: 'released', answered_at: now });
+      await recordPlotEvent(trx, {
+        plotId: r.plot_id,
+        userId: opts.actorId,
+        kind: 'renewal_withdrawn',
+        details: { summary: `Renewal for ${r.year} withdrawn: the holder was removed from the club` },
+      });
+    }
+    const newest = await trx('seasons').where({ club_id: opts.clubId }).orderBy('year', 'desc').first('id', 'year');
+    if (newest) {
+      const held = await trx('allocations')
+        .where({ season_id: newest.id, user_id: opts.userId, status: 'active' })
+        .select('id', 'plot_id');
+      for (const a of held) {
+        await trx('allocations').where({ id: a.id }).update({ status: 'released', released_at: now });
+        await recordPlotEvent(trx, {
+          plotId: a.plot_id,
+          userId: opts.actorId,
+          kind: 'allocation_released',
+          details: { summary: `Freed for ${newest.year}: the holder was removed from the club` },
+        });
+      }
+    }
+  }
 }

@@ -3,7 +3,7 @@ import { deadlineAfterDays } from '@shared/dates';
 import { meetsNeeds } from '@shared/spring-round/suggest';
 import type { Db } from '../db/knex';
 import { AppError, notFound } from '../errors';
-import { quotePlotFee } from './fee-quotes';
+import { quoteForPerson } from './fee-quotes';
 
 /**
  * What offering this plot to this person would send, for the coordinator's confirm step: read
@@ -31,7 +31,7 @@ export async function quoteOffer(
   const app = await db('applications').where({ id: opts.applicationId, club_id: opts.clubId }).first();
   if (!app) throw notFound('The person on the waiting list');
   if (app.status !== 'waiting') throw new AppError('conflict', `${app.name} is no longer waiting for a plot.`);
-  const quote = await quotePlotFee(db, opts.clubId, plot.id);
+  const quote = await quoteForPerson(db, opts.clubId, plot.id, app.user_id);
   return {
     personName: app.name,
     personEmail: app.email,

@@ -8,7 +8,7 @@ import type { Mailer } from '../mail/mailer';
 import { offerMail, welcomeHolderMail } from '../mail/templates';
 import { enqueueMail, kickMail } from './outbox';
 import { createFeeForAllocation } from './fee-charges';
-import { quotePlotFee } from './fee-quotes';
+import { quoteForPerson } from './fee-quotes';
 import { plotFacts } from './link-preview';
 import { grantRoles } from './memberships';
 import { createPasswordLink } from './password-resets';
@@ -104,7 +104,7 @@ export async function createOffer(
         kind: 'offered',
         details: { summary: `Offered to ${app.name} for ${season.year}, answer by ${formatDate(deadline, season.time_zone)}` },
       });
-      const quote = await quotePlotFee(trx, season.club_id, plot.id);
+      const quote = await quoteForPerson(trx, season.club_id, plot.id, app.user_id);
       const facts = await plotFacts(trx, plot.id);
       // The offer e-mail is written with the offer, in the same transaction, and sent from the outbox.
       await enqueueMail(trx, { clubId: season.club_id, kind: 'offer' }, offerMail({
@@ -252,7 +252,7 @@ export async function lapseRenewal(trx: Knex.Transaction, r: { id: number; plot_
 /** What the offer page shows. */
 export async function previewOffer(db: Knex, token: string): Promise<LinkPreview> {
   const o = await findOffer(db, token);
-  const quote = await quotePlotFee(db, o.club_id, o.plot_id);
+  const quote = await quoteForPerson(db, o.club_id, o.plot_id, o.user_id);
   return {
     kind: 'offer',
     status: o.status,

@@ -3,7 +3,7 @@ import type { LinkPreview } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
 import { depositDue } from '@shared/fees/compute';
 import { createFeeForAllocation } from './fee-charges';
-import { depositHeld, quotePlotFee } from './fee-quotes';
+import { depositHeld, quoteForPerson } from './fee-quotes';
 import { plotFacts } from './link-preview';
 import { plotStillThere } from './offers';
 import { recordPlotEvent } from './plot-events';
@@ -37,7 +37,7 @@ function assertOpen(row: { status: string; deadline: Date }, now: Date) {
 /** What the renewal page shows. */
 export async function previewRenewal(db: Knex, ref: RenewalRef): Promise<LinkPreview> {
   const r = await findRenewal(db, ref);
-  const quote = await quotePlotFee(db, r.club_id, r.plot_id);
+  const quote = await quoteForPerson(db, r.club_id, r.plot_id, r.user_id);
   // A deposit the holder already paid carries over: only a shortfall is asked for.
   const deposit = depositDue(quote.depositMinor, await depositHeld(db, r.club_id, r.user_id));
   return {

@@ -111,6 +111,25 @@ export const MemberSchema = z.object({
   name: z.string(),
   email: z.string(),
   roles: z.array(RoleSchema),
+  /** Pays the club's concession rate on plot fees. */
+  concession: z.boolean(),
   joinedAt: z.string(),
 });
 export type Member = z.infer<typeof MemberSchema>;
+
+/** A coordinator's change to a member: the whole set of roles, and or the concession. */
+export const MemberUpdateBodySchema = z
+  .strictObject({
+    roles: z
+      .array(RoleSchema)
+      .min(1, 'Keep at least one role, or remove the member from the club')
+      .max(roles.length, `Choose at most ${roles.length} roles`)
+      .refine((list) => new Set(list).size === list.length, 'Choose each role once')
+      .optional(),
+    concession: z.boolean({ message: 'true or false' }).optional(),
+  })
+  .refine((body) => body.roles !== undefined || body.concession !== undefined, {
+    message: 'Send roles, concession or both',
+    path: ['roles'],
+  });
+export type MemberUpdateBody = z.infer<typeof MemberUpdateBodySchema>;

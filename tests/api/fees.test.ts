@@ -48,13 +48,13 @@ async function seasonOf(clubId: number, year: number) {
 }
 
 /** Allocates a plot to a person for a season and creates its fee the way accepting an offer does. */
-async function allocateWithFee(opts: { clubId: number; plotId: number; userId: number; year?: number; concession?: boolean; now?: Date }) {
+async function allocateWithFee(opts: { clubId: number; plotId: number; userId: number; year?: number; now?: Date }) {
   const seasonId = await seasonOf(opts.clubId, opts.year ?? 2027);
   return t.db.transaction(async (trx) => {
     const [a] = await trx('allocations')
       .insert({ season_id: seasonId, plot_id: opts.plotId, user_id: opts.userId, source: 'offer' })
       .returning('id');
-    return createFeeForAllocation(trx, { allocationId: a.id, concession: opts.concession, now: opts.now });
+    return createFeeForAllocation(trx, { allocationId: a.id, now: opts.now });
   });
 }
 
@@ -126,7 +126,7 @@ describe('fee schedule', () => {
 
 describe('fee amounts', () => {
   it('charges an area-based fee in minor units: 3 × 6 m at 2.50 a m² is 4500, concession half of it', async () => {
-    const { club, holder, feeId, siteId } = await clubWithFee();
+    const { club, holder, feeId, siteId, c } = await clubWithFee();
     // 18 m² × 250 = 4500 (computed); the deposit is never discounted.
     expect(await t.db('fees').where({ id: feeId }).first('plot_fee_minor', 'deposit_minor', 'currency', 'is_concession')).toEqual({
       plot_fee_minor: 4500,
@@ -135,7 +135,9 @@ describe('fee amounts', () => {
       is_concession: false,
     });
     const other = await buildPlot(siteId, { label: 'A-2', x: 4 });
-    const concessionFee = await allocateWithFee({ clubId: club.id, plotId: other, userId: holder.id, concession: true });
+    // The coordinator gives the holder the concession: new fees use the concession rate.
+    await c.patch(`/api/clubs/${club.id}/members/${holder.id}`, { concession: true }).expect(200);
+    const concessionFee = await allocateWithFee({ clubId: club.id, plotId: other, userId: holder.id });
     // 4500 × 50 % = 2250 (computed).
     expect((await t.db('fees').where({ id: concessionFee }).first()).plot_fee_minor).toBe(2250);
   });
@@ -150,14 +152,17 @@ describe('fee amounts', () => {
   });
 
   it('charges a kind-based fee from the price of the kind of plot', async () => {
-    const { club, holder, siteId } = await clubWithFee({ basis: 'kind' });
+    const { club, holder, siteId, c } = await clubWithFee({ basis: 'kind' });
     const bed = await buildPlot(siteId, { label: 'R-1', x: 10, width: 1.2, length: 2.4, kind: 'raised_bed' });
     const pot = await buildPlot(siteId, { label: 'K-1', x: 15, width: 1, length: 1, kind: 'container' });
     const bedFee = await allocateWithFee({ clubId: club.id, plotId: bed, userId: holder.id });
-    const potFee = await allocateWithFee({ clubId: club.id, plotId: pot, userId: holder.id, concession: true });
     expect((await t.db('fees').where({ id: bedFee }).first()).plot_fee_minor).toBe(2500);
+    await c.patch(`/api/clubs/${club.id}/members/${holder.id}`, { concession: true }).expect(200);
+    const potFee = await allocateWithFee({ clubId: club.id, plotId: pot, userId: holder.id });
     // 800 × 50 % = 400 (computed).
     expect((await t.db('fees').where({ id: potFee }).first()).plot_fee_minor).toBe(400);
+    // The bed's fee had nothing paid, so the concession re-priced it: 2500 × 50 % = 1250 (computed).
+    expect(await t.db('fees').where({ id: bedFee }).first('plot_fee_minor', 'is_concession')).toEqual({ plot_fee_minor: 1250, is_concession: true });
   });
 });
 
