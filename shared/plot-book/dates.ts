@@ -42,12 +42,10 @@ export function daysBetween(from: string, to: string): number {
   return differenceInCalendarDays(day(to), day(from));
 }
 
-/**
- * The first date on or after `onOrAfter` that has the month and day of `frostDate`: a site's frost
- * dates are averages that recur each year, so only their month and day count (29 February is 28
- * February in other years). This is what lets a southern site's spring frost in September and
- * autumn frost in April work without knowing the hemisphere.
- */
+// A site's frost dates are averages that recur each year, so only their month and day count
+// (29 February is 28 February in other years); that lets a southern site's spring frost in
+// September and autumn frost in April work without knowing the hemisphere.
+/** The first date on or after `onOrAfter` that has the month and day of `frostDate`. */
 export function nextOccurrence(frostDate: string, onOrAfter: string): string {
   const frost = day(frostDate);
   const from = day(onOrAfter);
