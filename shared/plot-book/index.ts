@@ -1,0 +1,4 @@
+export * from './spacing';
+export * from './emergence';
+export * from './dates';
+export * from './harvest';
