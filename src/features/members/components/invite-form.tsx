@@ -9,12 +9,7 @@ import { TextField } from '@/components/ui/field';
 import { LocalDate } from '@/lib/time-zone';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useCreateInvite } from '../api/create-invite';
-
-const roleHints = {
-  coordinator: 'Runs the club: map, members, rounds.',
-  plot_holder: 'Keeps a plot and its plot book.',
-  volunteer: 'Takes watering and weeding shifts.',
-} as const;
+import { roleHints } from './role-badges';
 
 /** Name, e-mail and roles; the server e-mails the invite link. */
 export function InviteForm({ clubId }: { clubId: number }) {

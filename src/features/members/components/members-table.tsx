@@ -3,7 +3,9 @@ import type { ColumnDef } from '@tanstack/react-table';
 import type { Member } from '@shared/schemas/auth';
 import { DataTable } from '@/components/ui/data-table';
 import { LocalDate } from '@/lib/time-zone';
+import { Badge } from '@/components/ui/badge';
 import { MemberActions } from './member-actions';
+import { MemberChange } from './member-change';
 import { RoleBadges, rolesText } from './role-badges';
 
 const baseColumns: ColumnDef<Member>[] = [
@@ -26,6 +28,12 @@ const baseColumns: ColumnDef<Member>[] = [
     cell: ({ row }) => <RoleBadges roles={row.original.roles} />,
   },
   {
+    id: 'fee',
+    header: 'Fee rate',
+    accessorFn: (member) => (member.concession ? 'Concession' : 'Full'),
+    cell: ({ row }) => (row.original.concession ? <Badge tone="straw">Concession</Badge> : <span className="text-stone">Full</span>),
+  },
+  {
     id: 'joined',
     header: 'Joined',
     // ISO strings sort in date order; filtering them would match digits nobody sees, so it is off.
@@ -45,7 +53,12 @@ export function MembersTable({ clubId, members }: { clubId: number; members: Mem
         header: 'Actions',
         enableSorting: false,
         enableGlobalFilter: false,
-        cell: ({ row }) => <MemberActions clubId={clubId} member={row.original} />,
+        cell: ({ row }) => (
+          <div className="flex flex-wrap gap-2">
+            <MemberChange clubId={clubId} member={row.original} />
+            <MemberActions clubId={clubId} member={row.original} />
+          </div>
+        ),
       },
     ],
     [clubId],

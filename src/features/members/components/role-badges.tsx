@@ -1,6 +1,13 @@
 import { roleLabels, type Role } from '@shared/schemas/auth';
 import { Badge } from '@/components/ui/badge';
 
+/** What each role lets a person do, in a few words, beside a role's checkbox. */
+export const roleHints = {
+  coordinator: 'Runs the club: map, members, rounds.',
+  plot_holder: 'Keeps a plot and its plot book.',
+  volunteer: 'Takes watering and weeding shifts.',
+} as const;
+
 /** Role names as plain text, for sorting, filtering and sentences. */
 export function rolesText(roles: readonly Role[]): string {
   return roles.map((role) => roleLabels[role]).join(', ');
