@@ -34,6 +34,11 @@ export async function seed(knex: Knex): Promise<void> {
   await knex.raw('truncate table memberships, invites, password_resets, users, clubs restart identity cascade');
   const mossgate = await buildClub(knex, { name: 'Mossgate Community Garden Club', slug: 'mossgate' });
   const cinder = await buildClub(knex, { name: 'Cinder Lane Growers', slug: 'cinder-lane' });
+  // What the public application form tells applicants (club settings); the fee matches the demo schedule.
+  await knex('clubs').where({ id: mossgate.id }).update({
+    fee_note: '£2.50 a square metre a season (a 3 × 6 m plot is £45), half for concessions, plus a £15 deposit returned when you leave.',
+    typical_wait: 'About a year; sooner for a raised bed.',
+  });
   const clubIds = { mossgate: mossgate.id, cinder: cinder.id };
   for (const p of demoPeople) {
     const user = await buildUser(knex, { name: p.name, email: p.email, password: DEMO_PASSWORD });

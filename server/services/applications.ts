@@ -68,18 +68,18 @@ export async function clubOfApplication(db: Db, applicationId: number): Promise<
 }
 
 async function clubBySlug(db: Db, slug: string) {
-  const club: { id: number; name: string; offer_days: number } | undefined = await db('clubs')
+  const club: { id: number; name: string; offer_days: number; fee_note: string | null; typical_wait: string | null } | undefined = await db('clubs')
     .where({ slug })
-    .first('id', 'name', 'offer_days');
+    .first('id', 'name', 'offer_days', 'fee_note', 'typical_wait');
   if (!club) throw notFound('The club');
   return club;
 }
 
-/** What the public application form shows: the club's name and its sites. */
+/** What the public application form shows: the club's name, its sites, and its notes on fees and waiting. */
 export async function applyInfo(db: Db, slug: string): Promise<ApplyInfo> {
   const club = await clubBySlug(db, slug);
   const sites = await db('sites').where({ club_id: club.id }).orderBy('name').select('id', 'name');
-  return { clubName: club.name, sites };
+  return { clubName: club.name, sites, feeNote: club.fee_note, typicalWait: club.typical_wait };
 }
 
 const waitingCount = async (db: Db, clubId: number) =>

@@ -31,6 +31,9 @@ export type ApplicationBody = z.infer<typeof ApplicationBodySchema>;
 export const ApplyInfoSchema = z.object({
   clubName: z.string(),
   sites: z.array(z.object({ id: z.number().int(), name: z.string() })),
+  /** What a plot costs and how long people wait, in the club's own words (club settings); null when not said. */
+  feeNote: z.string().nullable(),
+  typicalWait: z.string().nullable(),
 });
 export type ApplyInfo = z.infer<typeof ApplyInfoSchema>;
 

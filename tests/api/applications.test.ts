@@ -56,6 +56,10 @@ describe('the public application form', () => {
     expect(res.status).toBe(200);
     expect(res.body.clubName).toBe('Elm Row Growers');
     expect(res.body.sites.map((s: { name: string }) => s.name)).toEqual(['East beds', 'West allotments']);
+    expect(res.body).toMatchObject({ feeNote: null, typicalWait: null });
+    // The club's own notes for applicants (club settings) are on the public form.
+    await coordinator.patch(`/api/clubs/${club.id}`, { feeNote: 'From £25 a year', typicalWait: 'About a year' }).expect(200);
+    expect((await visitor.get('/api/apply/elm-row')).body).toMatchObject({ feeNote: 'From £25 a year', typicalWait: 'About a year' });
     expect((await visitor.get('/api/apply/no-such-club')).status).toBe(404);
   });
 

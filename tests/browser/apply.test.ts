@@ -36,6 +36,12 @@ describe('applying for a plot and the waitlist', () => {
   it('a person fills the public form on a phone and sees their place on the waitlist', async () => {
     const w = await openPage(suite.browser, 390);
     await fillApplication(w.page, { name: 'Pat Newcomer', email: 'pat.newcomer@example.org', raised: true });
+    // The club's notes on fees and waiting (club settings, set in the demo data) are on the form.
+    const notes = await db('clubs').where({ slug: 'mossgate' }).first('fee_note', 'typical_wait');
+    const facts = w.page.locator('dl').filter({ hasText: 'What a plot costs' });
+    await facts.getByText(notes.fee_note, { exact: true }).waitFor();
+    await facts.getByText(notes.typical_wait, { exact: true }).waitFor();
+    expect(notes.fee_note).toContain('£');
     await w.page.getByLabel('Preferred site (optional)').selectOption({ index: 1 });
     // The honeypot is out of sight and out of the tab order.
     const honeypot = w.page.locator('input[tabindex="-1"][autocomplete="off"]');
@@ -128,15 +134,22 @@ describe('applying for a plot and the waitlist', () => {
     await dialog.getByRole('button', { name: 'Close' }).click();
     await w.page.waitForFunction(() => !document.querySelector('dialog[open]'));
 
+    const ben = await db('users').where({ email: 'ben@example.org' }).first('id');
+    await db('mail_preferences').insert({ user_id: ben.id, club_id: club.id, topic: 'club_news', is_subscribed: false });
     await (await mainNav(w.page)).getByRole('link', { name: 'Messages' }).click();
     await w.page.getByRole('heading', { name: 'Messages', exact: true }).waitFor();
     await w.page.getByLabel('Subject').fill('Work morning on Saturday');
     await w.page.getByLabel('Message', { exact: true }).fill('Bring gloves.\n\nTea from ten.');
     await w.page.getByRole('button', { name: 'Review and send' }).click();
     await w.page.getByText('goes to everyone in the club').waitFor();
+    // The confirm step says how many people it reaches before anything is sent: every member but Ben, who opted out.
+    const members = await db('memberships').where({ club_id: club.id }).countDistinct({ n: 'user_id' });
+    const reach = Number(members[0].n) - 1;
+    await w.page.getByText(`It will reach ${reach} people; 1 turned club news off and will be skipped.`).waitFor();
+    await w.shot('messages-confirm-phone');
     const after = Date.now();
-    await w.page.getByRole('button', { name: 'Send now' }).click();
-    await w.page.getByText('Message sent').waitFor();
+    await w.page.getByRole('button', { name: `Send to ${reach} people` }).click();
+    await w.page.getByText(`On its way to ${reach} of ${reach} people`).waitFor();
     await w.page.setViewportSize({ width: 1280, height: 860 });
     await w.shot('messages-desktop');
     await w.page.setViewportSize({ width: 390, height: 860 });

@@ -10,6 +10,8 @@ import { TextAreaField, TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useSendMailing } from '../api/send-mailing';
+import { useMailingAudience } from '../api/get-mailing-audience';
+import { plural } from '@/lib/format';
 
 // The form keeps the audience flat (a kind, a year, a site) and builds the API's audience on submit.
 const FormSchema = z
@@ -60,6 +62,8 @@ export function MailingForm({ clubId, sites }: { clubId: number; sites: Array<{ 
     defaultValues: { subject: '', body: '', kind: 'all_members', year: new Date().getFullYear(), siteId: null },
   });
   const kind = useWatch({ control, name: 'kind' });
+  const count = useMailingAudience(clubId, pending?.audience ?? null);
+  const reach = count.data;
   // Any edit after "Review" means reviewing again, so what is confirmed is what is sent.
   useEffect(() => subscribe({ formState: { values: true }, callback: () => setPending(null) }), [subscribe]);
 
@@ -145,10 +149,24 @@ export function MailingForm({ clubId, sites }: { clubId: number; sites: Array<{ 
             “{pending.subject}” goes to {audienceText(pending.audience, sites)}. Each person gets their own e-mail; people who
             turned club news off are skipped.
           </p>
+          <p className="mt-2 font-medium" aria-live="polite">
+            {count.isPending
+              ? 'Counting who it reaches…'
+              : count.isError
+                ? 'The number of people could not be counted just now; the message can still be sent.'
+                : reach!.recipients + reach!.skipped === 0
+                  ? 'Nobody is in that audience at the moment.'
+                  : `It will reach ${plural(reach!.recipients, 'person', 'people')}${reach!.skipped > 0 ? `; ${reach!.skipped} turned club news off and will be skipped` : ''}.`}
+          </p>
           <div className="mt-3 flex flex-wrap gap-3">
-            <Button onClick={onSend} loading={send.isPending} loadingText="Sending…">
+            <Button
+              onClick={onSend}
+              loading={send.isPending}
+              loadingText="Sending…"
+              disabled={count.isPending || reach?.recipients === 0}
+            >
               <Send className="size-5" aria-hidden="true" />
-              Send now
+              {reach && reach.recipients > 0 ? `Send to ${plural(reach.recipients, 'person', 'people')}` : 'Send now'}
             </Button>
             <Button variant="secondary" onClick={() => setPending(null)} disabled={send.isPending}>
               Change something

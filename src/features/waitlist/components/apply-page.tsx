@@ -57,7 +57,7 @@ export function ApplyPage({ slug }: { slug: string }) {
     );
   }
 
-  const { clubName } = info.data;
+  const { clubName, feeNote, typicalWait } = info.data;
   return (
     <>
       <title>{`Apply for a plot · ${clubName} · Tillwell`}</title>
@@ -72,6 +72,22 @@ export function ApplyPage({ slug }: { slug: string }) {
               Join the waiting list. We e-mail you your place straight away, and again when a plot is free for you.
             </p>
           </div>
+          {(feeNote || typicalWait) && (
+            <dl className="grid gap-3 rounded-xl border border-paper-200 bg-white p-4 sm:grid-cols-2">
+              {feeNote && (
+                <div>
+                  <dt className="text-sm font-semibold text-stone">What a plot costs</dt>
+                  <dd>{feeNote}</dd>
+                </div>
+              )}
+              {typicalWait && (
+                <div>
+                  <dt className="text-sm font-semibold text-stone">How long people wait</dt>
+                  <dd>{typicalWait}</dd>
+                </div>
+              )}
+            </dl>
+          )}
           <ApplyForm slug={slug} info={info.data} onApplied={setReceipt} />
         </div>
       )}
