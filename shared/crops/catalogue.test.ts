@@ -228,6 +228,8 @@ describe('cited rows against the data', () => {
     ['sweet-corn', 50, 60, 95, 105], ['cucumber', 60, 60, 95, 105], ['lettuce', 35, 40, 80, 95], ['onion', 35, 50, 95, 95],
     ['pea', 40, 40, 75, 85], ['sweet-pepper', 60, 65, 95, 95], ['radish', 40, 45, 90, 95], ['spinach', 35, 45, 75, 85],
     ['zucchini', 60, 70, 95, 100], ['winter-squash', 60, 70, 95, 100], ['tomato', 50, 60, 85, 95], ['turnip', 40, 60, 105, 105],
+    // Rows read on the OSU page itself through the search tool (not in sources.md).
+    ['chard', 40, 50, 85, 95], ['eggplant', 60, 75, 90, 95], ['parsley', 40, 50, 85, 90], ['parsnip', 35, 50, 70, 85],
   ];
   it.each(osu)('OSU germination: %s %s / %s–%s / %s °F', (slug, min, lo, hi, max) => {
     const g = crop(slug).germination;
@@ -246,6 +248,31 @@ describe('cited rows against the data', () => {
     const e = crop(slug).emergenceByTemperature;
     expect(e?.source).toBe('harrington-emergence');
     expect(e?.value).toEqual(days);
+  });
+
+  // The OSU page's days-to-seedlings table (seed at ½ in), read through the search tool.
+  const osuEmergence: [string, (number | null)[]][] = [
+    ['cabbage', [15, 9, 6, 4, 3]], ['sweet-corn', [22, 12, 7, 4, 4]], ['cucumber', [null, 13, 6, 4, 3]],
+  ];
+  it.each(osuEmergence)('OSU days to seedlings at 50/59/68/77/86 °F: %s', (slug, days) => {
+    const e = crop(slug).emergenceByTemperature;
+    expect(e?.source).toBe('osu-germination');
+    expect(e?.value).toEqual(days);
+  });
+
+  // [crop, °F, RH low, RH high, months low, months high]
+  const umass: [string, number, number, number, number, number][] = [
+    ['beet', 32, 95, 95, 4, 6], ['turnip', 32, 95, 95, 4, 5], ['cabbage', 32, 98, 100, 4, 6],
+    ['carrot', 32, 98, 100, 5, 9], ['garlic', 32, 65, 70, 6, 7], ['parsnip', 32, 90, 95, 2, 6],
+  ];
+  it.each(umass)('UMass storage: %s at %s °F, %s–%s %% RH, %s–%s months', (slug, f, hLo, hHi, mLo, mHi) => {
+    const st = crop(slug).storage;
+    expect(st.source).toBe('umass-storage');
+    expect(st.value.temperatureC.min).toBeCloseTo(f2c(f), 6);
+    expect(st.value.temperatureC.max).toBeCloseTo(f2c(f), 6);
+    expect(st.value.humidityPct).toEqual({ min: hLo, max: hHi });
+    // A month is taken as 30 days (the note says so).
+    expect(st.value.days).toEqual({ min: mLo * 30, max: mHi * 30 });
   });
 
   // [crop, min days, max days, from]

@@ -71,6 +71,19 @@ function stages(initial: number, development: number, mid: number, late: number,
 const faoHeight = (m: number, row: string) =>
   sourced(r(m * 100), 'fao56-table12', `Table 12 maximum crop height, row '${row}', printed as ${m} m`);
 
+/** A storage row of the UMass table, printed in °F, per cent RH and months. */
+function umass(tF: number, hLo: number, hHi: number, mLo: number, mHi: number, row: string): Sourced<Storage> {
+  const rh = hLo === hHi ? `${hLo} %` : `${hLo}–${hHi} %`;
+  return sourced(
+    store(fahrenheitToCelsius(tF), fahrenheitToCelsius(tF), hLo, hHi, mLo * 30, mHi * 30),
+    'umass-storage',
+    `row '${row}', printed as ${tF} °F, ${rh} RH, ${mLo}–${mHi} months (a month taken as 30 days)`,
+  );
+}
+/** The OSU page's second table: days to seedlings at 50/59/68/77/86 °F, seed at ½ in. */
+const osuEmergence = (t: EmergenceTable, row: string): Sourced<EmergenceTable> =>
+  sourced(t, 'osu-germination', `days-to-seedlings table, row '${row}', at 50/59/68/77/86 °F`);
+
 const wvuFamily = (family: string, note?: string) => sourced(family, 'wvu-rotation', note);
 const AMARANTH = 'formerly Chenopodiaceae';
 const AMARYLLID = 'formerly Alliaceae';
@@ -182,7 +195,7 @@ export const crops: Crop[] = [
     frost: mem('hardy'),
     feeding: mem('moderate'),
     sideDressing: mem(NO_SIDE_DRESSING),
-    storage: mem(store(0, 0, 90, 95, 120, 150)),
+    storage: umass(32, 95, 95, 4, 5, 'Beet, Radish, Turnip & Rutabaga (turnips)'),
     watchFor: ['flea-beetles', 'cabbage-root-fly', 'aphids', 'clubroot'],
     guidance: guide({
       sowing: 'Sow thinly in spring or late summer; autumn turnips are sweeter after a light frost.',
@@ -204,7 +217,11 @@ export const crops: Crop[] = [
     sowingDepthCm: umaine(0.5, 0.5, '½ in', 'beets'),
     sowing: cp('direct'),
     daysToEmergence: mem(r(5, 10)),
-    emergenceByTemperature: harrington([17, 10, 6, 5, 5], 'beet'),
+    emergenceByTemperature: sourced(
+      [17, 10, 6, 5, 5] as EmergenceTable,
+      'harrington-emergence',
+      "row 'beet', days at 50/59/68/77/86 °F; the OSU page prints 4 days at 86 °F",
+    ),
     germination: osu(40, 50, 85, 95, 'beet'),
     daysToMaturity: britannica(60, 70, 'sowing', 'beet'),
     soilPh: mem(r(6.0, 7.5)),
@@ -216,7 +233,7 @@ export const crops: Crop[] = [
     sideDressing: mem(feed(3, 4)),
     kc: kc(0.5, 1.05, 0.95, 0.95, 'table beet'),
     stages: stages(15, 25, 20, 10, 'beets'),
-    storage: mem(store(0, 0, 90, 95, 90, 150)),
+    storage: umass(32, 95, 95, 4, 6, 'Beet, Radish, Turnip & Rutabaga (beets)'),
     watchFor: ['cercospora-leaf-spot', 'leaf-miners', 'aphids'],
     guidance: guide({
       sowing: 'Each beet "seed" is a cluster of seeds; sow them 5–8 cm apart and expect several seedlings from each.',
@@ -239,7 +256,7 @@ export const crops: Crop[] = [
     sowingDepthCm: mem(r(1.3, 2.5)),
     sowing: mem('either'),
     daysToEmergence: mem(r(5, 10)),
-    germination: mem(germ(5, 10, 29, 35), 'taken as close to the beet row'),
+    germination: osu(40, 50, 85, 95, 'Chard, Swiss'),
     daysToMaturity: mem(maturity(50, 60, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: mem(r(30, 45)),
@@ -314,7 +331,7 @@ export const crops: Crop[] = [
     sideDressing: mem(feed(4, 6)),
     kc: kc(0.7, 1.05, 0.95, 0.95, 'carrots'),
     stages: stages(20, 30, 30, 20, 'carrots'),
-    storage: mem(store(0, 0, 98, 100, 120, 150)),
+    storage: umass(32, 98, 100, 5, 9, 'Carrot'),
     watchFor: ['carrot-fly', 'aphids', 'root-knot-nematodes'],
     guidance: guide({
       sowing: 'Sow thinly in fine, stone-free soil; seed is slow to come up, so keep the surface moist until it does.',
@@ -336,7 +353,7 @@ export const crops: Crop[] = [
     sowingDepthCm: mem(r(1.3, 1.3)),
     sowing: mem('direct'),
     daysToEmergence: mem(r(14, 28)),
-    germination: mem(germ(2, 10, 21, 30)),
+    germination: osu(35, 50, 70, 85, 'Parsnip'),
     daysToMaturity: mem(maturity(100, 130, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: mem(r(45, 60)),
@@ -345,7 +362,7 @@ export const crops: Crop[] = [
     frost: mem('hardy'),
     feeding: mem('moderate'),
     sideDressing: mem(NO_SIDE_DRESSING),
-    storage: mem(store(0, 0, 90, 95, 120, 180)),
+    storage: umass(32, 90, 95, 2, 6, 'Parsnip'),
     watchFor: ['carrot-fly', 'aphids'],
     guidance: guide({
       sowing: 'Use fresh seed each year; it loses vigour fast. Sow in spring once the soil is workable and expect a slow start.',
@@ -367,7 +384,11 @@ export const crops: Crop[] = [
     sowingDepthCm: mem(r(0.3, 0.6)),
     sowing: mem('either'),
     daysToEmergence: mem(r(4, 10)),
-    emergenceByTemperature: harrington([7, 4, 3, 2, 3], 'lettuce'),
+    emergenceByTemperature: sourced(
+      [7, 4, 3, 2, 3] as EmergenceTable,
+      'harrington-emergence',
+      "row 'lettuce', days at 50/59/68/77/86 °F; the OSU page prints 2 days at 86 °F",
+    ),
     germination: osu(35, 40, 80, 95, 'lettuce'),
     daysToMaturity: britannica(60, 80, 'transplanting', 'lettuce'),
     soilPh: mem(r(6.0, 7.0)),
@@ -402,6 +423,7 @@ export const crops: Crop[] = [
     sowingDepthCm: mem(r(0.6, 1.3), 'seed depth in the nursery row; UMaine prints "transplant"'),
     sowing: sourced('transplant', 'umaine-planting-chart', "row 'cabbage', printed as 'transplant'"),
     daysToEmergence: mem(r(4, 10)),
+    emergenceByTemperature: osuEmergence([15, 9, 6, 4, 3], 'Cabbage'),
     germination: osu(40, 45, 95, 100, 'cabbage'),
     daysToMaturity: britannica(70, 100, 'transplanting', 'cabbage'),
     soilPh: mem(r(6.0, 7.5)),
@@ -413,7 +435,7 @@ export const crops: Crop[] = [
     sideDressing: mem(feed(3, 4), 'weeks after transplanting'),
     kc: kc(0.7, 1.05, 0.95, 0.95, 'cabbage'),
     stages: stages(40, 60, 50, 15, 'cabbage'),
-    storage: mem(store(0, 0, 98, 100, 90, 180), 'late varieties'),
+    storage: umass(32, 98, 100, 4, 6, 'Cabbage'),
     watchFor: ['cabbage-caterpillars', 'aphids', 'flea-beetles', 'cabbage-root-fly', 'clubroot', 'black-rot', 'blackleg'],
     guidance: guide({
       sowing: 'Raise in modules and plant out firmly when plants have four or five true leaves.',
@@ -600,7 +622,7 @@ export const crops: Crop[] = [
     sowingDepthCm: mem(r(0.6, 0.6)),
     sowing: mem('transplant'),
     daysToEmergence: mem(r(7, 14)),
-    germination: mem(germ(16, 24, 32, 35)),
+    germination: osu(60, 75, 90, 95, 'Eggplant'),
     daysToMaturity: mem(maturity(60, 80, 'transplanting')),
     soilPh: mem(r(6.0, 6.8)),
     rootingDepthCm: mem(r(45, 60)),
@@ -631,6 +653,7 @@ export const crops: Crop[] = [
     sowingDepthCm: umaine(0.75, 0.75, '¾ in', 'cucumbers'),
     sowing: mem('either'),
     daysToEmergence: mem(r(3, 10)),
+    emergenceByTemperature: osuEmergence([null, 13, 6, 4, 3], 'Cucumber'),
     germination: osu(60, 60, 95, 105, 'cucumber'),
     daysToMaturity: britannica(50, 70, 'sowing', 'cucumber'),
     soilPh: mem(r(6.0, 7.0)),
@@ -797,6 +820,7 @@ export const crops: Crop[] = [
     sowingDepthCm: umaine(1, 1, '1 in', 'corn'),
     sowing: cp('direct'),
     daysToEmergence: mem(r(5, 10)),
+    emergenceByTemperature: osuEmergence([22, 12, 7, 4, 4], 'Corn'),
     germination: osu(50, 60, 95, 105, 'corn'),
     daysToMaturity: britannica(75, 100, 'sowing', 'sweet corn'),
     soilPh: mem(r(6.0, 6.8)),
@@ -872,7 +896,7 @@ export const crops: Crop[] = [
     feeding: mem('moderate'),
     sideDressing: mem({ needed: true }, 'once in early spring'),
     kc: kc(0.7, 1.0, 0.7, 0.7, 'garlic'),
-    storage: mem(store(0, 0, 65, 70, 150, 210)),
+    storage: umass(32, 65, 70, 6, 7, 'Garlic'),
     watchFor: ['onion-white-rot', 'onion-fly', 'onion-thrips'],
     guidance: guide({
       sowing: 'Plant cloves pointed end up in autumn; they need a cold spell to split into bulbs.',
@@ -956,7 +980,7 @@ export const crops: Crop[] = [
     sowingDepthCm: mem(r(0.6, 0.6)),
     sowing: mem('either'),
     daysToEmergence: mem(r(14, 28)),
-    germination: mem(germ(4, 10, 29, 32)),
+    germination: osu(40, 50, 85, 90, 'Parsley'),
     daysToMaturity: mem(maturity(70, 90, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: mem(r(30, 45)),

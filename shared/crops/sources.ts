@@ -30,8 +30,11 @@ export const cropSources: CropSource[] = [
   {
     id: 'osu-germination',
     title:
-      'Oregon State University Extension, Soil temperature conditions for vegetable seed germination (after J. F. Harrington)',
+      'Oregon State University Extension, Soil temperature conditions for vegetable seed germination (J. F. Harrington; published April 2013, reviewed 2024)',
     evidence: 'published',
+    // Read through the search tool: the chard, eggplant, parsley and parsnip rows and the
+    // days-to-seedlings rows for cabbage, corn and cucumber come from this page.
+    url: 'https://extension.oregonstate.edu/gardening/soil-compost/soil-temperature-conditions-vegetable-seed-germination',
   },
   {
     id: 'harrington-emergence',
@@ -43,6 +46,13 @@ export const cropSources: CropSource[] = [
     id: 'britannica-maturity',
     title: 'Encyclopaedia Britannica, Vegetable farming: harvesting (days to maturity)',
     evidence: 'published',
+  },
+  {
+    id: 'umass-storage',
+    title: 'UMass Amherst Extension Vegetable Program, Optimal storage conditions and ethylene sensitivity of fall storage crops',
+    evidence: 'published',
+    // Read through the search tool.
+    url: 'https://ag.umass.edu/node/23531',
   },
   {
     id: 'wvu-rotation',
