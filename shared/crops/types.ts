@@ -127,6 +127,8 @@ export interface PestOrDisease {
   kind: 'pest' | 'disease';
   /** True for soil-borne diseases: an observation is kept against the soil for rotation. */
   soilBorne: boolean;
+  /** Source of the soil-borne flag (added: the flag changes rotation, so it must say where it came from). */
+  source?: string;
 }
 
 /** A soil-borne disease that extends the rotation gap for the families (or crops) it names. */
@@ -138,6 +140,8 @@ export interface DiseaseRotationRule {
   crops?: string[];
   years: Sourced<number>;
   note?: string;
+  /** What keeps the disease down without clearing the soil, with its own source (added for clubroot liming). */
+  suppression?: Sourced<string>;
 }
 
 export type RelationEffect = 'beneficial' | 'antagonistic';

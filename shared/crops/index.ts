@@ -1,0 +1,6 @@
+export * from './types';
+export * from './sources';
+export * from './crops';
+export * from './pests';
+export * from './rotation';
+export * from './relations';

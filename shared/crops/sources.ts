@@ -1,0 +1,131 @@
+import type { CropSource } from './types';
+
+/**
+ * Every publication (or mark) a crop value, rotation rule or relation points at. A value's
+ * `source` must be one of these ids; the catalogue test walks the data to hold that.
+ */
+export const cropSources: CropSource[] = [
+  {
+    id: 'fao56-table11',
+    title:
+      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 11: lengths of crop development stages',
+    evidence: 'published',
+  },
+  {
+    id: 'fao56-table12',
+    title:
+      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 12: single crop coefficients Kc and mean maximum plant heights (read from the pyfao56 transcription)',
+    evidence: 'published',
+  },
+  {
+    id: 'umaine-planting-chart',
+    title: 'University of Maine Cooperative Extension, Planting chart for the home vegetable garden',
+    evidence: 'published',
+  },
+  {
+    id: 'uarizona-intensive',
+    title: 'University of Arizona Cooperative Extension, Intensive gardening methods (equal spacing table; second-hand copy)',
+    evidence: 'published',
+  },
+  {
+    id: 'osu-germination',
+    title:
+      'Oregon State University Extension, Soil temperature conditions for vegetable seed germination (J. F. Harrington; published April 2013, reviewed 2024)',
+    evidence: 'published',
+    // Read through the search tool: the chard, eggplant, parsley and parsnip rows and the
+    // days-to-seedlings rows for cabbage, corn and cucumber come from this page.
+    url: 'https://extension.oregonstate.edu/gardening/soil-compost/soil-temperature-conditions-vegetable-seed-germination',
+  },
+  {
+    id: 'harrington-emergence',
+    title:
+      "Harrington and Minges, days to seedling emergence at soil temperatures 50–86 °F, as reprinted in Knott's Handbook for Vegetable Growers",
+    evidence: 'published',
+  },
+  {
+    id: 'britannica-maturity',
+    title: 'Encyclopaedia Britannica, Vegetable farming: harvesting (days to maturity)',
+    evidence: 'published',
+  },
+  {
+    id: 'umass-storage',
+    title: 'UMass Amherst Extension Vegetable Program, Optimal storage conditions and ethylene sensitivity of fall storage crops',
+    evidence: 'published',
+    // Read through the search tool.
+    url: 'https://ag.umass.edu/node/23531',
+  },
+  {
+    id: 'wvu-rotation',
+    title:
+      'West Virginia University Extension, Crop rotation in the garden (2025), families as named by the Angiosperm Phylogeny Group; with UC Master Gardeners, Sacramento, after the UC Vegetable Research & Information Center',
+    evidence: 'published',
+  },
+  {
+    id: 'ncstate-rotation',
+    title: 'NC State Extension, Surry County Center (2021), crop rotation advice ("4 years best")',
+    evidence: 'published',
+  },
+  {
+    id: 'uconn-disease-rotation',
+    title: 'UConn Integrated Pest Management, Rotation periods suggested to help control vegetable diseases',
+    evidence: 'published',
+  },
+  {
+    id: 'clubroot-liming',
+    title:
+      'UC Cooperative Extension; Oregon State University; Pacific Northwest Plant Disease Management Handbook: clubroot of crucifers, liming and spore survival',
+    evidence: 'published',
+  },
+  {
+    id: 'cornell-early-blight-rotation',
+    title: 'Cornell / Penn State, Do rotations matter within disease management programs? (tomato early blight)',
+    evidence: 'published',
+  },
+  {
+    id: 'extension-tomato-potato',
+    title:
+      'Extension vegetable pest guides on late blight and Verticillium wilt shared by tomato and potato (as gathered in the team source list; no single guide stored)',
+    evidence: 'published',
+  },
+  {
+    id: 'ufifas-eny056',
+    title: 'UF/IFAS Extension ENY-056, Nematode management in the vegetable garden (marigolds as a cover crop)',
+    evidence: 'published',
+  },
+  {
+    id: 'uconn-trap-crop',
+    title: 'UConn Integrated Pest Management, perimeter trap cropping of squash against cucumber beetle and squash vine borer',
+    evidence: 'published',
+  },
+  {
+    id: 'agronomy-2016-basil',
+    title: 'Agronomy 6(3):42 (2016), basil intercropped with tomato under nets, whitefly field trial',
+    evidence: 'published',
+  },
+  {
+    id: 'chalker-scott-wsu',
+    title:
+      'Linda Chalker-Scott, Washington State University Puyallup Research and Extension Center, The myth of companion plantings',
+    evidence: 'published',
+    // Read through the search tool (docslib.org copy); this address is the one the Nevada
+    // Appeal column of 7 April 2024 quotes for the WSU original.
+    url: 'https://s3.wp.wsu.edu/uploads/sites/403/2015/03/companion-plantings.pdf',
+  },
+  {
+    id: 'common-practice',
+    title: 'Common practice among gardeners and extension services; no single published source found',
+    evidence: 'common_practice',
+  },
+  {
+    id: 'from-memory',
+    title: 'From memory; not confirmed in a stored copy of any source',
+    evidence: 'from_memory',
+  },
+];
+
+const byId = new Map(cropSources.map((s) => [s.id, s]));
+
+/** The source with this id, or undefined when no such source is listed. */
+export function cropSourceById(id: string): CropSource | undefined {
+  return byId.get(id);
+}
