@@ -51,7 +51,7 @@ async function pixel(bytes: Buffer, x: number, y: number): Promise<number[]> {
   return [data[at], data[at + 1], data[at + 2]];
 }
 
-/** The tag numbers in IFD0 of a raw EXIF block as sharp returns it ("Exif\0\0" then TIFF; CIPA DC-008 §4.5.2). */
+/** The tag numbers in IFD0 of a raw EXIF block as sharp returns it ("Exif\0\0" then a TIFF header and IFDs; layout from memory). */
 function ifd0Tags(exif: Buffer): number[] {
   const tiff = 6;
   const le = exif.toString('latin1', tiff, tiff + 2) === 'II';
