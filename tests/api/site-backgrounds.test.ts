@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import sharp from 'sharp';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/schemas/auth';
 import { buildClub, buildMember } from '../factories';
@@ -40,8 +41,8 @@ function png(width: number, height: number): Buffer {
   ]);
 }
 
-/** A JPEG header with a baseline frame of the given size (ITU-T T.81 Annex B.2.2). */
-function jpeg(width: number, height: number): Buffer {
+/** A JPEG header with a baseline frame of the given size and no image data (ITU-T T.81 Annex B.2.2). */
+function jpegHeaderOnly(width: number, height: number): Buffer {
   const seg = (m: number, body: number[]) => [0xff, m, 0, body.length + 2, ...body];
   return Buffer.from([
     0xff, 0xd8,
@@ -50,6 +51,12 @@ function jpeg(width: number, height: number): Buffer {
     0xff, 0xd9,
   ]);
 }
+
+/** A decodable JPEG, optionally carrying a GPS position in its EXIF as a phone writes it. */
+const jpeg = (width: number, height: number, opts: { gps?: boolean } = {}) => {
+  const picture = sharp({ create: { width, height, channels: 3, background: '#6a8f3c' } }).jpeg();
+  return (opts.gps ? picture.withExif({ IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '51/1 30/1 0/1' } }) : picture).toBuffer();
+};
 
 async function signedIn(clubId: number, roles: Role[]) {
   const person = await buildMember(t.db, { clubId, roles });
@@ -83,7 +90,7 @@ const upload = (c: Agent, siteId: number, file: Buffer, name: string, fields: Re
 const storedFiles = () => (fs.existsSync(storedDir) ? fs.readdirSync(storedDir) : []);
 
 describe('site background image', () => {
-  it('stores an uploaded PNG under a random name, records its size and scale, and serves the same bytes back', async () => {
+  it('stores an uploaded PNG re-encoded under a random name, records its size and scale, and serves the stored bytes', async () => {
     const { c, site } = await coordinatorWithSite();
     const image = png(40, 25);
     const res = await upload(c, site.id, image, 'plan.png', { widthMetres: '40' });
@@ -98,21 +105,23 @@ describe('site background image', () => {
     const files = storedFiles();
     expect(files).toHaveLength(1);
     expect(files[0]).toMatch(/^[0-9a-f]{32}\.png$/);
-    expect(fs.readFileSync(path.join(storedDir, files[0])).equals(image)).toBe(true);
+    const stored = fs.readFileSync(path.join(storedDir, files[0]));
+    const meta = await sharp(stored).metadata();
+    expect([meta.format, meta.width, meta.height]).toEqual(['png', 40, 25]);
 
     const got = await c.get(res.body.background.url);
     expect(got.status).toBe(200);
     expect(got.headers['content-type']).toBe('image/png');
     expect(got.headers['x-content-type-options']).toBe('nosniff');
     expect(got.headers['cache-control']).toBe('private, max-age=3600');
-    expect(Buffer.compare(got.body as Buffer, image)).toBe(0);
+    expect(Buffer.compare(got.body as Buffer, stored)).toBe(0);
   });
 
   it('leaves the scale empty without a width, and replaces the previous image, deleting its file', async () => {
     const { c, site } = await coordinatorWithSite();
     await upload(c, site.id, png(8, 8), 'first.png').expect(200);
     const first = storedFiles();
-    const res = await upload(c, site.id, jpeg(1600, 1200), 'second.jpg');
+    const res = await upload(c, site.id, await jpeg(1600, 1200), 'second.jpg');
     expect(res.status).toBe(200);
     expect(res.body.background).toMatchObject({ widthPx: 1600, heightPx: 1200, metresPerPixel: null });
     const now = storedFiles();
@@ -121,6 +130,35 @@ describe('site background image', () => {
     expect(now).not.toEqual(first);
     const got = await c.get(`/api/sites/${site.id}/background`);
     expect(got.headers['content-type']).toBe('image/jpeg');
+  });
+
+  it('shrinks a large plan to 4096 px and keeps the scale of the measured width', async () => {
+    const { c, site } = await coordinatorWithSite();
+    const plan = await sharp({ create: { width: 6000, height: 1500, channels: 3, background: '#ffffff' } }).png().toBuffer();
+    const res = await upload(c, site.id, plan, 'plan.png', { widthMetres: '60' });
+    expect(res.status).toBe(200);
+    expect(res.body.background).toMatchObject({ widthPx: 4096, heightPx: 1024 });
+    // 60 m across the stored 4096 px (the column keeps 6 decimals), not across the 6000 px uploaded.
+    expect(res.body.background.metresPerPixel).toBeCloseTo(60 / 4096, 6);
+    const meta = await sharp(fs.readFileSync(path.join(storedDir, storedFiles()[0]))).metadata();
+    expect([meta.width, meta.height]).toEqual([4096, 1024]);
+  });
+
+  it('stores a phone JPEG without its EXIF, so the GPS position is not kept', async () => {
+    const { c, site } = await coordinatorWithSite();
+    const photo = await jpeg(800, 600, { gps: true });
+    expect((await sharp(photo).metadata()).exif).toBeDefined();
+    await upload(c, site.id, photo, 'ground.jpg').expect(200);
+    const stored = fs.readFileSync(path.join(storedDir, storedFiles()[0]));
+    expect((await sharp(stored).metadata()).exif).toBeUndefined();
+  });
+
+  it('refuses a JPEG whose header is sound but which holds no picture, and keeps nothing', async () => {
+    const { c, site } = await coordinatorWithSite();
+    const res = await upload(c, site.id, jpegHeaderOnly(1600, 1200), 'empty.jpg');
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toEqual({ image: 'The image looks damaged: it could not be decoded' });
+    expect(storedFiles()).toEqual([]);
   });
 
   it('refuses a text file renamed .png, by its content, and keeps nothing', async () => {
