@@ -6,6 +6,7 @@ import type { Db } from '../db/knex';
 import { plotColumns, plotRect, STORED_LENGTH_EPS, toPlot, type PlotRow } from '../db/mappers';
 import { lapseOverdue } from './offers';
 import { listPlotEvents, recordPlotEvent } from './plot-events';
+import { seasonPlotStates } from './season-plots';
 import { physicalPlotEvents, seesPeople, type Viewer } from './visibility';
 
 const EPS = STORED_LENGTH_EPS;
@@ -174,20 +175,17 @@ export async function siteNeighbours(db: Db, siteId: number): Promise<{ items: N
  * else sees the holder only when it is them, and only the history of the plot itself, without names.
  */
 export async function getPlotDetail(db: Db, plotId: number, viewer: Viewer): Promise<PlotDetail> {
-  const row: (PlotRow & { site_name: string; units: 'metric' | 'us'; path_width_m_site: number }) | undefined = await db(
+  const row: (PlotRow & { club_id: number; site_name: string; units: 'metric' | 'us'; path_width_m_site: number }) | undefined = await db(
     'plots as p',
   )
     .join('sites as s', 's.id', 'p.site_id')
     .where('p.id', plotId)
     .whereNull('p.deleted_at')
-    .first('p.*', 's.name as site_name', 's.units', 's.path_width_m as path_width_m_site');
+    .first('p.*', 's.club_id', 's.name as site_name', 's.units', 's.path_width_m as path_width_m_site');
   if (!row) throw notFound('The plot');
-  const holder = await db('allocations as a')
-    .join('seasons as se', 'se.id', 'a.season_id')
-    .join('users as u', 'u.id', 'a.user_id')
-    .where({ 'a.plot_id': plotId, 'a.status': 'active' })
-    .orderBy('se.year', 'desc')
-    .first('u.id', 'u.name', 'se.year');
+  // "This season" is the club's newest season, even while last season's holder has not yet renewed.
+  const newest = await db('seasons').where({ club_id: row.club_id }).orderBy('year', 'desc').first('id', 'year');
+  const state = newest ? (await seasonPlotStates(db, newest.id, row.site_id, viewer)).find((st) => st.plotId === plotId)! : null;
   const siblings: PlotRow[] = await livePlots(db, row.site_id);
   const byId = new Map(siblings.map((s) => [s.id, s]));
   const pairs = neighbours(siblings.map(plotRect), row.path_width_m_site, STORED_LENGTH_EPS).filter((n) => n.a === plotId || n.b === plotId);
@@ -198,7 +196,8 @@ export async function getPlotDetail(db: Db, plotId: number, viewer: Viewer): Pro
     ...toPlot(row),
     siteName: row.site_name,
     units: row.units,
-    holder: holder && (full || holder.id === viewer.userId) ? { userId: holder.id, name: holder.name, season: holder.year } : null,
+    holder: state?.holder ? { ...state.holder, season: newest!.year } : null,
+    season: newest && state ? { year: newest.year, state } : null,
     neighbours: pairs.map((n) => {
       const otherId = (n.a === plotId ? n.b : n.a) as number;
       const other = byId.get(otherId)!;

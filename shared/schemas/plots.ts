@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { csvFileSchema, dateWithinSchema, textSchema, VersionSchema } from './common';
+import { PlotSeasonStateSchema } from './seasons';
 
 export const plotKinds = ['in_ground', 'raised_bed', 'container', 'shared_bed'] as const;
 export const PlotKindSchema = z.enum(plotKinds);
@@ -117,7 +118,10 @@ export type PlotEvent = z.infer<typeof PlotEventSchema>;
 export const PlotDetailSchema = PlotSchema.extend({
   siteName: z.string(),
   units: z.enum(['metric', 'us']),
+  /** Who holds the plot in the club's newest season, when the viewer may see it. */
   holder: z.object({ userId: z.number().int(), name: z.string(), season: z.number().int() }).nullable(),
+  /** Where the plot stands in the club's newest season (as on the season map, for this viewer); null before any season. */
+  season: z.object({ year: z.number().int(), state: PlotSeasonStateSchema }).nullable(),
   neighbours: z.array(
     z.object({ plotId: z.number().int(), label: z.string(), kind: z.string(), side: z.string(), gap: z.number() }),
   ),

@@ -107,6 +107,10 @@ describe('who sees what on a plot page', () => {
     expect(a3.body.history.map((e: { summary: string }) => e.summary)).toContain('Not offered for renewal to Owen Owing for 2027: last season’s fee is not fully paid');
     const a4 = await s.coordinator.get(`/api/plots/${s.plots[3].id}`).expect(200);
     expect(a4.body.holder).toMatchObject({ name: 'Ines Other', season: 2027 });
+    // Last season's holder waiting to renew is not "this season's" holder: the newest season says where it stands.
+    const a1 = await s.coordinator.get(`/api/plots/${s.plots[0].id}`).expect(200);
+    expect(a1.body.holder).toBeNull();
+    expect(a1.body.season).toMatchObject({ year: 2027, state: { status: 'renewal_pending', renewal: { name: 'Hana Holder' } } });
   });
 
   for (const who of ['holder', 'volunteer'] as const) {
@@ -118,8 +122,14 @@ describe('who sees what on a plot page', () => {
         for (const word of PRIVATE) expect(text, `${plot.label} shows ${word}`).not.toContain(word);
         expect(res.body.history.every((e: { byName: string | null }) => e.byName === null)).toBe(true);
       }
+      // "This season" is 2027, open while Hana's renewal of her 2026 plot waits: she sees her own renewal, a volunteer only "taken".
       const mine = await s[who].get(`/api/plots/${s.plots[0].id}`).expect(200);
-      expect(mine.body.holder).toEqual(who === 'holder' ? { userId: s.holder.person.id, name: 'Hana Holder', season: 2026 } : null);
+      expect(mine.body.holder).toBeNull();
+      expect(mine.body.season).toMatchObject(
+        who === 'holder'
+          ? { year: 2027, state: { status: 'renewal_pending', holder: null, offer: null, renewal: { name: 'Hana Holder' } } }
+          : { year: 2027, state: { status: 'taken', holder: null, offer: null, renewal: null } },
+      );
     });
   }
 });

@@ -13,7 +13,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { paths } from '@/lib/paths';
-import { useTimeZone } from '@/lib/time-zone';
+import { LocalDate, useTimeZone } from '@/lib/time-zone';
 import { usePlot } from '../api/get-plot';
 import { formatPlotArea, formatSize, formatSoilDepth, sideText } from '../lib/format';
 
@@ -94,7 +94,8 @@ function Neighbours({ plot, clubId }: { plot: PlotDetail; clubId: number }) {
   );
 }
 
-function HistoryList({ plot }: { plot: PlotDetail }) {
+// Coordinators see who did each step (null: a person since removed); others are never sent names.
+function HistoryList({ plot, showsPeople }: { plot: PlotDetail; showsPeople: boolean }) {
   const zone = useTimeZone();
   if (plot.history.length === 0) return <p className="text-stone">Nothing recorded yet.</p>;
   // Newest first, whatever order the list arrives in.
@@ -107,7 +108,7 @@ function HistoryList({ plot }: { plot: PlotDetail }) {
           <li key={event.id} className="border-l-3 border-leaf-100 pl-4">
             <p className="font-medium">{event.summary}</p>
             <p className="text-sm text-stone">
-              {event.byName ?? 'Someone no longer in the club'} ·{' '}
+              {showsPeople && <>{event.byName ?? 'Someone no longer in the club'} · </>}
               <time dateTime={event.at} title={formatDateTime(at, zone)}>
                 {formatDateTime(at, zone)} ({formatDistanceToNow(at, { addSuffix: true })})
               </time>
@@ -176,17 +177,8 @@ function LoadedPlotPage({ clubId, plotId, canEdit }: PlotPageProps) {
           <Details plot={plot} />
         </Panel>
         <div className="flex min-w-0 flex-col gap-6">
-          <Panel id="plot-holder" title="This season">
-            {plot.holder ? (
-              <p className="flex items-center gap-2">
-                <Users className="size-5 text-leaf" aria-hidden="true" />
-                <span>
-                  Held by <strong className="font-semibold">{plot.holder.name}</strong> for {plot.holder.season}
-                </span>
-              </p>
-            ) : (
-              <p className="text-stone">Not allocated yet</p>
-            )}
+          <Panel id="plot-holder" title={plot.season ? `The ${plot.season.year} season` : 'This season'}>
+            <SeasonState plot={plot} />
           </Panel>
           <Panel id="plot-neighbours" title="Neighbours">
             <Neighbours plot={plot} clubId={clubId} />
@@ -198,12 +190,46 @@ function LoadedPlotPage({ clubId, plotId, canEdit }: PlotPageProps) {
               <History className="size-4" aria-hidden="true" />
               Newest first
             </div>
-            <HistoryList plot={plot} />
+            <HistoryList plot={plot} showsPeople={canEdit} />
           </Panel>
         </div>
       </div>
     </>
   );
+}
+
+/** Where the plot stands in the club's newest season, in a sentence, with only what this viewer may see. */
+function SeasonState({ plot }: { plot: PlotDetail }) {
+  if (!plot.season) return <p className="text-stone">No season has been opened yet.</p>;
+  const { year, state } = plot.season;
+  const line = (children: ReactNode) => (
+    <p className="flex items-center gap-2">
+      <Users className="size-5 shrink-0 text-leaf" aria-hidden="true" />
+      <span>{children}</span>
+    </p>
+  );
+  switch (state.status) {
+    case 'taken':
+      return line(state.holder ? <>Held by <strong className="font-semibold">{state.holder.name}</strong> for {year}</> : <>Taken for {year}</>);
+    case 'offered':
+      return line(
+        state.offer ? (
+          <>Offered to <strong className="font-semibold">{state.offer.name}</strong>, who can answer until <LocalDate value={state.offer.deadline} withTime /></>
+        ) : (
+          <>Taken for {year}</>
+        ),
+      );
+    case 'renewal_pending':
+      return line(
+        state.renewal ? (
+          <>Waiting for <strong className="font-semibold">{state.renewal.name}</strong> to renew for {year}, until <LocalDate value={state.renewal.deadline} withTime /></>
+        ) : (
+          <>Taken for {year}</>
+        ),
+      );
+    case 'free':
+      return <p className="text-stone">Free for {year}</p>;
+  }
 }
 
 /** One plot for any club member: its details in the site's units, who holds it, its neighbours and history. */
