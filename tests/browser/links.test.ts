@@ -25,6 +25,8 @@ describe('e-mailed links opened on a phone', () => {
       expect(await w.page.getByRole('button', { name: 'Accept the plot' }).count()).toBe(0);
     }
     await w.shot('offer-link-not-valid-phone');
+    await w.page.setViewportSize({ width: 1280, height: 860 });
+    await w.shot('offer-link-not-valid-desktop');
     // The browser logs the 400 and 404 answers itself; nothing else may be logged.
     expect(w.errors.filter((e) => !/\b(400|404)\b/.test(e))).toEqual([]);
   });
@@ -36,6 +38,8 @@ describe('e-mailed links opened on a phone', () => {
     expect(await w.page.getByLabel('New password').count()).toBe(0);
     await w.page.getByRole('link', { name: 'Send a new link' }).waitFor();
     await w.shot('reset-link-not-valid-phone');
+    await w.page.setViewportSize({ width: 1280, height: 860 });
+    await w.shot('reset-link-not-valid-desktop');
     expect(w.errors.filter((e) => !/\b(400|404)\b/.test(e))).toEqual([]);
   });
 
@@ -58,6 +62,8 @@ describe('e-mailed links opened on a phone', () => {
     expect((await db('offers').where({ id: offer.id }).first('status')).status).toBe('pending');
     expect(await w.page.getByRole('button', { name: 'Accept the plot' }).count()).toBe(0);
     await w.shot('offer-decline-link-phone');
+    await w.page.setViewportSize({ width: 1280, height: 860 });
+    await w.shot('offer-decline-link-desktop');
     await w.page.getByRole('button', { name: 'Decline', exact: true }).click();
     await w.page.getByRole('heading', { name: 'Thank you' }).waitFor();
     expect((await db('offers').where({ id: offer.id }).first('status')).status).toBe('declined');
