@@ -177,9 +177,7 @@ const GuidanceSchema = z.strictObject({
   pests: textSchema({ max: 2000, multiline: true }),
 });
 
-const optionalSourced = Object.fromEntries(
-  overridableCropFields.filter((f) => f !== 'sowing' && f !== 'daysToMaturity').map((f) => [f, sourcedSchema(cropValueSchemas[f]).optional()]),
-) as { [K in Exclude<OverridableCropField, 'sowing' | 'daysToMaturity'>]: z.ZodOptional<ReturnType<typeof sourcedSchema<(typeof cropValueSchemas)[K]>>> };
+const opt = <K extends CropValueField>(k: K) => sourcedSchema(cropValueSchemas[k]).optional();
 
 /**
  * A club's own crop: names, family and kind, how it is sown and how long it takes, each value with
@@ -192,7 +190,23 @@ export const CropCreateBodySchema = z.strictObject({
   kind: CropKindSchema,
   sowing: sourcedSchema(cropValueSchemas.sowing),
   daysToMaturity: sourcedSchema(cropValueSchemas.daysToMaturity),
-  ...optionalSourced,
+  inRowCm: opt('inRowCm'),
+  betweenRowCm: opt('betweenRowCm'),
+  equalSpacingCm: opt('equalSpacingCm'),
+  sowingDepthCm: opt('sowingDepthCm'),
+  daysToEmergence: opt('daysToEmergence'),
+  emergenceByTemperature: opt('emergenceByTemperature'),
+  germination: opt('germination'),
+  soilPh: opt('soilPh'),
+  rootingDepthCm: opt('rootingDepthCm'),
+  matureHeightCm: opt('matureHeightCm'),
+  sun: opt('sun'),
+  frost: opt('frost'),
+  feeding: opt('feeding'),
+  sideDressing: opt('sideDressing'),
+  kc: opt('kc'),
+  stages: opt('stages'),
+  storage: opt('storage'),
   watchFor: z
     .array(z.enum(pestSlugs, { message: 'Not a pest or disease the plot book knows' }))
     .max(30, 'At most 30')
@@ -355,3 +369,19 @@ export const CropDetailSchema = z.object({
   sources: z.array(CropSourceViewSchema),
 });
 export type CropDetail = z.infer<typeof CropDetailSchema>;
+
+const CropRefSchema = z.object({ id: z.number().int(), slug: z.string(), commonName: z.string() });
+
+/** A club relation as `POST …/crops/relations` answers it. */
+export const ClubCropRelationSchema = z.object({
+  id: z.number().int(),
+  cropA: CropRefSchema,
+  cropB: CropRefSchema,
+  effect: EffectSchema,
+  scope: CropRelationViewSchema.shape.scope,
+  reason: z.string(),
+  evidence: RelationEvidenceSchema,
+  severity: SeveritySchema.nullable(),
+  source: CropSourceViewSchema,
+});
+export type ClubCropRelation = z.infer<typeof ClubCropRelationSchema>;
