@@ -79,6 +79,6 @@ describe('club relation body', () => {
     expect(issuesAt(CropRelationCreateBodySchema.safeParse({ ...ok, evidence: 'research' }))).toEqual(['source']);
     expect(issuesAt(CropRelationCreateBodySchema.safeParse({ ...ok, effect: 'beneficial' }))).toEqual(['severity']);
     expect(issuesAt(CropRelationCreateBodySchema.safeParse({ ...ok, cropBId: 1 }))).toEqual(['cropBId']);
-    expect(CropRelationCreateBodySchema.safeParse({ ...ok, evidence: 'research', severity: 'clash', source: 'Extension fact sheet' }).success).toBe(true);
+    expect(CropRelationCreateBodySchema.safeParse({ ...ok, evidence: 'research', severity: 'clash', source: 'Club trial beds 2026' }).success).toBe(true);
   });
 });
