@@ -2,6 +2,7 @@ import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/knex';
+import { loadReferenceCrops } from '../server/services/reference-crops';
 import { startServer, type RunningServer } from '../server/start-server';
 import { roleWords } from '@shared/schemas/auth';
 import { DEMO_PASSWORD, demoSignIns } from '../seeds/01-demo-club';
@@ -44,6 +45,8 @@ try {
       console.log('Empty database: loading the demo data…');
       await db.seed.run();
     }
+    // After the seed, which empties the clubs (and with them every crop row).
+    await loadReferenceCrops(db);
   } finally {
     await db.destroy();
   }

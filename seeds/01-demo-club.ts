@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { Role } from '@shared/schemas/auth';
+import { loadReferenceCrops } from '../server/services/reference-crops';
 import { buildClub, buildUser } from '../tests/factories';
 
 // Demo data for an invented club; every name and address here is made up.
@@ -32,6 +33,8 @@ export function demoSignIns(): Array<{ email: string; roles: Role[] }> {
 
 export async function seed(knex: Knex): Promise<void> {
   await knex.raw('truncate table memberships, invites, password_resets, users, clubs restart identity cascade');
+  // The cascade through clubs empties every crop row, the reference ones too: put those back.
+  await loadReferenceCrops(knex);
   const mossgate = await buildClub(knex, { name: 'Mossgate Community Garden Club', slug: 'mossgate' });
   const cinder = await buildClub(knex, { name: 'Cinder Lane Growers', slug: 'cinder-lane' });
   // What the public application form tells applicants (club settings); the fee matches the demo schedule.

@@ -18,6 +18,7 @@ import { clubExportsRouter } from './routes/exports';
 import { memberImportsRouter } from './routes/member-imports';
 import { waitlistImportsRouter } from './routes/waitlist-imports';
 import { clubsRouter } from './routes/clubs';
+import { cropsRouter } from './routes/crops';
 import { clubFeesRouter, feesRouter, myFeesRouter } from './routes/fees';
 import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
 import { membersRouter } from './routes/members';
@@ -135,6 +136,7 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/clubs/:clubId/mail-preferences', mailPreferencesRouter(deps));
   app.use('/api/clubs/:clubId/outbox', outboxRouter(deps));
   app.use('/api/clubs/:clubId/my-plot', myPlotRouter(deps));
+  app.use('/api/clubs/:clubId/crops', cropsRouter(deps));
   app.use('/api/clubs/:clubId/seasons', clubSeasonsRouter(deps));
   app.use('/api/seasons', seasonsRouter(deps));
   app.use('/api/offers', offersRouter(deps));

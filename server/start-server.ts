@@ -5,6 +5,7 @@ import { createApp } from './app';
 import { startJobs } from './jobs';
 import { createMailer } from './mail/mailer';
 import { mailIdle } from './services/outbox';
+import { loadReferenceCrops } from './services/reference-crops';
 import { pino } from 'pino';
 
 export interface RunningServer {
@@ -12,12 +13,13 @@ export interface RunningServer {
   stop(): Promise<void>;
 }
 
-/** Migrates the database, then serves the API and the built client on config.host:port. */
+/** Migrates the database and loads the reference crops, then serves the API and the built client on config.host:port. */
 export async function startServer(config: Config): Promise<RunningServer> {
   const log = pino({ level: config.logLevel });
   for (const warning of configWarnings(config)) log.warn(warning);
   const db = createDb(config.databaseUrl);
   await db.migrate.latest();
+  await loadReferenceCrops(db);
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
   const built = createApp({ db, mailer, config });
   const jobs = await startJobs(config.databaseUrl, db, mailer, log);

@@ -16,6 +16,8 @@ interface ClubRow {
   contact_email: string | null;
   fee_note: string | null;
   typical_wait: string | null;
+  rotation_gap_years: number;
+  shares_plot_books: boolean;
 }
 
 function toClubSettings(r: ClubRow, currencyLocked: boolean): ClubSettings {
@@ -32,12 +34,14 @@ function toClubSettings(r: ClubRow, currencyLocked: boolean): ClubSettings {
     contactEmail: r.contact_email,
     feeNote: r.fee_note,
     typicalWait: r.typical_wait,
+    rotationGapYears: r.rotation_gap_years,
+    sharesPlotBooks: r.shares_plot_books,
     currencyLocked,
   };
 }
 
 const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers', 'time_zone',
-  'contact_email', 'fee_note', 'typical_wait'];
+  'contact_email', 'fee_note', 'typical_wait', 'rotation_gap_years', 'shares_plot_books'];
 
 const hasFees = async (db: Db, clubId: number) => Boolean(await db('fees').where({ club_id: clubId }).first('id'));
 
@@ -81,6 +85,8 @@ export async function updateClubSettings(db: Knex, clubId: number, body: ClubSet
       // An emptied note is no note.
       fee_note: body.feeNote === undefined ? undefined : body.feeNote || null,
       typical_wait: body.typicalWait === undefined ? undefined : body.typicalWait || null,
+      rotation_gap_years: body.rotationGapYears,
+      shares_plot_books: body.sharesPlotBooks,
     };
     const set = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined));
     if (Object.keys(set).length > 0) {

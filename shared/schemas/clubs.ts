@@ -22,6 +22,10 @@ export const ClubSettingsSchema = z.object({
   feeNote: z.string().nullable(),
   /** How long people usually wait for a plot, in the club's words, shown on the application form. */
   typicalWait: z.string().nullable(),
+  /** Years a botanical family stays out of the same soil when no soil-borne disease has been seen. */
+  rotationGapYears: z.number('Enter a whole number of years').int('A whole number of years').min(1, 'At least 1 year').max(10, 'At most 10 years'),
+  /** True when plot holders may read each other's plot books (coordinators always can). */
+  sharesPlotBooks: z.boolean('true or false'),
   /** True once a fee is recorded: the currency can no longer change (read only). */
   currencyLocked: z.boolean(),
 });

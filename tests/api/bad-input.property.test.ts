@@ -208,6 +208,15 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
   'POST /api/sites/:siteId/plot-imports': () => ({ csv: 'label,x,y,width,length\nI-1,35,0,3,6\n', units: 'metric', commit: false }),
   'POST /api/clubs/:clubId/member-imports': () => ({ csv: 'name,email,roles\nM,m@example.org,volunteer\n', commit: false }),
   'POST /api/clubs/:clubId/waitlist-imports': () => ({ csv: 'name,email\nW,w@example.org\n', commit: false }),
+  'POST /api/clubs/:clubId/crops': () => ({
+    commonName: 'Fuzz bean',
+    botanicalName: { value: 'Vicia faba', source: 'from-memory' },
+    family: { value: 'Fabaceae', source: 'from-memory' },
+    kind: 'legume',
+    sowing: { value: 'direct', source: 'from-memory' },
+    daysToMaturity: { value: { min: 80, max: 100, from: 'sowing' }, source: 'from-memory' },
+  }),
+  'PUT /api/clubs/:clubId/crops/:cropId/overrides/:field': () => ({ value: { min: 30, max: 40, from: 'sowing' }, source: 'from-memory' }),
 };
 const feeSchedule = {
   basis: 'kind',
@@ -273,6 +282,10 @@ function paramValue(name: string, x: Fixture): string | null {
     userId: 999999,
     role: 'volunteer',
     clubSlug: x.slug,
+    // A reference crop (truncateAll loads them: ids from 1) and a field the overrides allow.
+    cropId: 1,
+    field: 'daysToMaturity',
+    relationId: 999999,
   };
   return name in known ? String(known[name]) : null;
 }

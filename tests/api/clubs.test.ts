@@ -39,6 +39,9 @@ describe('club settings', () => {
       contactEmail: null,
       feeNote: null,
       typicalWait: null,
+      // The crop notes migration's defaults: a 3-year gap (shared/crops/rotation.ts, after WVU), books private.
+      rotationGapYears: 3,
+      sharesPlotBooks: false,
       currencyLocked: false,
     });
     const outsider = await signedIn(await buildMember(t.db, { roles: ['coordinator'] }));
@@ -59,6 +62,9 @@ describe('club settings', () => {
       declined_offer_policy: 'remove',
       allow_multiple_offers: true,
     });
+    const rotation = await c.patch(`/api/clubs/${row.id}`, { rotationGapYears: 4, sharesPlotBooks: true }).expect(200);
+    expect(rotation.body).toMatchObject({ rotationGapYears: 4, sharesPlotBooks: true, offerDays: 10 });
+    expect(await t.db('clubs').where({ id: row.id }).first('rotation_gap_years', 'shares_plot_books')).toEqual({ rotation_gap_years: 4, shares_plot_books: true });
     // The session lists the club under its new name.
     expect((await c.get('/api/session')).body.user.clubs[0].clubName).toBe('Allotment Row Growers');
   });
@@ -92,6 +98,12 @@ describe('club settings', () => {
     ]);
     expect((await c.patch(`/api/clubs/${row.id}`, { offerDays: 61 })).body.error.fields).toEqual({ offerDays: 'At most 60 days' });
     expect((await c.patch(`/api/clubs/${row.id}`, { offerDays: 2.5 })).status).toBe(400);
+    // The column's check allows 1 to 10 years (migration 20261202000300).
+    expect((await c.patch(`/api/clubs/${row.id}`, { rotationGapYears: 11, sharesPlotBooks: 'yes' })).body.error.fields).toEqual({
+      rotationGapYears: 'At most 10 years',
+      sharesPlotBooks: 'true or false',
+    });
+    expect((await c.patch(`/api/clubs/${row.id}`, { rotationGapYears: 0 })).body.error.fields).toEqual({ rotationGapYears: 'At least 1 year' });
     expect(await t.db('clubs').where({ id: row.id }).first('name', 'offer_days', 'slug')).toEqual({ name: 'Allotment Row', offer_days: 7, slug: row.slug });
   });
 

@@ -7,6 +7,7 @@ import { loadConfig, type Config } from '../../server/config';
 import { createDb } from '../../server/db/knex';
 import { createMailer } from '../../server/mail/mailer';
 import { mailIdle } from '../../server/services/outbox';
+import { loadReferenceCrops } from '../../server/services/reference-crops';
 
 export const mailUrl = () => inject('mailUrl');
 
@@ -56,7 +57,7 @@ export function setupTestApp(
   };
 }
 
-/** Empties every table the product writes (not the migrations' own bookkeeping). */
+/** Empties every table the product writes (not the migrations' own bookkeeping), then loads the reference crops again. */
 export async function truncateAll(db: Knex) {
   // Mail a test's requests are still sending belongs to that test, not the next one.
   await mailIdle();
@@ -65,6 +66,8 @@ export async function truncateAll(db: Knex) {
   );
   const names = rows.map((r: { tablename: string }) => `"${r.tablename}"`).join(', ');
   if (names) await db.raw(`truncate table ${names} restart identity cascade`);
+  // Reference crops are part of the product, not test data: every test starts with them (two bulk inserts).
+  await loadReferenceCrops(db);
 }
 
 /** A cookie-keeping client that already holds the session's CSRF token. */

@@ -30,8 +30,10 @@ export default async function setup(project: TestProject) {
   try {
     await cluster.createDatabase('tillwell_test');
     const { createDb } = await import('../../server/db/knex');
+    const { loadReferenceCrops } = await import('../../server/services/reference-crops');
     const db = createDb(cluster.url('tillwell_test'));
     await db.migrate.latest();
+    await loadReferenceCrops(db);
     await db.destroy();
   } catch (err) {
     await mail.close();
