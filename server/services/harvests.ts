@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { toGrams } from '@shared/plot-book';
-import type { Harvest, HarvestBody } from '@shared/schemas/plot-book';
+import { type Harvest, type HarvestBody, MAX_HARVEST_GRAMS } from '@shared/schemas/plot-book';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { lockPlantingForWrite } from './plantings';
@@ -38,7 +38,8 @@ export async function createHarvest(db: Knex, opts: { plantingId: number; userId
     const { row } = await lockPlantingForWrite(trx, opts);
     const b = opts.body;
     const grams = b.weight ? Math.round(toGrams(b.weight.value, b.weight.unit) * 10) / 10 : null;
-    if (grams !== null && (grams <= 0 || grams > 10_000_000)) {
+    // Grams are kept to a tenth, so a weight that rounds to 0 g there is refused rather than stored as nothing.
+    if (grams !== null && (grams <= 0 || grams > MAX_HARVEST_GRAMS)) {
       const message = grams <= 0 ? 'Too light to record (at least 0.1 g)' : 'Too heavy (at most 10 t)';
       throw new AppError('validation_failed', message, { weight: message });
     }

@@ -111,8 +111,6 @@ export type Planting = z.infer<typeof PlantingSchema>;
 
 /** The heaviest single harvest accepted, in grams: 10 t, far past any plot, well inside the column. */
 export const MAX_HARVEST_GRAMS = 10_000_000;
-/** Grams are kept to a tenth, so less than 0.05 g would be stored as 0. */
-export const MIN_HARVEST_GRAMS = 0.05;
 
 /** POST /api/plantings/:plantingId/harvests: a weight in any unit (stored as grams), a count of pieces, or both. */
 export const HarvestBodySchema = z
