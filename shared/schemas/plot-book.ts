@@ -196,7 +196,7 @@ const TotalsSchema = z.object({
 });
 
 /** ?year= picks the season shown; this season when left out. */
-export const PlotBookQuerySchema = z.strictObject({ year: z.coerce.number().int('A year like 2027').min(2000, 'From 2000').max(2100, 'Up to 2100').optional() });
+export const PlotBookQuerySchema = z.object({ year: z.coerce.number().int('A year like 2027').min(2000, 'From 2000').max(2100, 'Up to 2100').optional() });
 
 /** GET /api/plots/:plotId/book: one season's plantings and harvests, the plot's earlier seasons and its observations. */
 export const PlotBookSchema = z.object({

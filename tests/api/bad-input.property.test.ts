@@ -208,6 +208,9 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
   'POST /api/sites/:siteId/plot-imports': () => ({ csv: 'label,x,y,width,length\nI-1,35,0,3,6\n', units: 'metric', commit: false }),
   'POST /api/clubs/:clubId/member-imports': () => ({ csv: 'name,email,roles\nM,m@example.org,volunteer\n', commit: false }),
   'POST /api/clubs/:clubId/waitlist-imports': () => ({ csv: 'name,email\nW,w@example.org\n', commit: false }),
+  // No crop rows in this fixture: the planting is refused on cropId, after its part is checked against the plot.
+  'POST /api/plots/:plotId/plantings': () => ({ cropId: 1, method: 'sown', plantedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
+  'POST /api/plots/:plotId/observations': () => ({ pestSlug: 'clubroot', severity: 'light', observedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
 };
 const feeSchedule = {
   basis: 'kind',
@@ -271,6 +274,11 @@ function paramValue(name: string, x: Fixture): string | null {
     // Records that do not exist: the destructive member and invite routes then answer 404, never 5xx.
     inviteId: 999999,
     userId: 999999,
+    // Plot-book records that do not exist: their routes answer 404.
+    plantingId: 999999,
+    harvestId: 999999,
+    observationId: 999999,
+    photoId: 999999,
     role: 'volunteer',
     clubSlug: x.slug,
   };
