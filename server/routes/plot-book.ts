@@ -12,7 +12,7 @@ import type { Deps } from '../deps';
 import { AppError, notFound, parseInput } from '../errors';
 import { requireUser } from '../middleware/auth';
 import { createHarvest, deleteHarvest } from '../services/harvests';
-import { addObservationPhoto, createObservation, findObservationPhoto, MAX_PHOTO_BYTES } from '../services/observations';
+import { addObservationPhoto, assertCanAddPhoto, createObservation, findObservationPhoto, MAX_PHOTO_BYTES } from '../services/observations';
 import { getPlotBook } from '../services/plot-book';
 import { createPlanting, deletePlanting, plantingById, updatePlanting } from '../services/plantings';
 
@@ -106,7 +106,12 @@ export function plotBookRouter({ db, config }: Deps): Router {
     res.status(201).json(await createObservation(db, { plotId, userId: req.session.userId!, body }));
   });
 
-  router.post('/observations/:observationId/photos', requireUser, receivePhoto(), async (req, res) => {
+  // Who may add a photo is settled before the upload is read, so nobody else can make the server hold 8 MB.
+  const mayAddPhoto: RequestHandler = async (req, _res, next) => {
+    await assertCanAddPhoto(db, { observationId: idParam(req, 'observationId'), userId: req.session.userId! });
+    next();
+  };
+  router.post('/observations/:observationId/photos', requireUser, mayAddPhoto, receivePhoto(), async (req, res) => {
     const observationId = idParam(req, 'observationId');
     if (!req.file) throw new AppError('validation_failed', 'Choose a photo to upload.', { photo: 'Choose a PNG, JPEG or WebP photo' });
     const observation = await addObservationPhoto(db, { observationId, userId: req.session.userId!, uploadDir: config.uploadDir, bytes: req.file.buffer });

@@ -137,6 +137,14 @@ const tooMany = () => {
   return new AppError('validation_failed', message, { photo: message });
 };
 
+/** Checks that a person may add photos to an observation (before its upload is read), returning its plot id. */
+export async function assertCanAddPhoto(db: Db, opts: { observationId: number; userId: number; now?: Date }): Promise<number> {
+  const plotId = await plotOfObservation(db, opts.observationId);
+  if (plotId === null) throw notFound('The observation');
+  await plotBookAccess(db, { plotId, userId: opts.userId, write: true, now: opts.now });
+  return plotId;
+}
+
 /**
  * Adds a photo to an observation: checked by its header, re-encoded as WebP (at most 1600 px a side, no
  * metadata) with a 320 px square thumbnail, stored privately under random names. A refused upload
@@ -146,9 +154,7 @@ export async function addObservationPhoto(
   db: Knex,
   opts: { observationId: number; userId: number; uploadDir: string; bytes: Uint8Array; now?: Date },
 ): Promise<Observation> {
-  const plotId = await plotOfObservation(db, opts.observationId);
-  if (plotId === null) throw notFound('The observation');
-  await plotBookAccess(db, { plotId, userId: opts.userId, write: true, now: opts.now });
+  await assertCanAddPhoto(db, opts);
   // Cheap refusals first, so a fifth photo is not decoded at all; the count is checked again under the lock.
   const [{ n }] = await db('observation_photos').where({ observation_id: opts.observationId }).count({ n: '*' });
   if (Number(n) >= MAX_PHOTOS_PER_OBSERVATION) throw tooMany();

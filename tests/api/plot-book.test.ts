@@ -440,6 +440,11 @@ describe('observation photos', () => {
     await setShared(s, true);
     expect((await s.ines.get(photo.thumbUrl)).status).toBe(200);
     expect((await upload(s.ines, s.observationId, await jpeg(20, 20), 'mine.jpg')).status).toBe(403);
+    expect((await upload(s.outsider, s.observationId, await jpeg(20, 20), 'theirs.jpg')).status).toBe(404);
+    expect((await upload(await browserLikeAgent(t.app), s.observationId, await jpeg(20, 20), 'anon.jpg')).status).toBe(401);
+    expect((await upload(s.hana, 999999, await jpeg(20, 20), 'nowhere.jpg')).status).toBe(404);
+    expect(await t.db('observation_photos').count({ n: '*' })).toEqual([{ n: 1 }]);
+    expect(storedFiles()).toHaveLength(2);
     expect((await s.hana.get('/api/observation-photos/999999')).status).toBe(404);
     const book = (await s.ines.get(`/api/plots/${s.plotA}/book`).expect(200)).body;
     expect(book.observations[0].photos).toEqual([photo]);
