@@ -1,17 +1,12 @@
 import type { Knex } from 'knex';
 import type { Crop } from '@shared/crops/types';
-import { plantingDates, plantsInArea, plantsInRows } from '@shared/plot-book';
-import type { Planting, PlantingBody, PlantingComputed, PlantingUpdateBody } from '@shared/schemas/plot-book';
+import { computePlanting, type SiteClimate } from '@shared/plot-book';
+import type { Planting, PlantingBody, PlantingUpdateBody } from '@shared/schemas/plot-book';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { assertPartInside, plotBookAccess } from './plot-book';
 
-/** What a site tells the plot book: typical frost dates ('MM-DD') and twelve monthly soil temperatures (°C), each possibly missing. */
-export interface SiteClimate {
-  lastSpringFrost: string | null;
-  firstAutumnFrost: string | null;
-  soilTempsC: number[] | null;
-}
+export type { SiteClimate };
 
 interface PlantingRow {
   id: number;
@@ -50,67 +45,6 @@ const plantingRows = (db: Db) =>
       'c.family as crop_family',
       'c.data as crop_data',
     );
-
-/**
- * A planting's computed facts from the crop notes: area, plants that fit (at the wider end of each
- * spacing range, the spacing plants end at after thinning; the holder's own row count when given), the
- * dates from shared/plot-book with the site's frost dates and the soil temperature of the planting's month.
- */
-export function computePlanting(
-  crop: Crop,
-  p: { width: number; length: number; layout: Planting['layout']; rowCount: number | null; quantity: number | null; method: Planting['method']; plantedOn: string },
-  climate: SiteClimate,
-): PlantingComputed {
-  const areaM2 = p.width * p.length;
-  const inRowCm = crop.inRowCm?.value?.max;
-  const betweenRowCm = crop.betweenRowCm?.value?.max;
-  const equalCm = crop.equalSpacingCm?.value?.max;
-  let plantsThatFit: PlantingComputed['plantsThatFit'] = null;
-  if (p.layout === 'rows' && inRowCm) {
-    if (p.rowCount !== null) {
-      const fit = plantsInRows({ rowLengthM: Math.max(p.width, p.length), rows: p.rowCount, inRowCm });
-      plantsThatFit = { ...fit, inRowCm, betweenRowCm: betweenRowCm ?? null };
-    } else if (betweenRowCm) {
-      const fit = plantsInArea({ widthM: p.width, lengthM: p.length, method: 'rows', inRowCm, betweenRowCm });
-      plantsThatFit = { plants: fit.plants, rows: fit.rows, perRow: fit.perRow, inRowCm, betweenRowCm };
-    }
-  } else if (p.layout === 'intensive' && equalCm) {
-    const fit = plantsInArea({ widthM: p.width, lengthM: p.length, method: 'intensive', equalSpacingCm: equalCm });
-    plantsThatFit = { plants: fit.plants, rows: fit.rows, perRow: fit.perRow, inRowCm: equalCm, betweenRowCm: equalCm };
-  }
-
-  const year = p.plantedOn.slice(0, 4);
-  const month = Number(p.plantedOn.slice(5, 7));
-  const soil = climate.soilTempsC?.[month - 1];
-  const soilTempC = typeof soil === 'number' && Number.isFinite(soil) ? soil : null;
-  const dates = plantingDates({
-    crop,
-    method: p.method,
-    date: p.plantedOn,
-    soilC: soilTempC ?? undefined,
-    lastSpringFrost: climate.lastSpringFrost ? `${year}-${climate.lastSpringFrost}` : undefined,
-    firstAutumnFrost: climate.firstAutumnFrost ? `${year}-${climate.firstAutumnFrost}` : undefined,
-  });
-
-  const warnings: PlantingComputed['warnings'] = [...dates.warnings];
-  if (plantsThatFit && plantsThatFit.plants === 0) {
-    warnings.push({ kind: 'no_room', message: 'This part is narrower than one spacing of this crop; give the number of rows or a larger part.' });
-  } else if (plantsThatFit && p.quantity !== null && p.quantity > plantsThatFit.plants) {
-    warnings.push({ kind: 'crowded', message: `${p.quantity} plants are more than the ${plantsThatFit.plants} that fit at the crop's spacing.` });
-  }
-  return {
-    areaM2,
-    plantsThatFit,
-    soilTempC,
-    emergence: dates.emergence
-      ? { expected: dates.emergence.expected, earliest: dates.emergence.earliest, latest: dates.emergence.latest, basis: dates.emergence.estimate.basis }
-      : null,
-    thinning: dates.thinning,
-    sideDressing: dates.sideDressing,
-    harvestWindow: dates.harvest,
-    warnings,
-  };
-}
 
 function partOf(r: Pick<PlantingRow, 'part_x_m' | 'part_y_m' | 'part_width_m' | 'part_length_m'>): Planting['part'] {
   if (r.part_x_m === null || r.part_y_m === null || r.part_width_m === null || r.part_length_m === null) return null;

@@ -81,7 +81,8 @@ export const PlantingComputedSchema = z.object({
   emergence: DateWindowSchema.extend({ expected: z.string(), basis: z.enum(['table', 'range']) }).nullable(),
   thinning: z.string().nullable(),
   sideDressing: DateWindowSchema.nullable(),
-  harvestWindow: DateWindowSchema.extend({ countedFrom: z.enum(['sowing', 'transplanting']), allowanceDays: z.number() }),
+  /** Null only when a club's own crop lacks the values the dates need (a warning says so). */
+  harvestWindow: DateWindowSchema.extend({ countedFrom: z.enum(['sowing', 'transplanting']), allowanceDays: z.number() }).nullable(),
   warnings: z.array(z.looseObject({ kind: z.string(), message: z.string() })),
 });
 export type PlantingComputed = z.infer<typeof PlantingComputedSchema>;
