@@ -55,7 +55,7 @@ export function computePlanting(crop: Crop, p: PlantingShape, climate: SiteClima
   const month = Number(p.plantedOn.slice(5, 7));
   const soil = climate.soilTempsC?.[month - 1];
   const soilTempC = typeof soil === 'number' && Number.isFinite(soil) ? soil : null;
-  let dates: PlantingDates | null = null;
+  let dates: PlantingDates | null;
   try {
     dates = plantingDates({
       crop,
