@@ -12,7 +12,7 @@ import type { Deps } from '../deps';
 import { AppError, notFound, parseInput } from '../errors';
 import { requireUser } from '../middleware/auth';
 import { createHarvest, deleteHarvest } from '../services/harvests';
-import { addObservationPhoto, assertCanAddPhoto, createObservation, findObservationPhoto, MAX_PHOTO_BYTES } from '../services/observations';
+import { addObservationPhoto, assertCanAddPhoto, createObservation, deleteObservation, findObservationPhoto, MAX_PHOTO_BYTES } from '../services/observations';
 import { getPlotBook } from '../services/plot-book';
 import { createPlanting, deletePlanting, plantingById, updatePlanting } from '../services/plantings';
 
@@ -104,6 +104,11 @@ export function plotBookRouter({ db, config }: Deps): Router {
     const plotId = idParam(req, 'plotId');
     const body = parseInput(ObservationBodySchema, req.body);
     res.status(201).json(await createObservation(db, { plotId, userId: req.session.userId!, body }));
+  });
+
+  router.delete('/observations/:observationId', requireUser, async (req, res) => {
+    await deleteObservation(db, { observationId: idParam(req, 'observationId'), userId: req.session.userId!, uploadDir: config.uploadDir });
+    res.status(204).end();
   });
 
   // Who may add a photo is settled before the upload is read, so nobody else can make the server hold 8 MB.

@@ -214,3 +214,18 @@ export async function findObservationPhoto(
   // Thumbnails are always WebP; the full photo keeps the type it was stored with.
   return { folder: photoFolder(opts.uploadDir), name, mime: opts.thumb ? 'image/webp' : row.mime };
 }
+
+/** Deletes an observation with its photos (by whoever may change its plot's book); the files go once the rows are gone. */
+export async function deleteObservation(db: Knex, opts: { observationId: number; userId: number; uploadDir: string; now?: Date }): Promise<void> {
+  const names = await db.transaction(async (trx) => {
+    const row = await trx('observations').where({ id: opts.observationId }).forUpdate().first('id', 'plot_id');
+    if (!row) throw notFound('The observation');
+    await plotBookAccess(trx, { plotId: row.plot_id, userId: opts.userId, write: true, now: opts.now });
+    const photos: Array<{ file_name: string; thumb_name: string }> = await trx('observation_photos').where({ observation_id: row.id }).select('file_name', 'thumb_name');
+    await trx('observations').where({ id: row.id }).delete();
+    return photos.flatMap((p) => [p.file_name, p.thumb_name]);
+  });
+  // After the commit: a crash here leaves an unreferenced file, never a row pointing at nothing.
+  const folder = photoFolder(opts.uploadDir);
+  for (const name of names) if (STORED_NAME.test(name)) await fs.rm(path.join(folder, name), { force: true });
+}

@@ -248,6 +248,9 @@ describe('PATCH and DELETE /api/plantings/:plantingId', () => {
   it('changes a planting by version, refuses a stale one (409), and deletes it with its harvests', async () => {
     const s = await club();
     const created = (await s.hana.post(`/api/plots/${s.plotA}/plantings`, radishRow(s)).expect(201)).body;
+    expect((await s.hana.get(`/api/plantings/${created.id}`).expect(200)).body).toEqual(created);
+    expect((await s.ines.get(`/api/plantings/${created.id}`)).status).toBe(403);
+    expect((await s.outsider.get(`/api/plantings/${created.id}`)).status).toBe(404);
     const changed = await s.hana.patch(`/api/plantings/${created.id}`, { version: 1, status: 'up', rowCount: 2 });
     expect(changed.status, JSON.stringify(changed.body)).toBe(200);
     expect(changed.body).toMatchObject({ status: 'up', rowCount: 2, version: 2 });
@@ -448,6 +451,16 @@ describe('observation photos', () => {
     expect((await s.hana.get('/api/observation-photos/999999')).status).toBe(404);
     const book = (await s.ines.get(`/api/plots/${s.plotA}/book`).expect(200)).body;
     expect(book.observations[0].photos).toEqual([photo]);
+
+    // Deleting the observation takes its photos' rows and files with it; a reader may not.
+    expect((await s.ines.delete(`/api/observations/${s.observationId}`)).status).toBe(403);
+    expect((await s.outsider.delete(`/api/observations/${s.observationId}`)).status).toBe(404);
+    expect((await s.hana.delete(`/api/observations/${s.observationId}`)).status).toBe(204);
+    expect(await t.db('observation_photos').count({ n: '*' })).toEqual([{ n: 0 }]);
+    expect(await t.db('observations').count({ n: '*' })).toEqual([{ n: 0 }]);
+    expect(storedFiles()).toEqual([]);
+    expect((await s.hana.get(photo.url)).status).toBe(404);
+    expect((await s.hana.delete(`/api/observations/${s.observationId}`)).status).toBe(404);
   });
 
   it('refuses a text file named .jpg, a 20000 × 20000 PNG header and a fifth photo with 400 on `photo`, leaving no file and no row', async () => {
