@@ -24,6 +24,7 @@ import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
 import { membersRouter } from './routes/members';
 import { myPlotRouter } from './routes/my-plot';
 import { passwordResetsRouter } from './routes/password-resets';
+import { plotBookRouter } from './routes/plot-book';
 import { plotImportsRouter } from './routes/plot-imports';
 import { offersRouter } from './routes/offers';
 import { outboxRouter } from './routes/outbox';
@@ -145,6 +146,8 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/clubs/:clubId', clubFeesRouter(deps));
   app.use('/api/fees', feesRouter(deps));
   app.use('/api/me/fees', myFeesRouter(deps));
+  // Plot books: /api/plots/:plotId/book, /api/plantings, /api/harvests, /api/observations, /api/observation-photos.
+  app.use('/api', plotBookRouter(deps));
   app.use('/api', apiNotFound);
 
   const indexHtml = path.join(config.staticDir, 'index.html');

@@ -217,6 +217,9 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
     daysToMaturity: { value: { min: 80, max: 100, from: 'sowing' }, source: 'from-memory' },
   }),
   'PUT /api/clubs/:clubId/crops/:cropId/overrides/:field': () => ({ value: { min: 30, max: 40, from: 'sowing' }, source: 'from-memory' }),
+  // Crop 1 is a reference crop (loaded after every truncation); the part lies inside the fixture's plot.
+  'POST /api/plots/:plotId/plantings': () => ({ cropId: 1, method: 'sown', plantedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
+  'POST /api/plots/:plotId/observations': () => ({ pestSlug: 'clubroot', severity: 'light', observedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
 };
 const feeSchedule = {
   basis: 'kind',
@@ -280,6 +283,11 @@ function paramValue(name: string, x: Fixture): string | null {
     // Records that do not exist: the destructive member and invite routes then answer 404, never 5xx.
     inviteId: 999999,
     userId: 999999,
+    // Plot-book records that do not exist: their routes answer 404.
+    plantingId: 999999,
+    harvestId: 999999,
+    observationId: 999999,
+    photoId: 999999,
     role: 'volunteer',
     clubSlug: x.slug,
     // A reference crop (truncateAll loads them: ids from 1) and a field the overrides allow.

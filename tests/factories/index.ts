@@ -1,5 +1,6 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
+import { cropBySlug } from '@shared/crops';
 import type { Role } from '@shared/schemas/auth';
 
 let counter = 0;
@@ -93,4 +94,20 @@ export async function buildApplication(
     })
     .returning(['id', 'name', 'email']);
   return row;
+}
+
+/**
+ * Puts a reference crop (club_id null, `data` the whole crop from shared/crops) into the crops table,
+ * or returns the row already there, so tests work before and after the catalogue loader has run.
+ */
+export async function buildCrop(db: Knex, slug: string): Promise<{ id: number; slug: string; commonName: string; family: string }> {
+  const crop = cropBySlug(slug);
+  if (!crop) throw new Error(`No crop ${slug} in shared/crops`);
+  await db.raw(
+    `insert into crops (club_id, slug, common_name, family, kind, data) values (null, ?, ?, ?, ?, ?::jsonb)
+     on conflict ((coalesce(club_id, 0)), slug) do nothing`,
+    [crop.slug, crop.commonName, crop.family.value, crop.kind, JSON.stringify(crop)],
+  );
+  const row = await db('crops').whereNull('club_id').where({ slug }).first('id', 'slug', 'common_name', 'family');
+  return { id: row.id, slug: row.slug, commonName: row.common_name, family: row.family };
 }
