@@ -10,6 +10,10 @@ export const paths = {
   siteEdit: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/edit`,
   sitePlots: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/plots`,
   plot: (clubId: number, plotId: number) => `/clubs/${clubId}/plots/${plotId}`,
+  /** A plot's plot book; `year` picks an earlier season. */
+  plotBook: (clubId: number, plotId: number, year?: number) => `/clubs/${clubId}/plots/${plotId}/book${year ? `?year=${year}` : ''}`,
+  crops: (clubId: number) => `/clubs/${clubId}/crops`,
+  crop: (clubId: number, cropId: number) => `/clubs/${clubId}/crops/${cropId}`,
   springRound: (clubId: number) => `/clubs/${clubId}/spring-round`,
   waitlist: (clubId: number) => `/clubs/${clubId}/waitlist`,
   messages: (clubId: number) => `/clubs/${clubId}/messages`,
