@@ -184,10 +184,10 @@ function Values({ crop }: { crop: TypedCropDetail }) {
               <Value term="Crop coefficient Kc" value={crop.kc} {...v}>
                 {(kc) => (
                   <ul>
-                    <li>Early growth: {trimNumber(kc.initial, 2)}</li>
+                    <li>Initial stage: {trimNumber(kc.initial, 2)}</li>
                     <li>Mid-season: {trimNumber(kc.mid, 2)}</li>
                     <li>
-                      End of season: {kc.end.min === kc.end.max ? trimNumber(kc.end.min, 2) : `${trimNumber(kc.end.min, 2)}–${trimNumber(kc.end.max, 2)}`}
+                      At the end: {kc.end.min === kc.end.max ? trimNumber(kc.end.min, 2) : `${trimNumber(kc.end.min, 2)}–${trimNumber(kc.end.max, 2)}`}
                     </li>
                   </ul>
                 )}
@@ -197,7 +197,7 @@ function Values({ crop }: { crop: TypedCropDetail }) {
               <Value term="Growth stages" value={crop.stages} {...v}>
                 {(s) => (
                   <ul>
-                    <li>Early growth: {s.initial} days</li>
+                    <li>Initial stage: {s.initial} days</li>
                     <li>Development: {s.development} days</li>
                     <li>Mid-season: {s.mid} days</li>
                     <li>Late season: {s.late} days</li>
