@@ -28,6 +28,7 @@ describe('crop notes', () => {
     await w.page.getByLabel('Search by name').fill('rad');
     // Beet's row goes once the filter has run; radish stays.
     await table.getByRole('link', { name: 'Beet', exact: true }).waitFor({ state: 'detached' });
+    await w.shot('crop-notes-search-phone');
     await table.getByRole('link', { name: 'Radish', exact: true }).click();
 
     await w.page.getByRole('heading', { level: 1, name: 'Radish' }).waitFor();

@@ -237,14 +237,14 @@ function scopeText(scope: CropRelationView['scope']): string {
 function RelationItem({ clubId, relation }: { clubId: number; relation: CropRelationView }) {
   const apart = relation.effect === 'antagonistic';
   return (
-    <li className="py-3">
+    <li className="py-2">
       <p className="flex flex-wrap items-center gap-2">
         {apart ? (
           <Split className="size-5 text-clay-700" aria-hidden="true" />
         ) : (
           <Handshake className="size-5 text-leaf" aria-hidden="true" />
         )}
-        <Link to={paths.crop(clubId, relation.otherCrop.id)} className="font-semibold">
+        <Link to={paths.crop(clubId, relation.otherCrop.id)} className="inline-flex min-h-11 items-center font-semibold">
           {relation.otherCrop.commonName}
         </Link>
         {relation.severity && <Badge tone={relation.severity === 'clash' ? 'straw' : 'neutral'}>{relation.severity}</Badge>}
@@ -337,7 +337,7 @@ function Guidance({ crop }: { crop: CropDetail }) {
           ))}
         </dl>
       )}
-      <p className="mt-3 text-sm text-stone">Written in our own words from the values above; each value names its source.</p>
+      <p className="mt-3 text-sm text-stone">Written in our own words; the values above name their sources.</p>
     </Group>
   );
 }
@@ -354,11 +354,13 @@ function WatchFor({ crop }: { crop: CropDetail }) {
           {crop.watchFor.map((slug) => {
             const pest = pestBySlug.get(slug);
             return (
-              <li key={slug} className="flex flex-wrap items-center gap-2 py-2.5">
-                <Bug className="size-5 text-stone" aria-hidden="true" />
-                <span className="font-medium">{pest?.name ?? slug}</span>
-                {pest && <Badge>{pest.kind}</Badge>}
-                {pest?.soilBorne && <Badge tone="straw">stays in the soil: lengthens the rotation</Badge>}
+              <li key={slug} className="flex gap-3 py-2.5">
+                <Bug className="mt-0.5 size-5 shrink-0 text-stone" aria-hidden="true" />
+                <div className="flex min-w-0 flex-wrap items-center gap-2">
+                  <span className="font-medium">{pest?.name ?? slug}</span>
+                  {pest && <Badge>{pest.kind}</Badge>}
+                  {pest?.soilBorne && <Badge tone="straw">stays in the soil: lengthens the rotation</Badge>}
+                </div>
               </li>
             );
           })}
