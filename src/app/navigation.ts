@@ -10,6 +10,7 @@ import {
   Map as MapIcon,
   Settings,
   Shovel,
+  Sprout,
   Users,
 } from 'lucide-react';
 import type { ClubMembership } from '@shared/schemas/auth';
@@ -38,6 +39,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
   if (club.roles.includes('volunteer')) {
     items.push({ to: paths.shifts(id), label: 'Shifts', icon: HandHelping, comingSoon: true });
   }
+  items.push({ to: paths.crops(id), label: 'Crop notes', icon: Sprout });
   // Settings are visited least, so they come last, after every role's own pages.
   if (club.roles.includes('coordinator')) items.push({ to: paths.clubSettings(id), label: 'Settings', icon: Settings });
   return items;

@@ -71,6 +71,8 @@ export const router = createBrowserRouter([
                 lazy: () => import('./routes/site-plots').then((m) => ({ Component: m.SitePlotsRoute })),
               },
               { path: 'plots/:plotId', lazy: () => import('./routes/plot').then((m) => ({ Component: m.PlotRoute })) },
+              { path: 'crops', lazy: () => import('./routes/crops').then((m) => ({ Component: m.CropsRoute })) },
+              { path: 'crops/:cropId', lazy: () => import('./routes/crop').then((m) => ({ Component: m.CropRoute })) },
               { path: 'map', lazy: () => import('./routes/map').then((m) => ({ Component: m.MapRoute })) },
               { path: 'fees', lazy: () => import('./routes/fees').then((m) => ({ Component: m.FeesRoute })) },
               {

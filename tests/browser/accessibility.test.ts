@@ -65,6 +65,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
     const db = createDb(testConfig().databaseUrl);
     const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
     const a1 = await db('plots as p').join('sites as s', 's.id', 'p.site_id').where({ 's.club_id': club.id, 'p.label': 'A-1' }).first('p.id');
+    const radish = await db('crops').whereNull('club_id').where({ slug: 'radish' }).first('id');
     await db.destroy();
     const people: Array<[string, Array<[string, string]>]> = [
       [
@@ -72,6 +73,8 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
         [
           ['', 'Mossgate Community Garden Club'],
           [`/plots/${a1.id}`, 'Plot A-1'],
+          ['/crops', 'Crop notes'],
+          [`/crops/${radish.id}`, 'Radish'],
           ['/email-choices', 'E-mail choices'],
         ],
       ],
