@@ -91,16 +91,24 @@ async function getObservation(db: Db, observationId: number): Promise<Observatio
 
 /**
  * Records a pest, disease or other observation on a plot. A pest or disease from the list brings its
- * name and kind, and a soil-borne one is kept with `is_soil_borne` so the rotation rules read it.
+ * name and kind, and a soil-borne one is kept with `is_soil_borne` so the rotation rules read it. One
+ * seen on a planting with no part of its own is kept against the soil under that planting.
  */
 export async function createObservation(db: Knex, opts: { plotId: number; userId: number; body: ObservationBody; now?: Date }): Promise<Observation> {
   const id = await db.transaction(async (trx) => {
     const access = await plotBookAccess(trx, { plotId: opts.plotId, userId: opts.userId, write: true, now: opts.now });
     const b = opts.body;
     assertPartInside(access.plot, b.part);
+    let part = b.part;
     if (b.plantingId !== null) {
-      const planting = await trx('plantings').where({ id: b.plantingId, plot_id: access.plot.id }).first('id');
+      const planting = await trx('plantings')
+        .where({ id: b.plantingId, plot_id: access.plot.id })
+        .first('id', 'part_x_m', 'part_y_m', 'part_width_m', 'part_length_m');
       if (!planting) throw new AppError('validation_failed', 'That planting is not on this plot.', { plantingId: 'Choose a planting on this plot' });
+      // Seen on a planting and no part given: it was in the soil under that planting.
+      if (!part && planting.part_x_m !== null) {
+        part = { x: Number(planting.part_x_m), y: Number(planting.part_y_m), width: Number(planting.part_width_m), length: Number(planting.part_length_m) };
+      }
     }
     const pest = b.pestSlug ? pestBySlug(b.pestSlug) : undefined;
     const [row] = await trx('observations')
@@ -111,10 +119,10 @@ export async function createObservation(db: Knex, opts: { plotId: number; userId
         name: b.name ?? pest?.name ?? '',
         kind: b.kind ?? pest?.kind ?? 'other',
         is_soil_borne: pest?.soilBorne ?? false,
-        part_x_m: b.part?.x ?? null,
-        part_y_m: b.part?.y ?? null,
-        part_width_m: b.part?.width ?? null,
-        part_length_m: b.part?.length ?? null,
+        part_x_m: part?.x ?? null,
+        part_y_m: part?.y ?? null,
+        part_width_m: part?.width ?? null,
+        part_length_m: part?.length ?? null,
         severity: b.severity,
         observed_on: b.observedOn,
         notes: b.notes,

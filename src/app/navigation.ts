@@ -34,7 +34,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
     );
   }
   if (club.roles.includes('plot_holder')) {
-    items.push({ to: paths.myPlot(id), label: 'My plot', icon: Shovel, comingSoon: true });
+    items.push({ to: paths.myPlot(id), label: 'My plot book', icon: Shovel });
   }
   if (club.roles.includes('volunteer')) {
     items.push({ to: paths.shifts(id), label: 'Shifts', icon: HandHelping, comingSoon: true });

@@ -71,6 +71,7 @@ export const router = createBrowserRouter([
                 lazy: () => import('./routes/site-plots').then((m) => ({ Component: m.SitePlotsRoute })),
               },
               { path: 'plots/:plotId', lazy: () => import('./routes/plot').then((m) => ({ Component: m.PlotRoute })) },
+              { path: 'plots/:plotId/book', lazy: () => import('./routes/plot-book').then((m) => ({ Component: m.PlotBookRoute })) },
               { path: 'crops', lazy: () => import('./routes/crops').then((m) => ({ Component: m.CropsRoute })) },
               { path: 'crops/:cropId', lazy: () => import('./routes/crop').then((m) => ({ Component: m.CropRoute })) },
               { path: 'map', lazy: () => import('./routes/map').then((m) => ({ Component: m.MapRoute })) },
@@ -96,10 +97,7 @@ export const router = createBrowserRouter([
                 path: 'spring-round',
                 lazy: () => import('./routes/spring-round').then((m) => ({ Component: m.SpringRoundRoute })),
               },
-              {
-                path: 'my-plot',
-                element: <ComingSoonRoute title="My plot" description="Your plot, its plot book and watering cover." />,
-              },
+              { path: 'my-plot', lazy: () => import('./routes/my-plot').then((m) => ({ Component: m.MyPlotRoute })) },
               {
                 path: 'shifts',
                 element: <ComingSoonRoute title="Shifts" description="Watering and weeding shifts you can claim." />,

@@ -356,6 +356,11 @@ describe('observations', () => {
     expect(await t.db('observations').where({ id: clubroot.body.id }).first('is_soil_borne', 'kind', 'name')).toEqual({ is_soil_borne: true, kind: 'disease', name: 'Clubroot' });
     const aphids = (await s.hana.post(`/api/plots/${s.plotA}/observations`, { pestSlug: 'aphids', severity: 'light', observedOn: today }).expect(201)).body;
     expect(aphids.isSoilBorne).toBe(false);
+    // Seen on a planting that covers part of the plot, with no part given: kept against the soil under that planting.
+    const strip = (await s.hana.post(`/api/plots/${s.plotA}/plantings`, { ...radishRow(s), part: { x: 1, y: 0.5, width: 0.6, length: 2 } }).expect(201)).body;
+    const onStrip = (await s.hana.post(`/api/plots/${s.plotA}/observations`, { pestSlug: 'clubroot', severity: 'light', observedOn: today, plantingId: strip.id }).expect(201)).body;
+    expect(onStrip.part).toEqual({ x: 1, y: 0.5, width: 0.6, length: 2 });
+    await t.db('observations').where({ id: onStrip.id }).delete();
     const other = (await s.coordinator.post(`/api/plots/${s.plotA}/observations`, { name: 'Hail damage', kind: 'other', severity: 'severe', observedOn: today }).expect(201)).body;
     expect(other).toMatchObject({ pestSlug: null, name: 'Hail damage', kind: 'other', isSoilBorne: false, part: null });
 

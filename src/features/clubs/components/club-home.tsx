@@ -50,7 +50,7 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
       ];
     case 'plot_holder':
       return [
-        { title: 'Plot book', body: 'Note what you sowed, planted and harvested, bed by bed.', icon: BookOpen },
+        { title: 'Plot book', body: 'Note what you sowed, planted and harvested, and see when to thin, feed and pick.', icon: BookOpen, href: paths.myPlot(clubId) },
         { title: 'Ask for watering cover', body: 'Going away? Ask a volunteer to water while you are gone.', icon: Droplets },
       ];
     case 'volunteer':

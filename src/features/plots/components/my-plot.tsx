@@ -1,4 +1,4 @@
-import { CalendarClock, Shovel } from 'lucide-react';
+import { BookOpen, CalendarClock, Shovel } from 'lucide-react';
 import { Link } from 'react-router-dom';
 import { plotKindLabels } from '@shared/schemas/plots';
 import type { MyPlotHolding } from '@shared/schemas/my-plot';
@@ -77,6 +77,10 @@ export function MyPlot({ clubId }: { clubId: number }) {
                   <dd>{mine.data.holding.seasonYear}</dd>
                 </dl>
               </div>
+              <Link to={paths.plotBook(clubId, mine.data.holding.plotId)} className={`${buttonClasses('primary')} w-full sm:w-auto`}>
+                <BookOpen className="size-5" aria-hidden="true" />
+                Open the plot book
+              </Link>
               <HoldingMap holding={mine.data.holding} />
             </Card>
           ) : (

@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDistanceToNow, parseISO } from 'date-fns';
 import { formatDate, formatDateTime } from '@shared/dates';
-import { ArrowLeft, History, Map as MapIcon, SearchX, Users } from 'lucide-react';
+import { ArrowLeft, BookOpen, History, Map as MapIcon, SearchX, Users } from 'lucide-react';
 import { formatLength } from '@shared/geometry';
 import { plotKindLabels, sunLabels, type PlotDetail, type PlotKind } from '@shared/schemas/plots';
 import { buttonClasses } from '@/components/ui/button';
@@ -164,12 +164,20 @@ function LoadedPlotPage({ clubId, plotId, canEdit }: PlotPageProps) {
         title={`Plot ${plot.label}`}
         description={`${kindLabel(plot.kind)}, ${formatSize(plot.width, plot.length, plot.units)} (${formatPlotArea(plot.area, plot.units)})`}
         actions={
-          canEdit && (
-            <Link to={`${paths.map(clubId)}?site=${plot.siteId}&plot=${plot.id}`} className={buttonClasses('secondary')}>
-              <MapIcon className="size-5" aria-hidden="true" />
-              Edit on the map
-            </Link>
-          )
+          <div className="flex flex-wrap gap-2">
+            {(canEdit || plot.holder) && (
+              <Link to={paths.plotBook(clubId, plot.id)} className={buttonClasses('primary')}>
+                <BookOpen className="size-5" aria-hidden="true" />
+                Plot book
+              </Link>
+            )}
+            {canEdit && (
+              <Link to={`${paths.map(clubId)}?site=${plot.siteId}&plot=${plot.id}`} className={buttonClasses('secondary')}>
+                <MapIcon className="size-5" aria-hidden="true" />
+                Edit on the map
+              </Link>
+            )}
+          </div>
         }
       />
       <div className="grid gap-6 lg:grid-cols-2">

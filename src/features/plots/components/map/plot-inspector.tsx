@@ -148,9 +148,16 @@ export function PlotInspector({ plot, units, canEdit, neighbours, plotHref, onSa
             {formatArea(plot.area, units)}
           </p>
         </div>
-        <Link to={plotHref} className="inline-flex min-h-11 items-center gap-1 font-medium">
-          Plot page <ExternalLink className="size-4" aria-hidden="true" />
-        </Link>
+        <div className="flex flex-col items-end">
+          <Link to={plotHref} className="inline-flex min-h-11 items-center gap-1 font-medium">
+            Plot page <ExternalLink className="size-4" aria-hidden="true" />
+          </Link>
+          {plot.kind !== 'shared_bed' && (
+            <Link to={`${plotHref}/book`} className="inline-flex min-h-11 items-center gap-1 font-medium">
+              Plot book <ExternalLink className="size-4" aria-hidden="true" />
+            </Link>
+          )}
+        </div>
       </div>
 
       <div>

@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiFetch } from '@/lib/api/client';
+import { plotBookKeys } from './keys';
+
+/** DELETE /api/plantings/:plantingId: the planting and its harvests. */
+export function deletePlanting(plantingId: number): Promise<undefined> {
+  return apiFetch(`/api/plantings/${plantingId}`, { method: 'DELETE' });
+}
+
+/** Removes a planting and refreshes the plot's book. */
+export function useDeletePlanting(plotId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (plantingId: number) => deletePlanting(plantingId),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: plotBookKeys.plot(plotId) }),
+  });
+}

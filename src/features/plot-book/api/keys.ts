@@ -1,0 +1,9 @@
+/** Query keys for plot books: `['plot-book', 'detail', { plotId, year }]` and `['plot-book', 'crop-options', clubId]`. */
+export const plotBookKeys = {
+  all: ['plot-book'] as const,
+  details: () => [...plotBookKeys.all, 'detail'] as const,
+  /** Every season's view of one plot's book. */
+  plot: (plotId: number) => [...plotBookKeys.details(), { plotId }] as const,
+  detail: (filters: { plotId: number; year?: number }) => [...plotBookKeys.details(), filters] as const,
+  cropOptions: (clubId: number) => [...plotBookKeys.all, 'crop-options', clubId] as const,
+};
