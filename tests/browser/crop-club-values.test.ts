@@ -73,7 +73,8 @@ describe('club values and club crops', () => {
     const add = w.page.getByRole('dialog', { name: 'Add a club crop' });
     await add.waitFor();
     // Test values a coordinator might type for a crop the catalogue lacks, marked "From memory".
-    await add.getByLabel('Common name').fill('Broad bean');
+    // First under a name the reference crops already use: the server refuses it (409) on the name's input.
+    await add.getByLabel('Common name').fill('Radish');
     await add.getByLabel('Botanical name', { exact: true }).fill('Vicia faba');
     await add.getByLabel('Botanical family', { exact: true }).fill('Fabaceae');
     await add.getByLabel('Kind').selectOption({ label: 'Legume' });
@@ -86,6 +87,16 @@ describe('club values and club crops', () => {
     }
     await w.shot('crop-club-crop-dialog-desktop');
     await add.getByRole('button', { name: 'Save the club crop' }).click();
+    // server/services/crops.ts createClubCrop: the field message for a reference crop's name.
+    await add.getByText('Already in the reference crops', { exact: true }).waitFor();
+    expect(await add.getByLabel('Common name').getAttribute('aria-invalid')).toBe('true');
+    // The refused save keeps what was typed.
+    expect(await add.getByLabel('Botanical name', { exact: true }).inputValue()).toBe('Vicia faba');
+    expect(await add.getByLabel('Most (days)').inputValue()).toBe('100');
+    expect(await add.getByLabel('Source of the days to maturity').inputValue()).toBe('from-memory');
+    expect(await overrides(clubId, radishId)).toEqual([]);
+    await add.getByLabel('Common name').fill('Broad bean');
+    await add.getByRole('button', { name: 'Save the club crop' }).click();
     await dialogClosed(w.page);
 
     await w.page.getByRole('heading', { level: 1, name: 'Broad bean' }).waitFor();
@@ -97,7 +108,9 @@ describe('club values and club crops', () => {
     expect(row).toMatchObject({ common_name: 'Broad bean', family: 'Fabaceae', kind: 'legume' });
     expect(row.data.daysToMaturity).toEqual({ value: { min: 80, max: 100, from: 'sowing' }, source: 'from-memory' });
     await w.shot('crop-club-crop-desktop');
-    expect(w.errors).toEqual([]);
+    // The browser logs the refused 409 itself; nothing else may reach the console.
+    expect(w.errors.filter((e) => !/status of 409/.test(e))).toEqual([]);
+    expect(w.errors.filter((e) => /status of 409/.test(e))).toHaveLength(1);
     await w.page.context().close();
   }, 90_000);
 
@@ -110,6 +123,11 @@ describe('club values and club crops', () => {
     const dialog = w.page.getByRole('dialog', { name: 'Club value: soil pH' });
     await dialog.getByLabel('Source of the club value').selectOption({ label: 'Another source' });
     await dialog.getByLabel('Which source, for the club value').fill('Club soil test, 2025');
+    // shared/schemas/crops.ts rangeSchema: the most may not be below the least; checked before sending.
+    await dialog.getByLabel('Least (pH)').fill('8');
+    await dialog.getByLabel('Most (pH)').fill('6');
+    await dialog.getByRole('button', { name: 'Save the club value' }).click();
+    await dialog.getByText('Must not be below the minimum', { exact: true }).waitFor();
     await w.shot('crop-club-value-dialog-phone');
     expect(await axeViolations(w.page)).toEqual([]);
     expect(await w.page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
