@@ -216,6 +216,24 @@ export async function getCropDetail(db: Db, clubId: number, cropId: number): Pro
   };
 }
 
+/**
+ * Each crop's data as a club sees it (the club's overrides put in place of the reference values),
+ * for many crops in one query; crops without overrides come back as given.
+ */
+export async function withClubOverrides<T extends Record<string, unknown>>(db: Db, clubId: number, crops: { id: number; data: T }[]): Promise<Map<number, T>> {
+  const ids = [...new Set(crops.map((c) => c.id))];
+  const rows: { crop_id: number; field: string; value: SourcedJson }[] = ids.length
+    ? await db('crop_overrides').where({ club_id: clubId }).whereIn('crop_id', ids).select('crop_id', 'field', 'value')
+    : [];
+  const result = new Map<number, T>();
+  for (const c of crops) {
+    if (result.has(c.id)) continue;
+    const own = rows.filter((r) => r.crop_id === c.id);
+    result.set(c.id, own.length ? { ...c.data, ...Object.fromEntries(own.map((r) => [r.field, r.value])) } : c.data);
+  }
+  return result;
+}
+
 /** The slug a crop name gives: lower case letters and digits of any script, joined by hyphens. */
 export function cropSlug(name: string): string {
   return name

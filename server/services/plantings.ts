@@ -4,6 +4,7 @@ import { computePlanting, type SiteClimate } from '@shared/plot-book';
 import type { Planting, PlantingBody, PlantingUpdateBody } from '@shared/schemas/plot-book';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
+import { withClubOverrides } from './crops';
 import { assertPartInside, plotBookAccess } from './plot-book';
 
 export type { SiteClimate };
@@ -85,10 +86,19 @@ function toPlanting(r: PlantingRow, plot: { width: number; length: number }, cli
   };
 }
 
-/** Every planting of a plot, newest season first and by date within one, with their computed facts. */
-export async function loadPlantings(db: Db, opts: { plotId: number; plot: { width: number; length: number }; climate: SiteClimate }): Promise<Planting[]> {
+/** The rows with each crop's data as the plot's club sees it, so the dates follow the club's own values. */
+async function withClubCrops(db: Db, clubId: number, rows: PlantingRow[]): Promise<PlantingRow[]> {
+  const effective = await withClubOverrides(db, clubId, rows.map((r) => ({ id: r.crop_id, data: r.crop_data as unknown as Record<string, unknown> })));
+  return rows.map((r) => ({ ...r, crop_data: (effective.get(r.crop_id) ?? r.crop_data) as unknown as Crop }));
+}
+
+/** Every planting of a plot, newest season first and by date within one, with their computed facts from the club's crop values. */
+export async function loadPlantings(
+  db: Db,
+  opts: { plotId: number; plot: { clubId: number; width: number; length: number }; climate: SiteClimate },
+): Promise<Planting[]> {
   const rows: PlantingRow[] = await plantingRows(db).where('pl.plot_id', opts.plotId).orderBy([{ column: 'se.year', order: 'desc' }, 'pl.planted_on', 'pl.id']);
-  return rows.map((r) => toPlanting(r, opts.plot, opts.climate));
+  return (await withClubCrops(db, opts.plot.clubId, rows)).map((r) => toPlanting(r, opts.plot, opts.climate));
 }
 
 /** The plot a planting is on, or null when there is no such planting. */
@@ -103,10 +113,11 @@ async function assertCrop(db: Db, clubId: number, cropId: number) {
   if (!crop) throw new AppError('validation_failed', 'That crop is not in the crop notes.', { cropId: 'Choose a crop from the crop notes' });
 }
 
-async function getPlanting(db: Db, plantingId: number, plot: { width: number; length: number; climate: SiteClimate }): Promise<Planting> {
+async function getPlanting(db: Db, plantingId: number, plot: { clubId: number; width: number; length: number; climate: SiteClimate }): Promise<Planting> {
   const row: PlantingRow | undefined = await plantingRows(db).where('pl.id', plantingId).first();
   if (!row) throw notFound('The planting');
-  return toPlanting(row, plot, plot.climate);
+  const [effective] = await withClubCrops(db, plot.clubId, [row]);
+  return toPlanting(effective, plot, plot.climate);
 }
 
 const partColumns = (part: PlantingBody['part']) => ({

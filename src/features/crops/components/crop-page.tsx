@@ -27,6 +27,7 @@ import {
   trimNumber,
   type TypedCropDetail,
 } from '../lib/format';
+import { ClubValue, type ClubValueField } from './club-value';
 import { SourceNote } from './source-note';
 
 type Sourced<T> = { value: T; source: string; note?: string; overridden?: true };
@@ -48,11 +49,14 @@ function Value<T>({
   term,
   value,
   sources,
+  action,
   children,
 }: {
   term: string;
   value: Sourced<T> | undefined;
   sources: Map<string, CropSourceView>;
+  /** The coordinator's "Use a club value" controls, when this value takes one. */
+  action?: ReactNode;
   children: (v: T, note?: string) => ReactNode;
 }) {
   return (
@@ -67,51 +71,74 @@ function Value<T>({
             <SourceNote source={sources.get(value.source)} note={value.note} overridden={value.overridden} />
           </>
         )}
+        {action}
       </dd>
     </div>
   );
 }
 
+const termOf: Record<ClubValueField, string> = {
+  sowing: 'How it is sown',
+  sowingDepthCm: 'Sowing depth',
+  inRowCm: 'Apart in the row',
+  betweenRowCm: 'Between rows',
+  equalSpacingCm: 'Equal spacing in a bed',
+  daysToEmergence: 'Days to emergence',
+  daysToMaturity: 'Days to maturity',
+  matureHeightCm: 'Height when grown',
+  rootingDepthCm: 'Rooting depth',
+  feeding: 'Feeding',
+  soilPh: 'Soil pH',
+  sun: 'Sun',
+  frost: 'Frost',
+};
+
 // The Harrington columns: soil temperatures of 10, 15, 20, 25 and 30 °C (printed as 50–86 °F).
 const EMERGENCE_TEMPERATURES_C = [10, 15, 20, 25, 30];
 
-function Values({ crop }: { crop: TypedCropDetail }) {
+function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clubId: number; canSetClubValues: boolean }) {
   const sources = new Map(crop.sources.map((s) => [s.id, s]));
-  const v = { sources };
+  // Club values are for reference crops; a club crop's values are all the club's already.
+  const editable = canSetClubValues && !crop.isClubCrop;
+  const v = (field?: ClubValueField) => ({
+    sources,
+    action:
+      editable && field ? <ClubValue clubId={clubId} cropId={crop.id} field={field} term={termOf[field]} current={crop[field]} /> : undefined,
+  });
   return (
     <div className="grid gap-6 lg:grid-cols-2">
       <Group id="crop-names" title="Name and family">
         <dl>
-          <Value term="Botanical name" value={crop.botanicalName} {...v}>
+          <Value term="Botanical name" value={crop.botanicalName} {...v()}>
             {(name) => <i>{name}</i>}
           </Value>
-          <Value term="Botanical family" value={crop.family} {...v}>
+          <Value term="Botanical family" value={crop.family} {...v()}>
             {(family) => family}
           </Value>
         </dl>
       </Group>
       <Group id="crop-sowing" title="Sowing and spacing">
         <dl>
-          <Value term="How it is sown" value={crop.sowing} {...v}>
+          <Value term={termOf.sowing} value={crop.sowing} {...v('sowing')}>
             {(s) => sowingLabels[s]}
           </Value>
-          <Value term="Sowing depth" value={crop.sowingDepthCm} {...v}>
+          <Value term={termOf.sowingDepthCm} value={crop.sowingDepthCm} {...v('sowingDepthCm')}>
             {formatCmRange}
           </Value>
-          <Value term="Apart in the row" value={crop.inRowCm} {...v}>
+          <Value term={termOf.inRowCm} value={crop.inRowCm} {...v('inRowCm')}>
             {formatCmRange}
           </Value>
-          <Value term="Between rows" value={crop.betweenRowCm} {...v}>
+          <Value term={termOf.betweenRowCm} value={crop.betweenRowCm} {...v('betweenRowCm')}>
             {formatCmRange}
           </Value>
-          <Value term="Equal spacing in a bed" value={crop.equalSpacingCm} {...v}>
+          <Value term={termOf.equalSpacingCm} value={crop.equalSpacingCm} {...v('equalSpacingCm')}>
             {formatCmRange}
           </Value>
         </dl>
       </Group>
       <Group id="crop-germination" title="Germination and emergence">
         <dl>
-          <Value term="Soil temperature for germination" value={crop.germination} {...v}>
+          <Value term="Soil temperature for germination" value={crop.germination} {...v()}>
             {(g, note) => (
               <ul>
                 <li>Lowest: {formatTemperature(g.minC, note)}</li>
@@ -120,11 +147,11 @@ function Values({ crop }: { crop: TypedCropDetail }) {
               </ul>
             )}
           </Value>
-          <Value term="Days to emergence" value={crop.daysToEmergence} {...v}>
+          <Value term={termOf.daysToEmergence} value={crop.daysToEmergence} {...v('daysToEmergence')}>
             {formatDays}
           </Value>
           {crop.emergenceByTemperature && (
-            <Value term="Days to emergence by soil temperature" value={crop.emergenceByTemperature} {...v}>
+            <Value term="Days to emergence by soil temperature" value={crop.emergenceByTemperature} {...v()}>
               {(table) => (
                 <ul>
                   {table.map((days, i) => (
@@ -141,19 +168,19 @@ function Values({ crop }: { crop: TypedCropDetail }) {
       </Group>
       <Group id="crop-growth" title="Growth and harvest">
         <dl>
-          <Value term="Days to maturity" value={crop.daysToMaturity} {...v}>
+          <Value term={termOf.daysToMaturity} value={crop.daysToMaturity} {...v('daysToMaturity')}>
             {formatMaturity}
           </Value>
-          <Value term="Height when grown" value={crop.matureHeightCm} {...v}>
+          <Value term={termOf.matureHeightCm} value={crop.matureHeightCm} {...v('matureHeightCm')}>
             {formatCmRange}
           </Value>
-          <Value term="Rooting depth" value={crop.rootingDepthCm} {...v}>
+          <Value term={termOf.rootingDepthCm} value={crop.rootingDepthCm} {...v('rootingDepthCm')}>
             {formatCmRange}
           </Value>
-          <Value term="Feeding" value={crop.feeding} {...v}>
+          <Value term={termOf.feeding} value={crop.feeding} {...v('feeding')}>
             {(f) => feedingLabels[f]}
           </Value>
-          <Value term="Side-dressing" value={crop.sideDressing} {...v}>
+          <Value term="Side-dressing" value={crop.sideDressing} {...v()}>
             {(s) =>
               !s.needed
                 ? 'Not needed'
@@ -166,13 +193,13 @@ function Values({ crop }: { crop: TypedCropDetail }) {
       </Group>
       <Group id="crop-soil" title="Soil, sun and frost">
         <dl>
-          <Value term="Soil pH" value={crop.soilPh} {...v}>
+          <Value term={termOf.soilPh} value={crop.soilPh} {...v('soilPh')}>
             {(r) => (r.min === r.max ? trimNumber(r.min) : `${trimNumber(r.min)}–${trimNumber(r.max)}`)}
           </Value>
-          <Value term="Sun" value={crop.sun} {...v}>
+          <Value term={termOf.sun} value={crop.sun} {...v('sun')}>
             {(s) => sunLabels[s]}
           </Value>
-          <Value term="Frost" value={crop.frost} {...v}>
+          <Value term={termOf.frost} value={crop.frost} {...v('frost')}>
             {(f) => frostLabels[f]}
           </Value>
         </dl>
@@ -181,7 +208,7 @@ function Values({ crop }: { crop: TypedCropDetail }) {
         <Group id="crop-water" title="Water (FAO-56)">
           <dl>
             {crop.kc && (
-              <Value term="Crop coefficient Kc" value={crop.kc} {...v}>
+              <Value term="Crop coefficient Kc" value={crop.kc} {...v()}>
                 {(kc) => (
                   <ul>
                     <li>Initial stage: {trimNumber(kc.initial, 2)}</li>
@@ -194,7 +221,7 @@ function Values({ crop }: { crop: TypedCropDetail }) {
               </Value>
             )}
             {crop.stages && (
-              <Value term="Growth stages" value={crop.stages} {...v}>
+              <Value term="Growth stages" value={crop.stages} {...v()}>
                 {(s) => (
                   <ul>
                     <li>Initial stage: {s.initial} days</li>
@@ -210,7 +237,7 @@ function Values({ crop }: { crop: TypedCropDetail }) {
       )}
       <Group id="crop-storage" title="Storage">
         <dl>
-          <Value term="How it keeps" value={crop.storage} {...v}>
+          <Value term="How it keeps" value={crop.storage} {...v()}>
             {(s, note) => (
               <ul>
                 <li>At {formatTemperatureRange(s.temperatureC, note)}</li>
@@ -372,6 +399,8 @@ function WatchFor({ crop }: { crop: CropDetail }) {
 
 export interface CropPageProps {
   clubId: number;
+  /** Coordinators see the club-value controls; the server still decides. */
+  canSetClubValues?: boolean;
   /** From the URL; NaN when the URL holds no number. */
   cropId: number;
 }
@@ -385,7 +414,7 @@ function CropNotFound({ clubId }: { clubId: number }) {
 }
 
 /** One crop's notes: its values in plain words with their sources, its companions, guidance and pests. */
-export function CropPage({ clubId, cropId }: CropPageProps) {
+export function CropPage({ clubId, cropId, canSetClubValues = false }: CropPageProps) {
   const query = useCrop(clubId, cropId);
   if (!Number.isInteger(cropId) || cropId < 1 || isApiError(query.error, 404) || isApiError(query.error, 400)) {
     return <CropNotFound clubId={clubId} />;
@@ -426,7 +455,7 @@ export function CropPage({ clubId, cropId }: CropPageProps) {
         }
       />
       <div className="flex flex-col gap-6">
-        <Values crop={crop} />
+        <Values crop={crop} clubId={clubId} canSetClubValues={canSetClubValues} />
         <Relations clubId={clubId} crop={crop} />
         <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
           <Guidance crop={crop} />

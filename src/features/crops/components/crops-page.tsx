@@ -16,6 +16,7 @@ import { isApiError } from '@/lib/api/client';
 import { paths } from '@/lib/paths';
 import { useCrops } from '../api/get-crops';
 import { formatMaturity, kindLabels, sowingLabels } from '../lib/format';
+import { AddClubCrop } from './add-club-crop';
 
 function columnsFor(clubId: number): ColumnDef<CropSummary>[] {
   return [
@@ -57,8 +58,15 @@ function columnsFor(clubId: number): ColumnDef<CropSummary>[] {
   ];
 }
 
+export interface CropsPageProps {
+  clubId: number;
+  clubName: string;
+  /** Coordinators see "Add a club crop"; the server still decides. */
+  canAddCrops?: boolean;
+}
+
 /** The crop notes table: every crop the club sees, searched by name and narrowed by family and kind. */
-export function CropsPage({ clubId, clubName }: { clubId: number; clubName: string }) {
+export function CropsPage({ clubId, clubName, canAddCrops = false }: CropsPageProps) {
   const crops = useCrops(clubId);
   const [family, setFamily] = useState('');
   const [kind, setKind] = useState<CropKind | ''>('');
@@ -132,6 +140,7 @@ export function CropsPage({ clubId, clubName }: { clubId: number; clubName: stri
         eyebrow={clubName}
         title="Crop notes"
         description="How each crop is sown, spaced, watered and stored, with the source of every value. Open a crop for its details, good pairings and what to watch for."
+        actions={canAddCrops ? <AddClubCrop clubId={clubId} /> : undefined}
       />
       {body}
     </>
