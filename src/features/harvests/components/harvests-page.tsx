@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import { Wheat } from 'lucide-react';
-import { formatArea, SQUARE_METRES_PER_SQUARE_FOOT, type UnitSystem } from '@shared/geometry/units';
+import { formatArea, SQUARE_METRES_PER_SQUARE_FOOT, type UnitSystem } from '@shared/geometry';
 import { formatWeight } from '@shared/plot-book';
 import type { HarvestFigure, HarvestFigures } from '@shared/schemas/harvest-figures';
 import { Card } from '@/components/ui/card';
