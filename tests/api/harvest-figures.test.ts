@@ -130,7 +130,13 @@ describe('GET /api/clubs/:clubId/harvest-figures', () => {
   it('answers an empty season and a club with no season', async () => {
     const s = await club();
     const res = HarvestFiguresSchema.parse((await s.coordinator.get(`/api/clubs/${s.c.id}/harvest-figures`).expect(200)).body);
-    expect(res).toMatchObject({ season: { year: YEAR }, items: [], total: 0, totals: { plantings: 0, grams: 0, gramsPerM2: null, gramsPerPlant: null } });
+    expect(res).toMatchObject({ season: { year: YEAR }, units: 'metric', items: [], total: 0, totals: { plantings: 0, grams: 0, gramsPerM2: null, gramsPerPlant: null } });
+    // The main site is the oldest live one: 'Top field' going US units changes the answer; the archived site does not count.
+    await t.db('sites').where({ club_id: s.c.id, name: 'Top field' }).update({ units: 'us' });
+    expect((await s.coordinator.get(`/api/clubs/${s.c.id}/harvest-figures`).expect(200)).body.units).toBe('us');
+    await t.db('sites').where({ club_id: s.c.id, name: 'Top field' }).update({ archived_at: new Date() });
+    await t.db('sites').where({ club_id: s.c.id, name: 'Old orchard' }).update({ units: 'us' });
+    expect((await s.coordinator.get(`/api/clubs/${s.c.id}/harvest-figures`).expect(200)).body.units).toBe('metric');
     const bare = await buildClub(t.db);
     const member = await signedInMember(t, bare.id, ['plot_holder']);
     const none = (await member.get(`/api/clubs/${bare.id}/harvest-figures`).expect(200)).body;

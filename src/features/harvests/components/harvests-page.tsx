@@ -48,20 +48,28 @@ function columnsFor(clubId: number, units: UnitSystem): ColumnDef<HarvestFigure>
     { id: 'plantings', header: 'Plantings', accessorFn: (f) => f.plantings, enableGlobalFilter: false, cell: ({ row }) => numeric(String(row.original.plantings)) },
     { id: 'area', header: 'Area', accessorFn: (f) => f.areaM2, enableGlobalFilter: false, cell: ({ row }) => numeric(formatArea(row.original.areaM2, units, 1)) },
     { id: 'plants', header: 'Plants', accessorFn: (f) => f.plants, enableGlobalFilter: false, cell: ({ row }) => numeric(row.original.plants ? String(row.original.plants) : '—') },
-    { id: 'weight', header: 'Total weight', accessorFn: (f) => f.grams, enableGlobalFilter: false, cell: ({ row }) => numeric(formatWeight(row.original.grams, units)) },
+    {
+      id: 'weight',
+      header: 'Total weight',
+      accessorFn: (f) => f.grams,
+      enableGlobalFilter: false,
+      // A crop picked only by count was never weighed: "0 g" would read as a failed crop.
+      cell: ({ row }) => numeric(row.original.grams > 0 ? formatWeight(row.original.grams, units) : 'Not weighed'),
+    },
+    { id: 'count', header: 'Pieces', accessorFn: (f) => f.count, enableGlobalFilter: false, cell: ({ row }) => numeric(row.original.count ? String(row.original.count) : '—') },
     {
       id: 'perArea',
       header: `Per ${areaUnit(units)}`,
       accessorFn: (f) => f.gramsPerM2 ?? -1,
       enableGlobalFilter: false,
-      cell: ({ row }) => numeric(formatPerArea(row.original.gramsPerM2, units)),
+      cell: ({ row }) => numeric(row.original.grams > 0 ? formatPerArea(row.original.gramsPerM2, units) : '—'),
     },
     {
       id: 'perPlant',
       header: 'Per plant',
       accessorFn: (f) => f.gramsPerPlant ?? -1,
       enableGlobalFilter: false,
-      cell: ({ row }) => numeric(formatPerPlant(row.original.gramsPerPlant, units)),
+      cell: ({ row }) => numeric(row.original.grams > 0 ? formatPerPlant(row.original.gramsPerPlant, units) : '—'),
     },
   ];
 }
@@ -71,7 +79,7 @@ const ROW = 46;
 /** Total weight per crop as horizontal bars; each bar's crop and figure are written above it, so the colour carries nothing alone. */
 function WeightChart({ items, units }: { items: HarvestFigure[]; units: UnitSystem }) {
   const shown = items.filter((f) => f.grams > 0);
-  if (shown.length === 0) return <p className="text-stone">No weights were recorded this season.</p>;
+  if (shown.length === 0) return <p className="text-stone">No harvest was weighed this season.</p>;
   const max = Math.max(...shown.map((f) => f.grams));
   const height = shown.length * ROW;
   return (
@@ -199,7 +207,7 @@ export function HarvestsPage({ clubId, clubName }: { clubId: number; clubName: s
       <PageHeader
         eyebrow={clubName}
         title="Harvests"
-        description="What the club grew and picked this season, per crop, added up from every plot book: weight, per area and per plant. It names nobody."
+        description="What the club grew and picked in a season, per crop, added up from every plot book: weight, pieces, per area and per plant. It names nobody."
       />
       {body}
     </>
