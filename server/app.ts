@@ -21,6 +21,7 @@ import { clubsRouter } from './routes/clubs';
 import { cropsRouter } from './routes/crops';
 import { clubFeesRouter, feesRouter, myFeesRouter } from './routes/fees';
 import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
+import { harvestFiguresRouter } from './routes/harvest-figures';
 import { membersRouter } from './routes/members';
 import { myPlotRouter } from './routes/my-plot';
 import { passwordResetsRouter } from './routes/password-resets';
@@ -138,6 +139,7 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/clubs/:clubId/outbox', outboxRouter(deps));
   app.use('/api/clubs/:clubId/my-plot', myPlotRouter(deps));
   app.use('/api/clubs/:clubId/crops', cropsRouter(deps));
+  app.use('/api/clubs/:clubId/harvest-figures', harvestFiguresRouter(deps));
   app.use('/api/clubs/:clubId/seasons', clubSeasonsRouter(deps));
   app.use('/api/seasons', seasonsRouter(deps));
   app.use('/api/offers', offersRouter(deps));

@@ -101,6 +101,28 @@ export async function loadPlantings(
   return (await withClubCrops(db, opts.plot.clubId, rows)).map((r) => toPlanting(r, opts.plot, opts.climate));
 }
 
+/**
+ * Every planting of one season on a club's live sites with its computed facts, in one query (each with
+ * its own plot's size and site's climate), for figures that add plantings up across plots.
+ */
+export async function loadSeasonPlantings(db: Db, opts: { clubId: number; seasonId: number }): Promise<Planting[]> {
+  const rows: Array<PlantingRow & { plot_width_m: number; plot_length_m: number; last_spring_frost: string | null; first_autumn_frost: string | null; soil_temps_c: unknown }> =
+    await plantingRows(db)
+      .join('plots as p', 'p.id', 'pl.plot_id')
+      .join('sites as s', 's.id', 'p.site_id')
+      .where({ 'pl.season_id': opts.seasonId, 's.club_id': opts.clubId })
+      .whereNull('s.archived_at')
+      .select('p.width_m as plot_width_m', 'p.length_m as plot_length_m', 's.last_spring_frost', 's.first_autumn_frost', 's.soil_temps_c')
+      .orderBy('pl.id');
+  return rows.map((r) =>
+    toPlanting(r, { width: Number(r.plot_width_m), length: Number(r.plot_length_m) }, {
+      lastSpringFrost: r.last_spring_frost,
+      firstAutumnFrost: r.first_autumn_frost,
+      soilTempsC: Array.isArray(r.soil_temps_c) && r.soil_temps_c.length === 12 ? (r.soil_temps_c as number[]) : null,
+    }),
+  );
+}
+
 /** The plot a planting is on, or null when there is no such planting. */
 export async function plotOfPlanting(db: Db, plantingId: number): Promise<number | null> {
   const row = await db('plantings').where({ id: plantingId }).first('plot_id');

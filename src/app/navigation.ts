@@ -12,6 +12,7 @@ import {
   Shovel,
   Sprout,
   Users,
+  Wheat,
 } from 'lucide-react';
 import type { ClubMembership } from '@shared/schemas/auth';
 import type { NavItem } from '@/components/layouts/app-layout';
@@ -40,6 +41,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
     items.push({ to: paths.shifts(id), label: 'Shifts', icon: HandHelping, comingSoon: true });
   }
   items.push({ to: paths.crops(id), label: 'Crop notes', icon: Sprout });
+  items.push({ to: paths.harvests(id), label: 'Harvests', icon: Wheat });
   // Settings are visited least, so they come last, after every role's own pages.
   if (club.roles.includes('coordinator')) items.push({ to: paths.clubSettings(id), label: 'Settings', icon: Settings });
   return items;

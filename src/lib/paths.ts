@@ -14,6 +14,8 @@ export const paths = {
   plotBook: (clubId: number, plotId: number, year?: number) => `/clubs/${clubId}/plots/${plotId}/book${year ? `?year=${year}` : ''}`,
   crops: (clubId: number) => `/clubs/${clubId}/crops`,
   crop: (clubId: number, cropId: number) => `/clubs/${clubId}/crops/${cropId}`,
+  /** The club's harvest figures per crop; `year` picks a season. */
+  harvests: (clubId: number, year?: number) => `/clubs/${clubId}/harvests${year ? `?year=${year}` : ''}`,
   springRound: (clubId: number) => `/clubs/${clubId}/spring-round`,
   waitlist: (clubId: number) => `/clubs/${clubId}/waitlist`,
   messages: (clubId: number) => `/clubs/${clubId}/messages`,

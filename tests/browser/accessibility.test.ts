@@ -74,6 +74,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
           ['', 'Mossgate Community Garden Club'],
           [`/plots/${a1.id}`, 'Plot A-1'],
           ['/crops', 'Crop notes'],
+          ['/harvests', 'Harvests'],
           [`/crops/${radish.id}`, 'Radish'],
           ['/email-choices', 'E-mail choices'],
         ],
