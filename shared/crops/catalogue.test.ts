@@ -323,6 +323,21 @@ describe('cited rows against the data', () => {
     expect(v.initial + v.development + v.mid + v.late).toBe(total);
   });
 
+  // [crop, Zr low m, Zr high m], as printed in Table 22 (pyfao56 transcription).
+  const table22: [string, number, number][] = [
+    ['turnip', 0.5, 1.0], ['beet', 0.6, 1.0], ['spinach', 0.3, 0.5], ['carrot', 0.5, 1.0], ['parsnip', 0.5, 1.0],
+    ['lettuce', 0.3, 0.5], ['cabbage', 0.5, 0.8], ['broccoli', 0.4, 0.6], ['potato', 0.4, 0.6], ['tomato', 0.7, 1.5],
+    ['sweet-pepper', 0.5, 1.0], ['eggplant', 0.7, 1.2], ['cucumber', 0.7, 1.2], ['zucchini', 0.6, 1.0],
+    ['winter-squash', 1.0, 1.5], ['bush-bean', 0.5, 0.7], ['pea', 0.6, 1.0], ['sweet-corn', 0.8, 1.2],
+    ['onion', 0.3, 0.6], ['garlic', 0.3, 0.5], ['sunflower', 0.8, 1.5],
+  ];
+  it.each(table22)('FAO-56 Table 22 rooting depth: %s %s–%s m', (slug, lo, hi) => {
+    const z = crop(slug).rootingDepthCm;
+    expect(z.source).toBe('fao56-table22');
+    expect(z.value.min).toBeCloseTo(lo * 100, 6);
+    expect(z.value.max).toBeCloseTo(hi * 100, 6);
+  });
+
   it('leaves spinach stage lengths out (Table 11 rows unconfirmed)', () => {
     expect(crop('spinach').stages).toBeUndefined();
   });

@@ -2,6 +2,7 @@ import type {
   Crop,
   CropCoefficients,
   EmergenceTable,
+  FrostTolerance,
   Germination,
   Range,
   SideDressing,
@@ -70,6 +71,48 @@ function stages(initial: number, development: number, mid: number, late: number,
 /** Table 12 prints a mean maximum crop height in metres. */
 const faoHeight = (m: number, row: string) =>
   sourced(r(m * 100), 'fao56-table12', `Table 12 maximum crop height, row '${row}', printed as ${m} m`);
+
+/** Table 22 prints the maximum effective rooting depth as a range in metres. */
+const faoRoot = (lo: number, hi: number, row: string) =>
+  sourced(
+    r(Math.round(lo * 100), Math.round(hi * 100)),
+    'fao56-table22',
+    `Table 22 maximum effective rooting depth, row '${row}', printed as ${lo.toFixed(1)}–${hi.toFixed(1)} m`,
+  );
+
+type Life = [number, number, 'days' | 'weeks' | 'months'];
+const DAYS_PER: Record<Life[2], number> = { days: 1, weeks: 7, months: 30 };
+
+/** A row of the New England guide's Table 16, printed in °F, per cent RH and days, weeks or months. */
+function neStore(tF: [number, number], rh: [number, number], life: Life, row: string, extra?: string): Sourced<Storage> {
+  const [fLo, fHi] = tF;
+  const [lLo, lHi, unit] = life;
+  const span = (a: number, b: number) => (a === b ? `${a}` : `${a}–${b}`);
+  const note =
+    `Table 16, row '${row}', printed as ${span(fLo, fHi)} °F, ${span(rh[0], rh[1])} % RH, ${span(lLo, lHi)} ${unit}` +
+    (unit === 'months' ? ' (a month taken as 30 days)' : '') +
+    (extra ? `; ${extra}` : '');
+  return sourced(
+    store(fahrenheitToCelsius(fLo), fahrenheitToCelsius(fHi), rh[0], rh[1], lLo * DAYS_PER[unit], lHi * DAYS_PER[unit]),
+    'nevmg-table16',
+    note,
+  );
+}
+
+// The Purdue table has four columns; the catalogue keeps three words, so the two columns of
+// crops that frost injures both read as tender.
+const PURDUE_COLUMNS = {
+  'very hardy': 'hardy',
+  'frost tolerant': 'half_hardy',
+  tender: 'tender',
+  'warm loving': 'tender',
+} as const;
+
+/** A crop's column in the Purdue frost resistance table, as one of the catalogue's three words. */
+function purdueFrost(column: keyof typeof PURDUE_COLUMNS, row: string, extra?: string): Sourced<FrostTolerance> {
+  const note = `column '${column}', row '${row}'` + (extra ? `; ${extra}` : '');
+  return sourced(PURDUE_COLUMNS[column], 'purdue-frost-resistance', note);
+}
 
 /** A storage row of the UMass table, printed in °F, per cent RH and months. */
 function umass(tF: number, hLo: number, hHi: number, mLo: number, mHi: number, row: string): Sourced<Storage> {
@@ -189,7 +232,7 @@ export const crops: Crop[] = [
     germination: osu(40, 60, 105, 105, 'turnip'),
     daysToMaturity: mem(maturity(40, 60, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
-    rootingDepthCm: mem(r(20, 30)),
+    rootingDepthCm: faoRoot(0.5, 1.0, 'turnip rutabaga'),
     matureHeightCm: mem(r(30, 45)),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -225,7 +268,7 @@ export const crops: Crop[] = [
     germination: osu(40, 50, 85, 95, 'beet'),
     daysToMaturity: britannica(60, 70, 'sowing', 'beet'),
     soilPh: mem(r(6.0, 7.5)),
-    rootingDepthCm: mem(r(25, 45)),
+    rootingDepthCm: faoRoot(0.6, 1.0, 'beets table'),
     matureHeightCm: faoHeight(0.4, 'table beet'),
     sun: mem('full_sun'),
     frost: mem('half_hardy'),
@@ -290,7 +333,7 @@ export const crops: Crop[] = [
     germination: osu(35, 45, 75, 85, 'spinach'),
     daysToMaturity: britannica(40, 50, 'sowing', 'spinach'),
     soilPh: mem(r(6.5, 7.5)),
-    rootingDepthCm: mem(r(20, 30)),
+    rootingDepthCm: faoRoot(0.3, 0.5, 'spinach'),
     matureHeightCm: faoHeight(0.3, 'spinach'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -323,7 +366,7 @@ export const crops: Crop[] = [
     germination: osu(40, 45, 85, 95, 'carrot'),
     daysToMaturity: britannica(70, 80, 'sowing', 'carrot'),
     soilPh: mem(r(6.0, 6.8)),
-    rootingDepthCm: mem(r(30, 45)),
+    rootingDepthCm: faoRoot(0.5, 1.0, 'carrots'),
     matureHeightCm: faoHeight(0.3, 'carrots'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -356,7 +399,7 @@ export const crops: Crop[] = [
     germination: osu(35, 50, 70, 85, 'Parsnip'),
     daysToMaturity: mem(maturity(100, 130, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.5, 1.0, 'parsnip'),
     matureHeightCm: mem(r(45, 90)),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -392,7 +435,7 @@ export const crops: Crop[] = [
     germination: osu(35, 40, 80, 95, 'lettuce'),
     daysToMaturity: britannica(60, 80, 'transplanting', 'lettuce'),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(15, 30)),
+    rootingDepthCm: faoRoot(0.3, 0.5, 'lettuce'),
     matureHeightCm: faoHeight(0.3, 'lettuce'),
     sun: mem('part_shade'),
     frost: mem('half_hardy'),
@@ -427,7 +470,7 @@ export const crops: Crop[] = [
     germination: osu(40, 45, 95, 100, 'cabbage'),
     daysToMaturity: britannica(70, 100, 'transplanting', 'cabbage'),
     soilPh: mem(r(6.0, 7.5)),
-    rootingDepthCm: mem(r(30, 45)),
+    rootingDepthCm: faoRoot(0.5, 0.8, 'cabbage'),
     matureHeightCm: faoHeight(0.4, 'cabbage'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -460,7 +503,7 @@ export const crops: Crop[] = [
     germination: mem(germ(4, 7, 29, 35), 'taken as close to the cabbage row'),
     daysToMaturity: britannica(50, 80, 'transplanting', 'broccoli'),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(30, 45)),
+    rootingDepthCm: faoRoot(0.4, 0.6, 'broccoli'),
     matureHeightCm: faoHeight(0.3, 'broccoli'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -524,7 +567,7 @@ export const crops: Crop[] = [
     germination: mem(germ(7, 15, 20, 30), 'sprouting of seed tubers, not true seed'),
     daysToMaturity: britannica(90, 120, 'sowing', 'potato'),
     soilPh: mem(r(5.0, 6.5), 'slightly acid soil keeps common scab down'),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.4, 0.6, 'potato'),
     matureHeightCm: faoHeight(0.6, 'potato'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -558,7 +601,7 @@ export const crops: Crop[] = [
     germination: osu(50, 60, 85, 95, 'tomato'),
     daysToMaturity: britannica(70, 90, 'transplanting', 'tomato'),
     soilPh: mem(r(6.0, 6.8)),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.7, 1.5, 'tomato'),
     matureHeightCm: faoHeight(0.6, 'tomato'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -592,7 +635,7 @@ export const crops: Crop[] = [
     germination: osu(60, 65, 95, 95, 'pepper'),
     daysToMaturity: britannica(70, 80, 'transplanting', 'pepper'),
     soilPh: mem(r(6.0, 6.8)),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.5, 1.0, 'sweet peppers bell'),
     matureHeightCm: faoHeight(0.7, 'sweet peppers (bell)'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -625,7 +668,7 @@ export const crops: Crop[] = [
     germination: osu(60, 75, 90, 95, 'Eggplant'),
     daysToMaturity: mem(maturity(60, 80, 'transplanting')),
     soilPh: mem(r(6.0, 6.8)),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.7, 1.2, 'eggplant'),
     matureHeightCm: mem(r(60, 90)),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -657,7 +700,7 @@ export const crops: Crop[] = [
     germination: osu(60, 60, 95, 105, 'cucumber'),
     daysToMaturity: britannica(50, 70, 'sowing', 'cucumber'),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(30, 60)),
+    rootingDepthCm: faoRoot(0.7, 1.2, 'cucumber fresh market'),
     matureHeightCm: faoHeight(0.3, 'cucumber (fresh market)'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -690,7 +733,7 @@ export const crops: Crop[] = [
     germination: osu(60, 70, 95, 100, 'squash'),
     daysToMaturity: britannica(45, 60, 'sowing', 'summer squash'),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.6, 1.0, 'squash zucchini'),
     matureHeightCm: faoHeight(0.3, 'squash, zucchini'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -723,7 +766,7 @@ export const crops: Crop[] = [
     germination: osu(60, 70, 95, 100, 'squash'),
     daysToMaturity: mem(maturity(80, 110, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(60, 90)),
+    rootingDepthCm: faoRoot(1.0, 1.5, 'pumpkin winter squash'),
     matureHeightCm: faoHeight(0.4, 'squash, winter / pumpkin'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -756,7 +799,7 @@ export const crops: Crop[] = [
     germination: osu(60, 60, 85, 95, 'bean'),
     daysToMaturity: britannica(50, 60, 'sowing', 'bean'),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.5, 0.7, 'beans green'),
     matureHeightCm: faoHeight(0.4, 'beans, green'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -790,7 +833,7 @@ export const crops: Crop[] = [
     germination: osu(40, 40, 75, 85, 'pea'),
     daysToMaturity: britannica(60, 75, 'sowing', 'pea'),
     soilPh: mem(r(6.0, 7.5)),
-    rootingDepthCm: mem(r(45, 60)),
+    rootingDepthCm: faoRoot(0.6, 1.0, 'peas fresh'),
     matureHeightCm: faoHeight(0.5, 'peas, fresh'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -824,7 +867,7 @@ export const crops: Crop[] = [
     germination: osu(50, 60, 95, 105, 'corn'),
     daysToMaturity: britannica(75, 100, 'sowing', 'sweet corn'),
     soilPh: mem(r(6.0, 6.8)),
-    rootingDepthCm: mem(r(60, 90)),
+    rootingDepthCm: faoRoot(0.8, 1.2, 'maize sweet corn'),
     matureHeightCm: faoHeight(1.5, 'sweet maize'),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -857,7 +900,7 @@ export const crops: Crop[] = [
     germination: osu(35, 50, 95, 95, 'onion'),
     daysToMaturity: britannica(100, 150, 'transplanting', 'onion'),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(30, 45)),
+    rootingDepthCm: faoRoot(0.3, 0.6, 'onions dry'),
     matureHeightCm: faoHeight(0.4, 'onions, dry'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -889,7 +932,7 @@ export const crops: Crop[] = [
     germination: mem(germ(2, 10, 20, 30), 'root growth of cloves, not seed'),
     daysToMaturity: britannica(180, 180, 'sowing', 'garlic'),
     soilPh: mem(r(6.0, 7.0)),
-    rootingDepthCm: mem(r(30, 45)),
+    rootingDepthCm: faoRoot(0.3, 0.5, 'garlic'),
     matureHeightCm: faoHeight(0.3, 'garlic'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -1169,7 +1212,7 @@ export const crops: Crop[] = [
     germination: mem(germ(7, 21, 30, 35)),
     daysToMaturity: mem(maturity(80, 120, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
-    rootingDepthCm: mem(r(60, 120)),
+    rootingDepthCm: faoRoot(0.8, 1.5, 'sunflower'),
     matureHeightCm: mem(r(150, 300)),
     sun: mem('full_sun'),
     frost: mem('tender'),

@@ -18,6 +18,15 @@ export const cropSources: CropSource[] = [
     evidence: 'published',
   },
   {
+    id: 'fao56-table22',
+    title:
+      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 22: ranges of maximum effective rooting depth (Zr) and soil water depletion fraction for no stress (p) (read from the pyfao56 transcription)',
+    evidence: 'published',
+    // Read through the search tool in pyfao56 src/pyfao56/tools/tables.py; the vegetable rows
+    // agree with a second, independent transcription found in the same search.
+    url: 'https://github.com/kthorp/pyfao56/blob/main/src/pyfao56/tools/tables.py',
+  },
+  {
     id: 'umaine-planting-chart',
     title: 'University of Maine Cooperative Extension, Planting chart for the home vegetable garden',
     evidence: 'published',
@@ -53,6 +62,24 @@ export const cropSources: CropSource[] = [
     evidence: 'published',
     // Read through the search tool.
     url: 'https://ag.umass.edu/node/23531',
+  },
+  {
+    id: 'nevmg-table16',
+    title:
+      'New England Vegetable Management Guide (the New England university extension services), Table 16: Handling produce for higher quality and longer market life (temperatures, humidity and storage life adapted from USDA Handbook 66)',
+    evidence: 'published',
+    // Read through the search tool; the rows from asparagus down to early potatoes were in the
+    // stored copy, the later rows (spinach, squash, sweet corn, tomato) were not.
+    url: 'https://nevegetable.org/cultural-practices/table-16-handling-produce-higher-quality-and-longer-market-life',
+  },
+  {
+    id: 'purdue-frost-resistance',
+    title:
+      'Purdue University Cooperative Extension Service HO-203, table "Vegetables: frost resistance" (after University of Illinois VC 14a2, Vegetable Planting Guide); second-hand copy',
+    evidence: 'published',
+    // Read through the search tool on a personal blog that reprints the table and links
+    // https://www.extension.purdue.edu/extmedia/ho/ho-203.html; the Purdue page itself was not stored.
+    url: 'https://nancysgardenjournal.blogspot.com/p/frost-resistance.html',
   },
   {
     id: 'wvu-rotation',
