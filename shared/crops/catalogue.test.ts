@@ -275,6 +275,23 @@ describe('cited rows against the data', () => {
     expect(st.value.days).toEqual({ min: mLo * 30, max: mHi * 30 });
   });
 
+  // [crop, °F low, °F high, RH low, RH high, life low, life high, days per unit] from Table 16 of the
+  // New England guide; a week is 7 days and a month 30 (the notes say so).
+  const table16: [string, number, number, number, number, number, number, number][] = [
+    ['lettuce', 32, 36, 95, 95, 2, 3, 7], ['broccoli', 32, 32, 90, 95, 1, 2, 7], ['kale', 32, 32, 90, 95, 1, 2, 7],
+    ['sweet-pepper', 45, 50, 90, 95, 2, 3, 7], ['eggplant', 50, 50, 90, 95, 1, 1, 7], ['cucumber', 50, 50, 90, 95, 1, 2, 7],
+    ['bush-bean', 40, 45, 90, 95, 7, 10, 1], ['pea', 32, 32, 90, 95, 1, 2, 7], ['onion', 32, 32, 65, 70, 1, 8, 30],
+    ['leek', 32, 32, 90, 95, 1, 3, 30], ['basil', 46, 50, 90, 95, 4, 7, 1], ['parsley', 32, 32, 95, 95, 1, 2, 30],
+  ];
+  it.each(table16)('New England Table 16 storage: %s at %s–%s °F, %s–%s %% RH', (slug, fLo, fHi, hLo, hHi, lLo, lHi, per) => {
+    const st = crop(slug).storage;
+    expect(st.source).toBe('nevmg-table16');
+    expect(st.value.temperatureC.min).toBeCloseTo(f2c(fLo), 6);
+    expect(st.value.temperatureC.max).toBeCloseTo(f2c(fHi), 6);
+    expect(st.value.humidityPct).toEqual({ min: hLo, max: hHi });
+    expect(st.value.days).toEqual({ min: lLo * per, max: lHi * per });
+  });
+
   // [crop, min days, max days, from]
   const britannica: [string, number, number, 'sowing' | 'transplanting'][] = [
     ['bush-bean', 50, 60, 'sowing'], ['beet', 60, 70, 'sowing'], ['broccoli', 50, 80, 'transplanting'],

@@ -89,7 +89,7 @@ function neStore(tF: [number, number], rh: [number, number], life: Life, row: st
   const [lLo, lHi, unit] = life;
   const span = (a: number, b: number) => (a === b ? `${a}` : `${a}–${b}`);
   const note =
-    `Table 16, row '${row}', printed as ${span(fLo, fHi)} °F, ${span(rh[0], rh[1])} % RH, ${span(lLo, lHi)} ${unit}` +
+    `Table 16, row '${row}', printed as ${span(fLo, fHi)} °F, ${span(rh[0], rh[1])} % RH, ${span(lLo, lHi)} ${lHi === 1 ? unit.slice(0, -1) : unit}` +
     (unit === 'months' ? ' (a month taken as 30 days)' : '') +
     (extra ? `; ${extra}` : '');
   return sourced(
@@ -443,7 +443,7 @@ export const crops: Crop[] = [
     sideDressing: mem(feed(3, 4)),
     kc: kc(0.7, 1.0, 0.95, 0.95, 'lettuce'),
     stages: stages(20, 30, 15, 10, 'lettuce'),
-    storage: mem(store(0, 0, 98, 100, 14, 21)),
+    storage: neStore([32, 36], [95, 95], [2, 3, 'weeks'], 'Lettuce, crisphead', "the 'leaf & bibb' row prints 1 week"),
     watchFor: ['aphids', 'slugs', 'downy-mildew', 'bottom-rot-drop'],
     guidance: guide({
       sowing: 'Sow very shallow: lettuce seed needs light. In hot weather sow in the evening, as warm soil stops it sprouting.',
@@ -511,7 +511,7 @@ export const crops: Crop[] = [
     sideDressing: mem(feed(3, 4), 'weeks after transplanting'),
     kc: kc(0.7, 1.05, 0.95, 0.95, 'broccoli'),
     stages: stages(35, 45, 40, 15, 'broccoli'),
-    storage: mem(store(0, 0, 95, 100, 10, 14)),
+    storage: neStore([32, 32], [90, 95], [1, 2, 'weeks'], 'Broccoli'),
     watchFor: ['cabbage-caterpillars', 'aphids', 'flea-beetles', 'cabbage-root-fly', 'clubroot', 'black-rot', 'blackleg'],
     guidance: guide({
       sowing: 'Raise in modules and plant out after hardening off; a check in growth makes small early heads.',
@@ -542,7 +542,7 @@ export const crops: Crop[] = [
     frost: mem('hardy'),
     feeding: mem('moderate'),
     sideDressing: mem(feed(4, 6), 'weeks after transplanting'),
-    storage: mem(store(0, 0, 95, 100, 10, 14)),
+    storage: neStore([32, 32], [90, 95], [1, 2, 'weeks'], 'Collards & kale'),
     watchFor: ['cabbage-caterpillars', 'aphids', 'flea-beetles', 'clubroot', 'black-rot', 'blackleg'],
     guidance: guide({
       sowing: 'Sow in late spring for autumn and winter picking; frost sweetens the leaves.',
@@ -643,7 +643,7 @@ export const crops: Crop[] = [
     sideDressing: mem(feed(4, 6), 'weeks after transplanting, at first fruit set'),
     kc: kc(0.6, 1.05, 0.9, 0.9, 'sweet peppers (bell)'),
     stages: stages(30, 35, 40, 20, 'sweet peppers'),
-    storage: mem(store(7, 10, 90, 95, 14, 21)),
+    storage: neStore([45, 50], [90, 95], [2, 3, 'weeks'], 'Peppers'),
     watchFor: ['aphids', 'verticillium-wilt', 'root-knot-nematodes'],
     guidance: guide({
       sowing: 'Sow indoors in warmth (seed barely stirs in cold soil); plant out in warm soil after the last frost.',
@@ -674,7 +674,7 @@ export const crops: Crop[] = [
     frost: mem('tender'),
     feeding: mem('heavy'),
     sideDressing: mem(feed(4, 6), 'weeks after transplanting'),
-    storage: mem(store(10, 12, 90, 95, 7, 14)),
+    storage: neStore([50, 50], [90, 95], [1, 1, 'weeks'], 'Eggplant'),
     watchFor: ['flea-beetles', 'verticillium-wilt', 'colorado-potato-beetle', 'aphids'],
     guidance: guide({
       sowing: 'Sow indoors in real warmth; plant out only when nights are reliably warm.',
@@ -708,7 +708,7 @@ export const crops: Crop[] = [
     sideDressing: mem(feed(3, 4), 'when vines start to run'),
     kc: kc(0.6, 1.0, 0.75, 0.75, 'cucumber (fresh market)'),
     stages: stages(20, 30, 40, 15, 'cucumber'),
-    storage: mem(store(10, 13, 90, 95, 10, 14)),
+    storage: neStore([50, 50], [90, 95], [1, 2, 'weeks'], 'Cucumbers'),
     watchFor: ['cucumber-beetles', 'powdery-mildew', 'downy-mildew', 'aphids', 'cucumber-scab', 'cucumber-leaf-spot'],
     guidance: guide({
       sowing: 'Sow in warm soil after the last frost, or indoors in pots two or three weeks earlier; roots dislike disturbance.',
@@ -807,7 +807,7 @@ export const crops: Crop[] = [
     sideDressing: mem(NO_SIDE_DRESSING),
     kc: kc(0.5, 1.05, 0.9, 0.9, 'beans, green'),
     stages: stages(20, 30, 30, 10, 'green beans'),
-    storage: mem(store(4, 7, 95, 95, 7, 10)),
+    storage: neStore([40, 45], [90, 95], [7, 10, 'days'], 'Beans, snap'),
     watchFor: ['bean-anthracnose', 'bean-bacterial-blight', 'aphids', 'slugs'],
     guidance: guide({
       sowing: 'Sow in warm soil after the last frost; seed rots in cold wet ground.',
@@ -841,7 +841,7 @@ export const crops: Crop[] = [
     sideDressing: mem(NO_SIDE_DRESSING),
     kc: kc(0.5, 1.15, 1.1, 1.1, 'peas, fresh'),
     stages: stages(15, 25, 35, 15, 'peas'),
-    storage: mem(store(0, 0, 95, 98, 7, 14)),
+    storage: neStore([32, 32], [90, 95], [1, 2, 'weeks'], 'Peas'),
     watchFor: ['aphids', 'powdery-mildew', 'slugs', 'fusarium-wilt'],
     guidance: guide({
       sowing: 'Sow in early spring as soon as the soil can be worked; give climbing kinds netting or twiggy sticks.',
@@ -907,7 +907,7 @@ export const crops: Crop[] = [
     feeding: mem('moderate'),
     sideDressing: mem(feed(3, 4)),
     kc: kc(0.7, 1.05, 0.75, 0.75, 'onions, dry'),
-    storage: mem(store(0, 0, 65, 70, 30, 240)),
+    storage: neStore([32, 32], [65, 70], [1, 8, 'months'], 'Onion, dry'),
     watchFor: ['onion-fly', 'onion-thrips', 'onion-white-rot', 'downy-mildew'],
     guidance: guide({
       sowing: 'Push sets in so the tips just show; birds pull out loose ones.',
@@ -970,7 +970,7 @@ export const crops: Crop[] = [
     frost: mem('hardy'),
     feeding: mem('moderate'),
     sideDressing: mem(feed(4, 6), 'weeks after transplanting'),
-    storage: mem(store(0, 0, 95, 95, 60, 90)),
+    storage: neStore([32, 32], [90, 95], [1, 3, 'months'], 'Leeks'),
     watchFor: ['onion-fly', 'onion-thrips', 'onion-white-rot'],
     guidance: guide({
       sowing: 'Sow in a seedbed or modules; plant out pencil-thick seedlings into deep dibbed holes and water them in.',
@@ -1001,7 +1001,7 @@ export const crops: Crop[] = [
     frost: mem('tender'),
     feeding: mem('moderate'),
     sideDressing: mem(NO_SIDE_DRESSING),
-    storage: mem(store(10, 13, 90, 95, 5, 7), 'leaves blacken below about 10 °C'),
+    storage: neStore([46, 50], [90, 95], [4, 7, 'days'], 'Basil', 'high sensitivity to chilling injury'),
     watchFor: ['aphids', 'slugs', 'downy-mildew', 'fusarium-wilt'],
     guidance: guide({
       sowing: 'Sow indoors in warmth or outdoors once nights are warm; cold checks it badly.',
@@ -1032,7 +1032,7 @@ export const crops: Crop[] = [
     frost: mem('hardy'),
     feeding: mem('moderate'),
     sideDressing: mem(NO_SIDE_DRESSING),
-    storage: mem(store(0, 0, 95, 100, 30, 60)),
+    storage: neStore([32, 32], [95, 95], [1, 2, 'months'], 'Parsley'),
     watchFor: ['carrot-fly', 'aphids'],
     guidance: guide({
       sowing: 'Soak seed overnight and sow in warm moist soil; it is slow to come up.',
