@@ -292,6 +292,30 @@ describe('cited rows against the data', () => {
     expect(st.value.days).toEqual({ min: lLo * per, max: lHi * per });
   });
 
+  // [crop, Purdue column, catalogue word]: very hardy reads as hardy, frost tolerant as half-hardy,
+  // tender and warm loving as tender.
+  const purdue: [string, string, string][] = [
+    ['radish', 'frost tolerant', 'half_hardy'], ['turnip', 'very hardy', 'hardy'], ['beet', 'frost tolerant', 'half_hardy'],
+    ['chard', 'frost tolerant', 'half_hardy'], ['spinach', 'very hardy', 'hardy'], ['carrot', 'frost tolerant', 'half_hardy'],
+    ['parsnip', 'frost tolerant', 'half_hardy'], ['lettuce', 'very hardy', 'hardy'], ['cabbage', 'frost tolerant', 'half_hardy'],
+    ['broccoli', 'frost tolerant', 'half_hardy'], ['kale', 'very hardy', 'hardy'], ['tomato', 'tender', 'tender'],
+    ['sweet-pepper', 'warm loving', 'tender'], ['eggplant', 'warm loving', 'tender'], ['cucumber', 'warm loving', 'tender'],
+    ['zucchini', 'warm loving', 'tender'], ['winter-squash', 'warm loving', 'tender'], ['bush-bean', 'tender', 'tender'],
+    ['pea', 'very hardy', 'hardy'], ['sweet-corn', 'tender', 'tender'], ['onion', 'very hardy', 'hardy'],
+  ];
+  it.each(purdue)('Purdue frost resistance: %s in the %s column reads as %s', (slug, column, word) => {
+    const f = crop(slug).frost;
+    expect(f.source).toBe('purdue-frost-resistance');
+    expect(f.value).toBe(word);
+    expect(f.note).toContain(`column '${column}'`);
+  });
+
+  it('keeps potato tender from memory, with the Purdue column in the note', () => {
+    const f = crop('potato').frost;
+    expect(f).toMatchObject({ value: 'tender', source: 'from-memory' });
+    expect(f.note).toContain('very hardy');
+  });
+
   // [crop, min days, max days, from]
   const britannica: [string, number, number, 'sowing' | 'transplanting'][] = [
     ['bush-bean', 50, 60, 'sowing'], ['beet', 60, 70, 'sowing'], ['broccoli', 50, 80, 'transplanting'],
