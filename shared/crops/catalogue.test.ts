@@ -316,6 +316,27 @@ describe('cited rows against the data', () => {
     expect(f.note).toContain('very hardy');
   });
 
+  // [crop, days at 50/59/68/77/86 °F as printed in Appendix 4 (null: not tested)]
+  const appendix4: [string, (number | null)[]][] = [
+    ['turnip', [5, 3, 2, 1, 1]], ['beet', [17, 10, 6, 5, 5]], ['spinach', [12, 7, 6, 5, 6]], ['carrot', [17, 10, 7, 6, 6]],
+    ['parsnip', [27, 19, 14, 15, 32]], ['lettuce', [7, 4, 3, 2, 3]], ['cabbage', [15, 9, 6, 5, 4]], ['tomato', [43, 14, 8, 6, 6]],
+    ['sweet-pepper', [null, 25, 13, 8, 8]], ['eggplant', [null, null, 13, 8, 5]], ['cucumber', [null, 13, 6, 4, 3]],
+    ['bush-bean', [null, 16, 11, 8, 6]], ['pea', [14, 9, 8, 6, 6]], ['sweet-corn', [22, 12, 7, 4, 4]], ['onion', [13, 7, 5, 4, 4]],
+    ['parsley', [29, 17, 14, 13, 12]],
+  ];
+  it.each(appendix4)('Appendix 4 emergence: %s, days to emergence spans the 59–86 °F columns', (slug, row) => {
+    const d = crop(slug).daysToEmergence;
+    expect(d.source).toBe('tofg-emergence-span');
+    const warm = row.slice(1).filter((x): x is number => x !== null);
+    expect(d.value).toEqual({ min: Math.min(...warm), max: Math.max(...warm) });
+  });
+  it.each(appendix4.filter(([slug]) => ['turnip', 'spinach', 'parsnip', 'pea', 'onion', 'parsley'].includes(slug)))(
+    'Appendix 4 emergence table: %s',
+    (slug, row) => {
+      expect(crop(slug).emergenceByTemperature).toMatchObject({ value: row, source: 'tofg-emergence' });
+    },
+  );
+
   // [crop, min days, max days, from]
   const britannica: [string, number, number, 'sowing' | 'transplanting'][] = [
     ['bush-bean', 50, 60, 'sowing'], ['beet', 60, 70, 'sowing'], ['broccoli', 50, 80, 'transplanting'],

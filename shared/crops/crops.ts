@@ -56,6 +56,23 @@ const germ = (minC: number, optLo: number, optHi: number, maxC: number): Germina
 const harrington = (t: EmergenceTable, row: string): Sourced<EmergenceTable> =>
   sourced(t, 'harrington-emergence', `row '${row}', days at 50/59/68/77/86 °F`);
 
+/**
+ * Days to emergence when the soil temperature is not known: the fewest and most days the
+ * Appendix 4 row prints from 59 to 86 °F (15–30 °C); `null` entries are temperatures the table
+ * leaves untested.
+ */
+function emergenceSpan(days: (number | null)[], row: string): Sourced<Range> {
+  const known = days.filter((d): d is number => d !== null);
+  const printed = days.map((d) => (d === null ? '—' : String(d))).join('/');
+  return sourced(
+    r(Math.min(...known), Math.max(...known)),
+    'tofg-emergence-span',
+    `row '${row}', days at 59/68/77/86 °F printed as ${printed}`,
+  );
+}
+const tofgEmergence = (t: EmergenceTable, row: string): Sourced<EmergenceTable> =>
+  sourced(t, 'tofg-emergence', `Appendix 4, row '${row}', days at 50/59/68/77/86 °F`);
+
 function britannica(min: number, max: number, from: 'sowing' | 'transplanting', row: string) {
   const printed = min === max ? `${min} days` : `${min}–${max} days`;
   return sourced({ ...r(min, max), from }, 'britannica-maturity', `row '${row}', printed as ${printed}`);
@@ -228,7 +245,8 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(10, 15)),
     sowingDepthCm: umaine(0.25, 0.5, '¼–½ in', 'turnip'),
     sowing: cp('direct'),
-    daysToEmergence: mem(r(4, 10)),
+    daysToEmergence: emergenceSpan([3, 2, 1, 1], 'Turnip'),
+    emergenceByTemperature: tofgEmergence([5, 3, 2, 1, 1], 'Turnip'),
     germination: osu(40, 60, 105, 105, 'turnip'),
     daysToMaturity: mem(maturity(40, 60, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
@@ -259,7 +277,7 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(2, 4, 'beet'),
     sowingDepthCm: umaine(0.5, 0.5, '½ in', 'beets'),
     sowing: cp('direct'),
-    daysToEmergence: mem(r(5, 10)),
+    daysToEmergence: emergenceSpan([10, 6, 5, 5], 'Beet'),
     emergenceByTemperature: sourced(
       [17, 10, 6, 5, 5] as EmergenceTable,
       'harrington-emergence',
@@ -329,7 +347,8 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(4, 6, 'spinach'),
     sowingDepthCm: umaine(0.5, 0.5, '½ in', 'spinach'),
     sowing: cp('direct'),
-    daysToEmergence: mem(r(7, 14)),
+    daysToEmergence: emergenceSpan([7, 6, 5, 6], 'Spinach'),
+    emergenceByTemperature: tofgEmergence([12, 7, 6, 5, 6], 'Spinach'),
     germination: osu(35, 45, 75, 85, 'spinach'),
     daysToMaturity: britannica(40, 50, 'sowing', 'spinach'),
     soilPh: mem(r(6.5, 7.5)),
@@ -361,7 +380,7 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(2, 3, 'carrot'),
     sowingDepthCm: umaine(0.5, 0.5, '½ in', 'carrots'),
     sowing: cp('direct'),
-    daysToEmergence: mem(r(7, 21)),
+    daysToEmergence: emergenceSpan([10, 7, 6, 6], 'Carrot'),
     emergenceByTemperature: harrington([17, 10, 7, 6, 6], 'carrot'),
     germination: osu(40, 45, 85, 95, 'carrot'),
     daysToMaturity: britannica(70, 80, 'sowing', 'carrot'),
@@ -395,7 +414,8 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(7.5, 10)),
     sowingDepthCm: mem(r(1.3, 1.3)),
     sowing: mem('direct'),
-    daysToEmergence: mem(r(14, 28)),
+    daysToEmergence: emergenceSpan([19, 14, 15, 32], 'Parsnip'),
+    emergenceByTemperature: tofgEmergence([27, 19, 14, 15, 32], 'Parsnip'),
     germination: osu(35, 50, 70, 85, 'Parsnip'),
     daysToMaturity: mem(maturity(100, 130, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
@@ -426,7 +446,7 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(4, 6, 'leaf lettuce'),
     sowingDepthCm: mem(r(0.3, 0.6)),
     sowing: mem('either'),
-    daysToEmergence: mem(r(4, 10)),
+    daysToEmergence: emergenceSpan([4, 3, 2, 3], 'Lettuce'),
     emergenceByTemperature: sourced(
       [7, 4, 3, 2, 3] as EmergenceTable,
       'harrington-emergence',
@@ -465,7 +485,7 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(38, 45)),
     sowingDepthCm: mem(r(0.6, 1.3), 'seed depth in the nursery row; UMaine prints "transplant"'),
     sowing: sourced('transplant', 'umaine-planting-chart', "row 'cabbage', printed as 'transplant'"),
-    daysToEmergence: mem(r(4, 10)),
+    daysToEmergence: emergenceSpan([9, 6, 5, 4], 'Cabbage'),
     emergenceByTemperature: osuEmergence([15, 9, 6, 4, 3], 'Cabbage'),
     germination: osu(40, 45, 95, 100, 'cabbage'),
     daysToMaturity: britannica(70, 100, 'transplanting', 'cabbage'),
@@ -599,7 +619,7 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(18, 24, 'tomato'),
     sowingDepthCm: mem(r(0.6, 0.6), 'seed depth indoors; UMaine prints "transplant"'),
     sowing: sourced('transplant', 'umaine-planting-chart', "row 'tomatoes', printed as 'transplant'"),
-    daysToEmergence: mem(r(6, 14)),
+    daysToEmergence: emergenceSpan([14, 8, 6, 6], 'Tomato'),
     emergenceByTemperature: harrington([43, 14, 8, 6, 6], 'tomato'),
     germination: osu(50, 60, 85, 95, 'tomato'),
     daysToMaturity: britannica(70, 90, 'transplanting', 'tomato'),
@@ -633,7 +653,7 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(12, 15, 'pepper'),
     sowingDepthCm: mem(r(0.6, 0.6), 'seed depth indoors; UMaine prints "transplant"'),
     sowing: sourced('transplant', 'umaine-planting-chart', "row 'peppers', printed as 'transplant'"),
-    daysToEmergence: mem(r(7, 14)),
+    daysToEmergence: emergenceSpan([25, 13, 8, 8], 'Pepper'),
     emergenceByTemperature: harrington([null, 25, 13, 8, 8], 'pepper'),
     germination: osu(60, 65, 95, 95, 'pepper'),
     daysToMaturity: britannica(70, 80, 'transplanting', 'pepper'),
@@ -667,7 +687,7 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(45, 60)),
     sowingDepthCm: mem(r(0.6, 0.6)),
     sowing: mem('transplant'),
-    daysToEmergence: mem(r(7, 14)),
+    daysToEmergence: emergenceSpan([null, 13, 8, 5], 'Eggplant'),
     germination: osu(60, 75, 90, 95, 'Eggplant'),
     daysToMaturity: mem(maturity(60, 80, 'transplanting')),
     soilPh: mem(r(6.0, 6.8)),
@@ -698,7 +718,7 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(30, 45), 'trained up a support'),
     sowingDepthCm: umaine(0.75, 0.75, '¾ in', 'cucumbers'),
     sowing: mem('either'),
-    daysToEmergence: mem(r(3, 10)),
+    daysToEmergence: emergenceSpan([13, 6, 4, 3], 'Cucumber'),
     emergenceByTemperature: osuEmergence([null, 13, 6, 4, 3], 'Cucumber'),
     germination: osu(60, 60, 95, 105, 'cucumber'),
     daysToMaturity: britannica(50, 70, 'sowing', 'cucumber'),
@@ -797,7 +817,7 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(4, 6, 'bush beans'),
     sowingDepthCm: umaine(1, 1, '1 in', 'snap beans'),
     sowing: cp('direct'),
-    daysToEmergence: mem(r(6, 12)),
+    daysToEmergence: emergenceSpan([16, 11, 8, 6], 'Bean snap'),
     emergenceByTemperature: harrington([null, 16, 11, 8, 6], 'snap bean'),
     germination: osu(60, 60, 85, 95, 'bean'),
     daysToMaturity: britannica(50, 60, 'sowing', 'bean'),
@@ -832,7 +852,8 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(5, 7.5)),
     sowingDepthCm: umaine(1, 1, '1 in', 'peas'),
     sowing: cp('direct'),
-    daysToEmergence: mem(r(7, 14)),
+    daysToEmergence: emergenceSpan([9, 8, 6, 6], 'Pea'),
+    emergenceByTemperature: tofgEmergence([14, 9, 8, 6, 6], 'Pea'),
     germination: osu(40, 40, 75, 85, 'pea'),
     daysToMaturity: britannica(60, 75, 'sowing', 'pea'),
     soilPh: mem(r(6.0, 7.5)),
@@ -865,7 +886,7 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(30, 38)),
     sowingDepthCm: umaine(1, 1, '1 in', 'corn'),
     sowing: cp('direct'),
-    daysToEmergence: mem(r(5, 10)),
+    daysToEmergence: emergenceSpan([12, 7, 4, 4], 'Corn, sweet'),
     emergenceByTemperature: osuEmergence([22, 12, 7, 4, 4], 'Corn'),
     germination: osu(50, 60, 95, 105, 'corn'),
     daysToMaturity: britannica(75, 100, 'sowing', 'sweet corn'),
@@ -899,7 +920,8 @@ export const crops: Crop[] = [
     equalSpacingCm: arizona(2, 4, 'onion'),
     sowingDepthCm: umaine(0.5, 0.5, '½ in', 'onion sets'),
     sowing: mem('either', 'from seed, sets or transplants'),
-    daysToEmergence: mem(r(7, 14)),
+    daysToEmergence: emergenceSpan([7, 5, 4, 4], 'Onion'),
+    emergenceByTemperature: tofgEmergence([13, 7, 5, 4, 4], 'Onion'),
     germination: osu(35, 50, 95, 95, 'onion'),
     daysToMaturity: britannica(100, 150, 'transplanting', 'onion'),
     soilPh: mem(r(6.0, 7.0)),
@@ -1025,7 +1047,8 @@ export const crops: Crop[] = [
     equalSpacingCm: mem(r(15, 20)),
     sowingDepthCm: mem(r(0.6, 0.6)),
     sowing: mem('either'),
-    daysToEmergence: mem(r(14, 28)),
+    daysToEmergence: emergenceSpan([17, 14, 13, 12], 'Parsley'),
+    emergenceByTemperature: tofgEmergence([29, 17, 14, 13, 12], 'Parsley'),
     germination: osu(40, 50, 85, 90, 'Parsley'),
     daysToMaturity: mem(maturity(70, 90, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),

@@ -52,6 +52,22 @@ export const cropSources: CropSource[] = [
     evidence: 'published',
   },
   {
+    id: 'tofg-emergence',
+    title:
+      'Teaching Organic Farming and Gardening, Unit 1.3 Propagation/Greenhouse Management, Appendix 4: Days required for seedling emergence at various soil temperatures from seed planted ½ inch deep (adapted from Harrington and Minges, Vegetable Seed Germination, California Agricultural Extension leaflet, 1954, via Knott\'s Handbook for Vegetable Growers, 1997)',
+    evidence: 'published',
+    // Read through the search tool in a copy on issuhub; its rows agree with the Harrington rows
+    // already cited from sources.md (radish, lettuce, carrot, beet, tomato, snap bean, pepper).
+    url: 'https://issuhub.com/view/index?id=3972&pageIndex=132',
+  },
+  {
+    id: 'tofg-emergence-span',
+    title:
+      'Computed: the fewest and most days to emergence at 59, 68, 77 and 86 °F (15–30 °C) in the Harrington and Minges table of Teaching Organic Farming and Gardening, Appendix 4',
+    evidence: 'computed',
+    url: 'https://issuhub.com/view/index?id=3972&pageIndex=132',
+  },
+  {
     id: 'britannica-maturity',
     title: 'Encyclopaedia Britannica, Vegetable farming: harvesting (days to maturity)',
     evidence: 'published',
