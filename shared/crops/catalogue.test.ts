@@ -337,6 +337,17 @@ describe('cited rows against the data', () => {
     },
   );
 
+  // [crop, botanical name, source] as read on each page.
+  const botanical: [string, string, string][] = [
+    ['cucumber', 'Cucumis sativus', 'wisc-a3688-vine-crops'], ['zucchini', 'Cucurbita pepo', 'wisc-a3688-vine-crops'],
+    ['tomato', 'Solanum lycopersicum', 'vt-seed-production-solanaceae'], ['radish', 'Raphanus sativus', 'se-vegetable-handbook-2021'],
+    ['turnip', 'Brassica rapa var. rapa', 'se-vegetable-handbook-2021'], ['parsnip', 'Pastinaca sativa', 'ufifas-plant-id-parsnip'],
+    ['eggplant', 'Solanum melongena', 'unl-extension-eggplant-1982'],
+  ];
+  it.each(botanical)('botanical name: %s is %s (%s)', (slug, name, source) => {
+    expect(crop(slug).botanicalName).toMatchObject({ value: name, source });
+  });
+
   // [crop, min days, max days, from]
   const britannica: [string, number, number, 'sowing' | 'transplanting'][] = [
     ['bush-bean', 50, 60, 'sowing'], ['beet', 60, 70, 'sowing'], ['broccoli', 50, 80, 'transplanting'],

@@ -197,7 +197,7 @@ export const crops: Crop[] = [
   {
     slug: 'radish',
     commonName: 'Radish',
-    botanicalName: mem('Raphanus sativus'),
+    botanicalName: sourced('Raphanus sativus', 'se-vegetable-handbook-2021', "heading 'RADISHES (Raphanus sativus)'"),
     family: wvuFamily('Brassicaceae'),
     kind: 'root',
     inRowCm: cp(r(2.54, 5.08), 'sown about 2.5 cm (1 in) apart, thinned to about 5 cm (2 in)'),
@@ -237,7 +237,7 @@ export const crops: Crop[] = [
   {
     slug: 'turnip',
     commonName: 'Turnip',
-    botanicalName: mem('Brassica rapa (Rapifera group)'),
+    botanicalName: sourced('Brassica rapa var. rapa', 'se-vegetable-handbook-2021', "heading 'TURNIPS (Brassica rapa var. rapa)'; printed before, from memory, as 'Brassica rapa (Rapifera group)'"),
     family: wvuFamily('Brassicaceae'),
     kind: 'root',
     inRowCm: umaine(1, 1, '1 in', 'turnip'),
@@ -406,7 +406,7 @@ export const crops: Crop[] = [
   {
     slug: 'parsnip',
     commonName: 'Parsnip',
-    botanicalName: mem('Pastinaca sativa'),
+    botanicalName: sourced('Pastinaca sativa', 'ufifas-plant-id-parsnip'),
     family: wvuFamily('Apiaceae'),
     kind: 'root',
     inRowCm: mem(r(7.5, 15)),
@@ -611,7 +611,7 @@ export const crops: Crop[] = [
   {
     slug: 'tomato',
     commonName: 'Tomato',
-    botanicalName: mem('Solanum lycopersicum'),
+    botanicalName: sourced('Solanum lycopersicum', 'vt-seed-production-solanaceae', "section 'Tomato'"),
     family: wvuFamily('Solanaceae'),
     kind: 'fruiting',
     inRowCm: umaine(18, 36, '18–36 in', 'tomatoes'),
@@ -679,7 +679,7 @@ export const crops: Crop[] = [
   {
     slug: 'eggplant',
     commonName: 'Eggplant (aubergine)',
-    botanicalName: mem('Solanum melongena'),
+    botanicalName: sourced('Solanum melongena', 'unl-extension-eggplant-1982', "printed as 'Solanum melongena var. esculentum'"),
     family: wvuFamily('Solanaceae'),
     kind: 'fruiting',
     inRowCm: mem(r(45, 60)),
@@ -710,7 +710,7 @@ export const crops: Crop[] = [
   {
     slug: 'cucumber',
     commonName: 'Cucumber',
-    botanicalName: mem('Cucumis sativus'),
+    botanicalName: sourced('Cucumis sativus', 'wisc-a3688-vine-crops', 'Plant description'),
     family: wvuFamily('Cucurbitaceae'),
     kind: 'fruiting',
     inRowCm: umaine(48, 48, '48 in (hills)', 'cucumbers'),
@@ -744,7 +744,7 @@ export const crops: Crop[] = [
   {
     slug: 'zucchini',
     commonName: 'Zucchini (summer squash)',
-    botanicalName: mem('Cucurbita pepo'),
+    botanicalName: sourced('Cucurbita pepo', 'wisc-a3688-vine-crops', "Plant description: 'summer squash (also C. pepo)'"),
     family: wvuFamily('Cucurbitaceae'),
     kind: 'fruiting',
     inRowCm: umaine(48, 48, '48 in (hills)', 'summer squash'),

@@ -154,6 +154,39 @@ export const cropSources: CropSource[] = [
     // Appeal column of 7 April 2024 quotes for the WSU original.
     url: 'https://s3.wp.wsu.edu/uploads/sites/403/2015/03/companion-plantings.pdf',
   },
+  // Botanical names, each read through the search tool on the page given.
+  {
+    id: 'wisc-a3688-vine-crops',
+    title:
+      'Wisconsin Extension publication A3688, Growing pumpkins and other vine crops in Wisconsin: a guide for fresh-market growers (K. A. Delahaut, A. C. Newenhouse), Plant description; copy on abcdocz',
+    evidence: 'published',
+    url: 'https://abcdocz.com/doc/160777/growing-pumpkins-and-other-vine-crops-in-wisconsin',
+  },
+  {
+    id: 'vt-seed-production-solanaceae',
+    title: 'Virginia Tech, Vegetable Seed Production (G. Welbaum), Family: Solanaceae',
+    evidence: 'published',
+    url: 'https://welbaum.spes.vt.edu/seedproduction/Solanacea.html',
+  },
+  {
+    id: 'se-vegetable-handbook-2021',
+    title:
+      '2021 Vegetable Crop Handbook for Southeastern United States (Southeastern Vegetable Extension Workers), table of radish, rutabaga and turnip varieties, page 101',
+    evidence: 'published',
+    url: 'https://www.nxtbook.com/greatamericanmediaservices/GAMS/southeast-veg-crop-handbook-2021/index.php?startid=101',
+  },
+  {
+    id: 'ufifas-plant-id-parsnip',
+    title: 'UF/IFAS Gardening Solutions, Plant Identification Learning Module: Parsnip (Pastinaca sativa)',
+    evidence: 'published',
+    url: 'http://gardeningsolutions.ifas.ufl.edu/mastergardener/outreach/plant_id/vegetables/parsnip.shtml',
+  },
+  {
+    id: 'unl-extension-eggplant-1982',
+    title: 'University of Nebraska–Lincoln Extension (1982), eggplant growing guide, abstract (Historical Materials from University of Nebraska–Lincoln Extension, 1013)',
+    evidence: 'published',
+    url: 'http://digitalcommons.unl.edu/extensionhist/1013',
+  },
   {
     id: 'common-practice',
     title: 'Common practice among gardeners and extension services; no single published source found',
