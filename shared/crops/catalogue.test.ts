@@ -380,6 +380,15 @@ describe('cited rows against the data', () => {
     expect(c.matureHeightCm.value.max).toBeCloseTo(hM * 100, 6);
   });
 
+  // Table 12 heights only, for crops whose Kc is not in the catalogue.
+  const table12Heights: [string, number][] = [['turnip', 0.6], ['parsnip', 0.4], ['eggplant', 0.8], ['sunflower', 2.0]];
+  it.each(table12Heights)('FAO-56 Table 12 maximum height: %s %s m', (slug, hM) => {
+    const h = crop(slug).matureHeightCm;
+    expect(h.source).toBe('fao56-table12');
+    expect(h.value.min).toBeCloseTo(hM * 100, 6);
+    expect(h.value.max).toBeCloseTo(hM * 100, 6);
+  });
+
   // [crop, initial, development, mid, late, printed total]
   const table11: [string, number, number, number, number, number][] = [
     ['radish', 5, 10, 15, 5, 35], ['lettuce', 20, 30, 15, 10, 75], ['beet', 15, 25, 20, 10, 70], ['carrot', 20, 30, 30, 20, 100],
