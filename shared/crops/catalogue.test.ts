@@ -348,6 +348,13 @@ describe('cited rows against the data', () => {
     expect(crop(slug).botanicalName).toMatchObject({ value: name, source });
   });
 
+  it('spinach storage from the PMC3602570 Table 4 row: 0 °C, 95 % RH, 1–2 weeks', () => {
+    expect(crop('spinach').storage).toMatchObject({
+      value: { temperatureC: { min: 0, max: 0 }, humidityPct: { min: 95, max: 95 }, days: { min: 7, max: 14 } },
+      source: 'pmc3602570-table4',
+    });
+  });
+
   // [crop, min days, max days, from]
   const britannica: [string, number, number, 'sowing' | 'transplanting'][] = [
     ['bush-bean', 50, 60, 'sowing'], ['beet', 60, 70, 'sowing'], ['broccoli', 50, 80, 'transplanting'],

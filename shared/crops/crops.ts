@@ -359,7 +359,7 @@ export const crops: Crop[] = [
     feeding: mem('moderate'),
     sideDressing: mem(feed(3, 4)),
     kc: kc(0.7, 1.0, 0.95, 0.95, 'spinach'),
-    storage: mem(store(0, 0, 95, 100, 10, 14)),
+    storage: sourced(store(0, 0, 95, 95, 7, 14), 'pmc3602570-table4', "row 'Spinach', printed as 0 °C, 95 % RH, 1–2 w (ASHRAE column; a week taken as 7 days)"),
     watchFor: ['downy-mildew', 'leaf-miners', 'aphids', 'slugs'],
     guidance: guide({
       sowing: 'Sow in early spring or late summer; spinach bolts in long hot days and germinates poorly in warm soil.',

@@ -98,6 +98,14 @@ export const cropSources: CropSource[] = [
     url: 'https://nancysgardenjournal.blogspot.com/p/frost-resistance.html',
   },
   {
+    id: 'pmc3602570-table4',
+    title:
+      'Article doi:10.1007/s13197-011-0311-6, vol. 50(3):429–442, Table 4: The critical relative humidity and temperatures for various fruits and vegetables (the column recommended after the ASHRAE Handbook 1998)',
+    evidence: 'published',
+    // Read through the search tool on PubMed Central.
+    url: 'https://pmc.ncbi.nlm.nih.gov/articles/PMC3602570/table/Tab4',
+  },
+  {
     id: 'wvu-rotation',
     title:
       'West Virginia University Extension, Crop rotation in the garden (2025), families as named by the Angiosperm Phylogeny Group; with UC Master Gardeners, Sacramento, after the UC Vegetable Research & Information Center',
