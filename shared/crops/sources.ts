@@ -191,7 +191,7 @@ export const cropSources: CropSource[] = [
   },
   {
     id: 'unl-extension-eggplant-1982',
-    title: 'University of Nebraska–Lincoln Extension (1982), eggplant growing guide, abstract (Historical Materials from University of Nebraska–Lincoln Extension, 1013)',
+    title: 'University of Nebraska–Lincoln Extension (1982), eggplant growing guide; abstract read in the UNL Digital Commons record',
     evidence: 'published',
     url: 'http://digitalcommons.unl.edu/extensionhist/1013',
   },
