@@ -275,6 +275,86 @@ describe('cited rows against the data', () => {
     expect(st.value.days).toEqual({ min: mLo * 30, max: mHi * 30 });
   });
 
+  // [crop, °F low, °F high, RH low, RH high, life low, life high, days per unit] from Table 16 of the
+  // New England guide; a week is 7 days and a month 30 (the notes say so).
+  const table16: [string, number, number, number, number, number, number, number][] = [
+    ['lettuce', 32, 36, 95, 95, 2, 3, 7], ['broccoli', 32, 32, 90, 95, 1, 2, 7], ['kale', 32, 32, 90, 95, 1, 2, 7],
+    ['sweet-pepper', 45, 50, 90, 95, 2, 3, 7], ['eggplant', 50, 50, 90, 95, 1, 1, 7], ['cucumber', 50, 50, 90, 95, 1, 2, 7],
+    ['bush-bean', 40, 45, 90, 95, 7, 10, 1], ['pea', 32, 32, 90, 95, 1, 2, 7], ['onion', 32, 32, 65, 70, 1, 8, 30],
+    ['leek', 32, 32, 90, 95, 1, 3, 30], ['basil', 46, 50, 90, 95, 4, 7, 1], ['parsley', 32, 32, 95, 95, 1, 2, 30],
+  ];
+  it.each(table16)('New England Table 16 storage: %s at %s–%s °F, %s–%s %% RH', (slug, fLo, fHi, hLo, hHi, lLo, lHi, per) => {
+    const st = crop(slug).storage;
+    expect(st.source).toBe('nevmg-table16');
+    expect(st.value.temperatureC.min).toBeCloseTo(f2c(fLo), 6);
+    expect(st.value.temperatureC.max).toBeCloseTo(f2c(fHi), 6);
+    expect(st.value.humidityPct).toEqual({ min: hLo, max: hHi });
+    expect(st.value.days).toEqual({ min: lLo * per, max: lHi * per });
+  });
+
+  // [crop, Purdue column, catalogue word]: very hardy reads as hardy, frost tolerant as half-hardy,
+  // tender and warm loving as tender.
+  const purdue: [string, string, string][] = [
+    ['radish', 'frost tolerant', 'half_hardy'], ['turnip', 'very hardy', 'hardy'], ['beet', 'frost tolerant', 'half_hardy'],
+    ['chard', 'frost tolerant', 'half_hardy'], ['spinach', 'very hardy', 'hardy'], ['carrot', 'frost tolerant', 'half_hardy'],
+    ['parsnip', 'frost tolerant', 'half_hardy'], ['lettuce', 'very hardy', 'hardy'], ['cabbage', 'frost tolerant', 'half_hardy'],
+    ['broccoli', 'frost tolerant', 'half_hardy'], ['kale', 'very hardy', 'hardy'], ['tomato', 'tender', 'tender'],
+    ['sweet-pepper', 'warm loving', 'tender'], ['eggplant', 'warm loving', 'tender'], ['cucumber', 'warm loving', 'tender'],
+    ['zucchini', 'warm loving', 'tender'], ['winter-squash', 'warm loving', 'tender'], ['bush-bean', 'tender', 'tender'],
+    ['pea', 'very hardy', 'hardy'], ['sweet-corn', 'tender', 'tender'], ['onion', 'very hardy', 'hardy'],
+  ];
+  it.each(purdue)('Purdue frost resistance: %s in the %s column reads as %s', (slug, column, word) => {
+    const f = crop(slug).frost;
+    expect(f.source).toBe('purdue-frost-resistance');
+    expect(f.value).toBe(word);
+    expect(f.note).toContain(`column '${column}'`);
+  });
+
+  it('keeps potato tender from memory, with the Purdue column in the note', () => {
+    const f = crop('potato').frost;
+    expect(f).toMatchObject({ value: 'tender', source: 'from-memory' });
+    expect(f.note).toContain('very hardy');
+  });
+
+  // [crop, days at 50/59/68/77/86 °F as printed in Appendix 4 (null: not tested)]
+  const appendix4: [string, (number | null)[]][] = [
+    ['turnip', [5, 3, 2, 1, 1]], ['beet', [17, 10, 6, 5, 5]], ['spinach', [12, 7, 6, 5, 6]], ['carrot', [17, 10, 7, 6, 6]],
+    ['parsnip', [27, 19, 14, 15, 32]], ['lettuce', [7, 4, 3, 2, 3]], ['cabbage', [15, 9, 6, 5, 4]], ['tomato', [43, 14, 8, 6, 6]],
+    ['sweet-pepper', [null, 25, 13, 8, 8]], ['eggplant', [null, null, 13, 8, 5]], ['cucumber', [null, 13, 6, 4, 3]],
+    ['bush-bean', [null, 16, 11, 8, 6]], ['pea', [14, 9, 8, 6, 6]], ['sweet-corn', [22, 12, 7, 4, 4]], ['onion', [13, 7, 5, 4, 4]],
+    ['parsley', [29, 17, 14, 13, 12]],
+  ];
+  it.each(appendix4)('Appendix 4 emergence: %s, days to emergence spans the 59–86 °F columns', (slug, row) => {
+    const d = crop(slug).daysToEmergence;
+    expect(d.source).toBe('tofg-emergence-span');
+    const warm = row.slice(1).filter((x): x is number => x !== null);
+    expect(d.value).toEqual({ min: Math.min(...warm), max: Math.max(...warm) });
+  });
+  it.each(appendix4.filter(([slug]) => ['turnip', 'spinach', 'parsnip', 'pea', 'onion', 'parsley'].includes(slug)))(
+    'Appendix 4 emergence table: %s',
+    (slug, row) => {
+      expect(crop(slug).emergenceByTemperature).toMatchObject({ value: row, source: 'tofg-emergence' });
+    },
+  );
+
+  // [crop, botanical name, source] as read on each page.
+  const botanical: [string, string, string][] = [
+    ['cucumber', 'Cucumis sativus', 'wisc-a3688-vine-crops'], ['zucchini', 'Cucurbita pepo', 'wisc-a3688-vine-crops'],
+    ['tomato', 'Solanum lycopersicum', 'vt-seed-production-solanaceae'], ['radish', 'Raphanus sativus', 'se-vegetable-handbook-2021'],
+    ['turnip', 'Brassica rapa var. rapa', 'se-vegetable-handbook-2021'], ['parsnip', 'Pastinaca sativa', 'ufifas-plant-id-parsnip'],
+    ['eggplant', 'Solanum melongena', 'unl-extension-eggplant-1982'],
+  ];
+  it.each(botanical)('botanical name: %s is %s (%s)', (slug, name, source) => {
+    expect(crop(slug).botanicalName).toMatchObject({ value: name, source });
+  });
+
+  it('spinach storage from the PMC3602570 Table 4 row: 0 °C, 95 % RH, 1–2 weeks', () => {
+    expect(crop('spinach').storage).toMatchObject({
+      value: { temperatureC: { min: 0, max: 0 }, humidityPct: { min: 95, max: 95 }, days: { min: 7, max: 14 } },
+      source: 'pmc3602570-table4',
+    });
+  });
+
   // [crop, min days, max days, from]
   const britannica: [string, number, number, 'sowing' | 'transplanting'][] = [
     ['bush-bean', 50, 60, 'sowing'], ['beet', 60, 70, 'sowing'], ['broccoli', 50, 80, 'transplanting'],
@@ -307,6 +387,15 @@ describe('cited rows against the data', () => {
     expect(c.matureHeightCm.value.max).toBeCloseTo(hM * 100, 6);
   });
 
+  // Table 12 heights only, for crops whose Kc is not in the catalogue.
+  const table12Heights: [string, number][] = [['turnip', 0.6], ['parsnip', 0.4], ['eggplant', 0.8], ['sunflower', 2.0]];
+  it.each(table12Heights)('FAO-56 Table 12 maximum height: %s %s m', (slug, hM) => {
+    const h = crop(slug).matureHeightCm;
+    expect(h.source).toBe('fao56-table12');
+    expect(h.value.min).toBeCloseTo(hM * 100, 6);
+    expect(h.value.max).toBeCloseTo(hM * 100, 6);
+  });
+
   // [crop, initial, development, mid, late, printed total]
   const table11: [string, number, number, number, number, number][] = [
     ['radish', 5, 10, 15, 5, 35], ['lettuce', 20, 30, 15, 10, 75], ['beet', 15, 25, 20, 10, 70], ['carrot', 20, 30, 30, 20, 100],
@@ -321,6 +410,21 @@ describe('cited rows against the data', () => {
     expect(s?.value).toEqual({ initial: a, development: b, mid: m, late: l });
     const v = s!.value;
     expect(v.initial + v.development + v.mid + v.late).toBe(total);
+  });
+
+  // [crop, Zr low m, Zr high m], as printed in Table 22 (pyfao56 transcription).
+  const table22: [string, number, number][] = [
+    ['turnip', 0.5, 1.0], ['beet', 0.6, 1.0], ['spinach', 0.3, 0.5], ['carrot', 0.5, 1.0], ['parsnip', 0.5, 1.0],
+    ['lettuce', 0.3, 0.5], ['cabbage', 0.5, 0.8], ['broccoli', 0.4, 0.6], ['potato', 0.4, 0.6], ['tomato', 0.7, 1.5],
+    ['sweet-pepper', 0.5, 1.0], ['eggplant', 0.7, 1.2], ['cucumber', 0.7, 1.2], ['zucchini', 0.6, 1.0],
+    ['winter-squash', 1.0, 1.5], ['bush-bean', 0.5, 0.7], ['pea', 0.6, 1.0], ['sweet-corn', 0.8, 1.2],
+    ['onion', 0.3, 0.6], ['garlic', 0.3, 0.5], ['sunflower', 0.8, 1.5],
+  ];
+  it.each(table22)('FAO-56 Table 22 rooting depth: %s %s–%s m', (slug, lo, hi) => {
+    const z = crop(slug).rootingDepthCm;
+    expect(z.source).toBe('fao56-table22');
+    expect(z.value.min).toBeCloseTo(lo * 100, 6);
+    expect(z.value.max).toBeCloseTo(hi * 100, 6);
   });
 
   it('leaves spinach stage lengths out (Table 11 rows unconfirmed)', () => {

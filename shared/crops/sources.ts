@@ -18,6 +18,15 @@ export const cropSources: CropSource[] = [
     evidence: 'published',
   },
   {
+    id: 'fao56-table22',
+    title:
+      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 22: ranges of maximum effective rooting depth (Zr) and soil water depletion fraction for no stress (p) (read from the pyfao56 transcription)',
+    evidence: 'published',
+    // Read through the search tool in pyfao56 src/pyfao56/tools/tables.py; the vegetable rows
+    // agree with a second, independent transcription found in the same search.
+    url: 'https://github.com/kthorp/pyfao56/blob/main/src/pyfao56/tools/tables.py',
+  },
+  {
     id: 'umaine-planting-chart',
     title: 'University of Maine Cooperative Extension, Planting chart for the home vegetable garden',
     evidence: 'published',
@@ -43,6 +52,22 @@ export const cropSources: CropSource[] = [
     evidence: 'published',
   },
   {
+    id: 'tofg-emergence',
+    title:
+      'Teaching Organic Farming and Gardening, Unit 1.3 Propagation/Greenhouse Management, Appendix 4: Days required for seedling emergence at various soil temperatures from seed planted ½ inch deep (adapted from Harrington and Minges, Vegetable Seed Germination, California Agricultural Extension leaflet, 1954, via Knott\'s Handbook for Vegetable Growers, 1997)',
+    evidence: 'published',
+    // Read through the search tool in a copy on issuhub; its rows agree with the Harrington rows
+    // already cited from sources.md (radish, lettuce, carrot, beet, tomato, snap bean, pepper).
+    url: 'https://issuhub.com/view/index?id=3972&pageIndex=132',
+  },
+  {
+    id: 'tofg-emergence-span',
+    title:
+      'Computed: the fewest and most days to emergence at 59, 68, 77 and 86 °F (15–30 °C) in the Harrington and Minges table of Teaching Organic Farming and Gardening, Appendix 4',
+    evidence: 'computed',
+    url: 'https://issuhub.com/view/index?id=3972&pageIndex=132',
+  },
+  {
     id: 'britannica-maturity',
     title: 'Encyclopaedia Britannica, Vegetable farming: harvesting (days to maturity)',
     evidence: 'published',
@@ -53,6 +78,32 @@ export const cropSources: CropSource[] = [
     evidence: 'published',
     // Read through the search tool.
     url: 'https://ag.umass.edu/node/23531',
+  },
+  {
+    id: 'nevmg-table16',
+    title:
+      'New England Vegetable Management Guide (the New England university extension services), Table 16: Handling produce for higher quality and longer market life (temperatures, humidity and storage life adapted from USDA Handbook 66)',
+    evidence: 'published',
+    // Read through the search tool; the rows from asparagus down to early potatoes were in the
+    // stored copy, the later rows (spinach, squash, sweet corn, tomato) were not.
+    url: 'https://nevegetable.org/cultural-practices/table-16-handling-produce-higher-quality-and-longer-market-life',
+  },
+  {
+    id: 'purdue-frost-resistance',
+    title:
+      'Purdue University Cooperative Extension Service HO-203, table "Vegetables: frost resistance" (after University of Illinois VC 14a2, Vegetable Planting Guide); second-hand copy',
+    evidence: 'published',
+    // Read through the search tool on a personal blog that reprints the table and links
+    // https://www.extension.purdue.edu/extmedia/ho/ho-203.html; the Purdue page itself was not stored.
+    url: 'https://nancysgardenjournal.blogspot.com/p/frost-resistance.html',
+  },
+  {
+    id: 'pmc3602570-table4',
+    title:
+      'Article doi:10.1007/s13197-011-0311-6, vol. 50(3):429–442, Table 4: The critical relative humidity and temperatures for various fruits and vegetables (the column recommended after the ASHRAE Handbook 1998)',
+    evidence: 'published',
+    // Read through the search tool on PubMed Central.
+    url: 'https://pmc.ncbi.nlm.nih.gov/articles/PMC3602570/table/Tab4',
   },
   {
     id: 'wvu-rotation',
@@ -110,6 +161,39 @@ export const cropSources: CropSource[] = [
     // Read through the search tool (docslib.org copy); this address is the one the Nevada
     // Appeal column of 7 April 2024 quotes for the WSU original.
     url: 'https://s3.wp.wsu.edu/uploads/sites/403/2015/03/companion-plantings.pdf',
+  },
+  // Botanical names, each read through the search tool on the page given.
+  {
+    id: 'wisc-a3688-vine-crops',
+    title:
+      'Wisconsin Extension publication A3688, Growing pumpkins and other vine crops in Wisconsin: a guide for fresh-market growers (K. A. Delahaut, A. C. Newenhouse), Plant description; copy on abcdocz',
+    evidence: 'published',
+    url: 'https://abcdocz.com/doc/160777/growing-pumpkins-and-other-vine-crops-in-wisconsin',
+  },
+  {
+    id: 'vt-seed-production-solanaceae',
+    title: 'Virginia Tech, Vegetable Seed Production (G. Welbaum), Family: Solanaceae',
+    evidence: 'published',
+    url: 'https://welbaum.spes.vt.edu/seedproduction/Solanacea.html',
+  },
+  {
+    id: 'se-vegetable-handbook-2021',
+    title:
+      '2021 Vegetable Crop Handbook for Southeastern United States (Southeastern Vegetable Extension Workers), table of radish, rutabaga and turnip varieties, page 101',
+    evidence: 'published',
+    url: 'https://www.nxtbook.com/greatamericanmediaservices/GAMS/southeast-veg-crop-handbook-2021/index.php?startid=101',
+  },
+  {
+    id: 'ufifas-plant-id-parsnip',
+    title: 'UF/IFAS Gardening Solutions, Plant Identification Learning Module: Parsnip (Pastinaca sativa)',
+    evidence: 'published',
+    url: 'http://gardeningsolutions.ifas.ufl.edu/mastergardener/outreach/plant_id/vegetables/parsnip.shtml',
+  },
+  {
+    id: 'unl-extension-eggplant-1982',
+    title: 'University of Nebraska–Lincoln Extension (1982), eggplant growing guide; abstract read in the UNL Digital Commons record',
+    evidence: 'published',
+    url: 'http://digitalcommons.unl.edu/extensionhist/1013',
   },
   {
     id: 'common-practice',
