@@ -1,3 +1,4 @@
+import { CAUTION_WORDS, SAFETY_CAUTION } from './caution';
 import type {
   Crop,
   CropCoefficients,
@@ -155,13 +156,6 @@ const store = (tLo: number, tHi: number, hLo: number, hHi: number, dLo: number, 
 });
 const feed = (from: number, to: number): SideDressing => ({ needed: true, weeksAfterEmergence: r(from, to) });
 const NO_SIDE_DRESSING: SideDressing = { needed: false };
-
-/** The caution every guidance text carries when it talks about sprays, soaps, oils, lime, manure or fertiliser. */
-export const SAFETY_CAUTION =
-  'Follow the product label, wear gloves and eye protection, keep sprays off open flowers and foraging pollinators, and defer to local regulations and licensed advice.';
-
-/** Words in guidance that call for the safety caution. */
-export const CAUTION_WORDS = /\b(spray|soap|oil|lime|liming|manur|fertili[sz]|pesticid|fungicid)\w*/i;
 
 // The caution is added where the words appear rather than typed by hand, so a new text
 // cannot forget it.
@@ -1262,3 +1256,5 @@ const bySlug = new Map(crops.map((c) => [c.slug, c]));
 export function cropBySlug(slug: string): Crop | undefined {
   return bySlug.get(slug);
 }
+
+export { CAUTION_WORDS, SAFETY_CAUTION };

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { pestsAndDiseases, type Crop } from '../crops';
+import { pestsAndDiseases } from '../crops/pests';
+import type { Crop } from '../crops/types';
 import { IdSchema, IdTextSchema, MAX_INT4, textSchema } from './common';
 
 // The crop notes API: reference crops (shared/crops, loaded into the database at start), a club's own

@@ -1,7 +1,10 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ArrowLeft, CircleAlert, Handshake, SearchX, Split, Bug } from 'lucide-react';
-import { CAUTION_WORDS, SAFETY_CAUTION, companionCaution, cropSourceById, pestsAndDiseases } from '@shared/crops';
+import { CAUTION_WORDS, SAFETY_CAUTION } from '@shared/crops/caution';
+import { pestsAndDiseases } from '@shared/crops/pests';
+import { companionCaution } from '@shared/crops/relations';
+import { cropSourceById } from '@shared/crops/sources';
 import type { CropDetail, CropRelationView, CropSourceView } from '@shared/schemas/crops';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import { Sprout } from 'lucide-react';
 import { cropKinds, type CropSummary } from '@shared/schemas/crops';
-import type { CropKind } from '@shared/crops';
+import type { CropKind } from '@shared/crops/types';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
 import { DataTable } from '@/components/ui/data-table';

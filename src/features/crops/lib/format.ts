@@ -1,4 +1,4 @@
-import type { Crop, CropKind } from '@shared/crops';
+import type { Crop, CropKind } from '@shared/crops/types';
 import type { CropDetail, CropValueField } from '@shared/schemas/crops';
 
 // Values arrive in SI (cm, °C, days). A source that printed inches or °F says so in its note, and
