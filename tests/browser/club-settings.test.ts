@@ -46,6 +46,8 @@ describe('club settings', () => {
     await w.page.getByLabel('Contact e-mail').fill('hello@mossgate.example.org');
     await w.page.getByLabel('Fee, for the application form').fill('From £25 a year for a small plot');
     await w.page.getByLabel('Typical wait, for the application form').fill('About 18 months');
+    await w.page.getByLabel('Years before a family returns to the same soil').fill('4');
+    await w.page.getByLabel("Let members read each other's plot books").check();
     await w.page.getByRole('button', { name: 'Save club settings' }).click();
     await w.page.getByText('Remove the control character', { exact: false }).first().waitFor();
     expect(await db('clubs').where({ id: clubId }).first('name', 'offer_days', 'renewal_days', 'contact_email', 'fee_note', 'typical_wait')).toEqual(before);
@@ -55,12 +57,15 @@ describe('club settings', () => {
     expect(await w.page.getByLabel('Fee, for the application form').inputValue()).toBe('From £25 a year for a small plot');
     expect(await w.page.getByLabel('Typical wait, for the application form').inputValue()).toBe('About 18 months');
     expect(await w.page.getByLabel('Club name').inputValue()).toBe('Mossgate\u0007 Growers');
+    expect(await w.page.getByLabel('Years before a family returns to the same soil').inputValue()).toBe('4');
     await w.shot('club-settings-refused-390');
 
     await w.page.getByLabel('Club name').fill(before.name);
     await w.page.getByRole('button', { name: 'Save club settings' }).click();
     await w.page.getByText('Club settings saved.').waitFor();
-    expect(await db('clubs').where({ id: clubId }).first('offer_days', 'renewal_days', 'contact_email', 'fee_note', 'typical_wait')).toEqual({
+    expect(await db('clubs').where({ id: clubId }).first('offer_days', 'renewal_days', 'contact_email', 'fee_note', 'typical_wait', 'rotation_gap_years', 'shares_plot_books')).toEqual({
+      rotation_gap_years: 4,
+      shares_plot_books: true,
       offer_days: 12,
       renewal_days: 25,
       contact_email: 'hello@mossgate.example.org',

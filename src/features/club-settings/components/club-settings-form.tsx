@@ -46,6 +46,8 @@ interface SettingsFormValues {
   contactEmail: string;
   feeNote: string;
   typicalWait: string;
+  rotationGapYears: string;
+  sharesPlotBooks: boolean;
 }
 
 /** An empty box clears the value. */
@@ -63,9 +65,11 @@ const SettingsFormSchema = z.object({
   contactEmail: orNull(EmailSchema),
   feeNote: orNull(z.string().max(200, 'At most 200 characters')),
   typicalWait: orNull(z.string().max(200, 'At most 200 characters')),
+  rotationGapYears: z.string().trim().regex(/^\d+$/, 'Enter a whole number of years').transform(Number).pipe(shape.rotationGapYears),
+  sharesPlotBooks: z.boolean(),
 });
 
-const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone', 'contactEmail', 'feeNote', 'typicalWait'] as const;
+const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone', 'contactEmail', 'feeNote', 'typicalWait', 'rotationGapYears', 'sharesPlotBooks'] as const;
 
 function toForm(s: ClubSettings): SettingsFormValues {
   return {
@@ -79,6 +83,8 @@ function toForm(s: ClubSettings): SettingsFormValues {
     contactEmail: s.contactEmail ?? '',
     feeNote: s.feeNote ?? '',
     typicalWait: s.typicalWait ?? '',
+    rotationGapYears: String(s.rotationGapYears),
+    sharesPlotBooks: s.sharesPlotBooks,
   };
 }
 
@@ -193,6 +199,13 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
           error={errors.typicalWait?.message}
           {...register('typicalWait')}
         />
+        <TextField
+          label="Years before a family returns to the same soil"
+          hint="From 1 to 10; 3 is common advice (WVU Extension gives 2–3). Soil-borne diseases such as clubroot keep a family out longer."
+          inputMode="numeric"
+          error={errors.rotationGapYears?.message}
+          {...register('rotationGapYears')}
+        />
         <datalist id="club-settings-time-zones">
           {timeZones.map((zone) => (
             <option key={zone} value={zone} />
@@ -203,6 +216,11 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
         label="Let one person hold more than one open offer at a time"
         hint="Leave this off to offer each free plot to a different person."
         {...register('allowMultipleOffers')}
+      />
+      <Checkbox
+        label="Let members read each other's plot books"
+        hint="Only the plot's holder and the coordinators can change a plot book either way."
+        {...register('sharesPlotBooks')}
       />
       {errors.allowMultipleOffers?.message && (
         <p className="text-sm font-medium text-clay-700">{errors.allowMultipleOffers.message}</p>
