@@ -153,4 +153,33 @@ describe('club values and club crops', () => {
     expect(w.errors).toEqual([]);
     await w.page.context().close();
   }, 60_000);
+
+  it('the coordinator adds a club relation for radish, sees it after a reload, and removes it', async () => {
+    const { clubId, radishId } = await ids();
+    const w = await signInAsCoordinator(suite.browser, suite.server.url, 1280);
+    await w.page.goto(`${suite.server.url}/clubs/${clubId}/crops/${radishId}`);
+    await w.page.getByRole('heading', { level: 1, name: 'Radish' }).waitFor();
+    await w.page.getByRole('button', { name: 'Add a club relation' }).click();
+    const dialog = w.page.getByRole('dialog', { name: 'A club relation for Radish' });
+    await dialog.getByLabel('With').selectOption({ label: 'Chives' });
+    await dialog.getByLabel('Why').fill('Our members find the chives keep flea beetles off the radish row.');
+    expect({ violations: await axeViolations(w.page) }).toEqual({ violations: [] });
+    await w.shot('crop-club-relation-dialog-desktop');
+    await dialog.getByRole('button', { name: 'Save the relation' }).click();
+    await dialogClosed(w.page);
+    await w.page.reload();
+    const companions = w.page.getByRole('region', { name: 'Companions' });
+    const item = companions.getByRole('listitem').filter({ hasText: 'Our members find the chives' });
+    await item.getByText('club relation', { exact: true }).waitFor();
+    await item.getByText('common practice', { exact: false }).waitFor();
+    const chives = await db('crops').whereNull('club_id').where({ slug: 'chives' }).first('id');
+    const row = await db('crop_relations').where({ club_id: clubId }).first('crop_a_id', 'crop_b_id', 'effect', 'distance_m', 'evidence', 'source');
+    expect(row).toEqual({ crop_a_id: radishId, crop_b_id: chives.id, effect: 'beneficial', distance_m: null, evidence: 'common_practice', source: 'common-practice' });
+
+    await item.getByRole('button', { name: 'Remove the club relation with Chives' }).click();
+    await expect.poll(() => item.count()).toBe(0);
+    expect(await db('crop_relations').where({ club_id: clubId }).count({ n: '*' })).toEqual([{ n: 0 }]);
+    expect(w.errors).toEqual([]);
+    await w.page.context().close();
+  }, 60_000);
 });

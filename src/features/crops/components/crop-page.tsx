@@ -6,6 +6,9 @@ import { pestsAndDiseases } from '@shared/crops/pests';
 import { companionCaution } from '@shared/crops/relations';
 import { cropSourceById } from '@shared/crops/sources';
 import type { CropDetail, CropRelationView, CropSourceView } from '@shared/schemas/crops';
+import { Button } from '@/components/ui/button';
+import { useDeleteCropRelation } from '../api/create-crop-relation';
+import { AddClubRelation } from './add-club-relation';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Card } from '@/components/ui/card';
@@ -264,8 +267,9 @@ function scopeText(scope: CropRelationView['scope']): string {
   return scope.kind === 'same_plot' ? 'In the same plot' : `Same plot or neighbouring plots within ${trimNumber(scope.distanceM, 2)} m`;
 }
 
-function RelationItem({ clubId, relation }: { clubId: number; relation: CropRelationView }) {
+function RelationItem({ clubId, relation, canEdit }: { clubId: number; relation: CropRelationView; canEdit: boolean }) {
   const apart = relation.effect === 'antagonistic';
+  const remove = useDeleteCropRelation(clubId);
   return (
     <li className="py-2">
       <p className="flex flex-wrap items-center gap-2">
@@ -286,16 +290,34 @@ function RelationItem({ clubId, relation }: { clubId: number; relation: CropRela
         <span className="font-semibold text-soil">{evidenceWords[relation.evidence]}</span>
         {relation.source.evidence === 'common_practice' ? <>: no single published source</> : <>: {relation.source.title}</>}
       </p>
+      {canEdit && relation.isClubRelation && (
+        <Button
+          variant="ghost"
+          className="mt-1 -ml-3"
+          loading={remove.isPending}
+          loadingText="Removing…"
+          onClick={() => remove.mutate(relation.id)}
+          aria-label={`Remove the club relation with ${relation.otherCrop.commonName}`}
+        >
+          Remove the club relation
+        </Button>
+      )}
+      {remove.isError && <p className="text-sm font-medium text-clay-700">{remove.error.message}</p>}
     </li>
   );
 }
 
-function Relations({ clubId, crop }: { clubId: number; crop: CropDetail }) {
+function Relations({ clubId, crop, canEdit }: { clubId: number; crop: CropDetail; canEdit: boolean }) {
   const good = crop.relations.filter((r) => r.effect === 'beneficial');
   const apart = crop.relations.filter((r) => r.effect === 'antagonistic');
   const cautionSource = cropSourceById(companionCaution.source);
   return (
     <Group id="crop-relations" title="Companions">
+      {canEdit && (
+        <div className="mb-4">
+          <AddClubRelation clubId={clubId} cropId={crop.id} cropName={crop.commonName} />
+        </div>
+      )}
       <div className="grid gap-6 md:grid-cols-2">
         <div>
           <h3 className="text-lg font-semibold">Good pairings</h3>
@@ -304,7 +326,7 @@ function Relations({ clubId, crop }: { clubId: number; crop: CropDetail }) {
           ) : (
             <ul className="divide-y divide-paper-200">
               {good.map((r) => (
-                <RelationItem key={r.id} clubId={clubId} relation={r} />
+                <RelationItem key={r.id} clubId={clubId} relation={r} canEdit={canEdit} />
               ))}
             </ul>
           )}
@@ -316,7 +338,7 @@ function Relations({ clubId, crop }: { clubId: number; crop: CropDetail }) {
           ) : (
             <ul className="divide-y divide-paper-200">
               {apart.map((r) => (
-                <RelationItem key={r.id} clubId={clubId} relation={r} />
+                <RelationItem key={r.id} clubId={clubId} relation={r} canEdit={canEdit} />
               ))}
             </ul>
           )}
@@ -459,7 +481,7 @@ export function CropPage({ clubId, cropId, canSetClubValues = false }: CropPageP
       />
       <div className="flex flex-col gap-6">
         <Values crop={crop} clubId={clubId} canSetClubValues={canSetClubValues} />
-        <Relations clubId={clubId} crop={crop} />
+        <Relations clubId={clubId} crop={crop} canEdit={canSetClubValues} />
         <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
           <Guidance crop={crop} />
           <WatchFor crop={crop} />

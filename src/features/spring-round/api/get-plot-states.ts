@@ -21,5 +21,6 @@ export function plotStatesQueryOptions(seasonId: number, siteId: number) {
 
 /** Free, offered, renewing and taken plots of one site in one season (waits while there is no season). */
 export function usePlotStates(seasonId: number | null, siteId: number) {
-  return useQuery({ ...plotStatesQueryOptions(seasonId ?? 0, siteId), enabled: seasonId !== null });
+  // Both ids must be known: the seasons can load before the sites, and siteId 0 is no site (the server answers 400).
+  return useQuery({ ...plotStatesQueryOptions(seasonId ?? 0, siteId), enabled: seasonId !== null && siteId > 0 });
 }
