@@ -75,6 +75,11 @@ describe('the plot book', () => {
 
     await card.getByRole('button', { name: 'Log a harvest of Radish ‘Sparkler’' }).click();
     await card.getByLabel('Picked on').fill('2026-10-03');
+    // A weight that is not a number is caught on the form, and what was typed stays.
+    await card.getByLabel('Weight').fill('lots');
+    await card.getByRole('button', { name: 'Save the harvest' }).click();
+    await card.getByText('A number, like 1.5').waitFor();
+    expect(await card.getByLabel('Picked on').inputValue()).toBe('2026-10-03');
     await card.getByLabel('Weight').fill('1.2');
     await card.getByRole('button', { name: 'Save the harvest' }).click();
     await card.getByText('1.2 kg in 1 picking').waitFor();
@@ -83,6 +88,8 @@ describe('the plot book', () => {
     // A pest with a photo: the photo is checked and re-encoded by the server.
     const photo = await sharp({ create: { width: 800, height: 600, channels: 3, background: { r: 90, g: 140, b: 60 } } }).jpeg().toBuffer();
     await w.page.getByRole('button', { name: 'Record what you saw' }).click();
+    await w.page.getByRole('button', { name: 'Save the observation' }).click();
+    await w.page.getByText('Choose what you saw').waitFor();
     await w.page.getByLabel('What did you see?').selectOption({ label: 'Slugs and snails' });
     await w.page.getByLabel('How bad').selectOption('moderate');
     await w.page.getByLabel('Seen on').fill('2026-09-20');

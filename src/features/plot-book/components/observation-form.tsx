@@ -1,18 +1,54 @@
 import { useState } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
 import { pestsAndDiseases } from '@shared/crops/pests';
 import { localToday } from '@shared/dates';
-import { MAX_PHOTOS_PER_OBSERVATION, severities, type Planting } from '@shared/schemas/plot-book';
+import { MAX_PHOTOS_PER_OBSERVATION, ObservationBodySchema, severities, type ObservationBody, type Planting } from '@shared/schemas/plot-book';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Field, inputClasses, TextAreaField, TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
-import { isApiError } from '@/lib/api/client';
+import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useTimeZone } from '@/lib/time-zone';
 import { useAddObservation } from '../api/add-observation';
 import { plantingName } from '../lib/format';
 
 const severityWords = { light: 'Light: a few plants or leaves', moderate: 'Moderate: spreading', severe: 'Severe: most of the crop' } as const;
 const OTHER = 'other';
+
+// The form keeps a pest choice (or "something else" with a name and kind); the shared body schema
+// then checks it as the server will, and its messages land on the same boxes.
+const FormSchema = z
+  .object({
+    pest: z.string().min(1, 'Choose what you saw'),
+    name: z.string(),
+    kind: z.enum(['pest', 'disease', 'other']),
+    severity: z.enum(severities),
+    observedOn: z.string(),
+    plantingId: z.string(),
+    notes: z.string(),
+  })
+  .transform((v, ctx): ObservationBody => {
+    const other = v.pest === OTHER;
+    const body = ObservationBodySchema.safeParse({
+      pestSlug: other ? null : v.pest,
+      name: other ? v.name : null,
+      kind: other ? v.kind : null,
+      severity: v.severity,
+      observedOn: v.observedOn,
+      notes: v.notes,
+      plantingId: v.plantingId ? Number(v.plantingId) : null,
+    });
+    if (body.success) return body.data;
+    for (const issue of body.error.issues) {
+      const field = issue.path[0] === 'pestSlug' ? 'pest' : String(issue.path[0]);
+      ctx.addIssue({ code: 'custom', path: [field], message: issue.message });
+    }
+    return z.NEVER;
+  });
+type FormInput = z.input<typeof FormSchema>;
+const fieldNames = ['name', 'kind', 'severity', 'observedOn', 'plantingId', 'notes'] as const;
 
 /**
  * Records a pest or disease seen on the plot (from the crop notes' list, or named freely), how bad,
@@ -21,49 +57,47 @@ const OTHER = 'other';
 export function ObservationForm({ plotId, plantings, onDone }: { plotId: number; plantings: Planting[]; onDone: () => void }) {
   const zone = useTimeZone();
   const add = useAddObservation(plotId);
-  const [pest, setPest] = useState('');
-  const [name, setName] = useState('');
-  const [kind, setKind] = useState<'pest' | 'disease' | 'other'>('pest');
-  const [severity, setSeverity] = useState<(typeof severities)[number]>('light');
-  const [on, setOn] = useState(localToday(zone));
-  const [plantingId, setPlantingId] = useState('');
-  const [notes, setNotes] = useState('');
   const [photos, setPhotos] = useState<File[]>([]);
   const [photoError, setPhotoError] = useState<string | null>(null);
-  const fields = isApiError(add.error) ? (add.error.fields ?? {}) : {};
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    control,
+    setError,
+    formState: { errors },
+  } = useForm<FormInput, unknown, ObservationBody>({
+    resolver: zodResolver(FormSchema),
+    defaultValues: { pest: '', name: '', kind: 'pest', severity: 'light', observedOn: localToday(zone), plantingId: '', notes: '' },
+  });
+  const pest = useWatch({ control, name: 'pest' });
   const chosen = pestsAndDiseases.find((p) => p.slug === pest);
   const saved = (add.error as { savedObservation?: unknown } | null)?.savedObservation;
 
-  const submit = (e: React.FormEvent) => {
-    e.preventDefault();
-    if (pest === '') return;
+  const onSubmit = handleSubmit((body) => {
+    setFormError(null);
     add.mutate(
+      { body, photos },
       {
-        body: {
-          pestSlug: pest === OTHER ? null : pest,
-          name: pest === OTHER ? name : null,
-          kind: pest === OTHER ? kind : null,
-          severity,
-          observedOn: on,
-          notes,
-          plantingId: plantingId ? Number(plantingId) : null,
+        onSuccess: onDone,
+        onError: (error) => {
+          if ((error as { savedObservation?: unknown }).savedObservation) return;
+          setFormError(applyServerErrors(error, setError, fieldNames));
         },
-        photos,
       },
-      { onSuccess: onDone },
     );
-  };
+  });
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-4">
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
       {saved ? (
         <Alert tone="warning" title="Saved, but a photo was refused">
           {(add.error as { photoName?: string }).photoName}: {add.error!.message} The observation and any photos before it are kept.
         </Alert>
       ) : (
-        add.isError && !Object.keys(fields).length && <Alert tone="error">{add.error.message}</Alert>
+        formError && <Alert tone="error">{formError}</Alert>
       )}
-      <Select label="What did you see?" value={pest} onChange={(e) => setPest(e.target.value)} error={fields.pestSlug}>
+      <Select label="What did you see?" error={errors.pest?.message} {...register('pest')}>
         <option value="">Choose</option>
         <optgroup label="Pests">
           {pestsAndDiseases.filter((p) => p.kind === 'pest').map((p) => (
@@ -89,8 +123,8 @@ export function ObservationForm({ plotId, plantings, onDone }: { plotId: number;
       )}
       {pest === OTHER && (
         <div className="grid gap-3 sm:grid-cols-2">
-          <TextField label="Name it" value={name} onChange={(e) => setName(e.target.value)} error={fields.name} />
-          <Select label="It is a" value={kind} onChange={(e) => setKind(e.target.value as typeof kind)} error={fields.kind}>
+          <TextField label="Name it" error={errors.name?.message} {...register('name')} />
+          <Select label="It is a" error={errors.kind?.message} {...register('kind')}>
             <option value="pest">Pest</option>
             <option value="disease">Disease</option>
             <option value="other">Something else</option>
@@ -98,17 +132,17 @@ export function ObservationForm({ plotId, plantings, onDone }: { plotId: number;
         </div>
       )}
       <div className="grid gap-3 sm:grid-cols-2">
-        <Select label="How bad" value={severity} onChange={(e) => setSeverity(e.target.value as typeof severity)}>
+        <Select label="How bad" error={errors.severity?.message} {...register('severity')}>
           {severities.map((s) => (
             <option key={s} value={s}>
               {severityWords[s]}
             </option>
           ))}
         </Select>
-        <TextField label="Seen on" type="date" value={on} onChange={(e) => setOn(e.target.value)} error={fields.observedOn} />
+        <TextField label="Seen on" type="date" error={errors.observedOn?.message} {...register('observedOn')} />
       </div>
       {plantings.length > 0 && (
-        <Select label="On which planting (optional)" value={plantingId} onChange={(e) => setPlantingId(e.target.value)} error={fields.plantingId}>
+        <Select label="On which planting (optional)" error={errors.plantingId?.message} {...register('plantingId')}>
           <option value="">The plot in general</option>
           {plantings.map((p) => (
             <option key={p.id} value={p.id}>
@@ -117,7 +151,7 @@ export function ObservationForm({ plotId, plantings, onDone }: { plotId: number;
           ))}
         </Select>
       )}
-      <TextAreaField label="Notes (optional)" rows={3} value={notes} onChange={(e) => setNotes(e.target.value)} error={fields.notes} />
+      <TextAreaField label="Notes (optional)" rows={3} error={errors.notes?.message} {...register('notes')} />
       <Field label={`Photos (up to ${MAX_PHOTOS_PER_OBSERVATION}, optional)`} hint="PNG, JPEG or WebP. Location and camera details are removed." error={photoError ?? undefined}>
         {({ inputId, describedBy }) => (
           <input
@@ -136,7 +170,7 @@ export function ObservationForm({ plotId, plantings, onDone }: { plotId: number;
         )}
       </Field>
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" loading={add.isPending} loadingText="Saving…" disabled={pest === '' || photoError !== null}>
+        <Button type="submit" loading={add.isPending} loadingText="Saving…" disabled={photoError !== null || Boolean(saved)}>
           Save the observation
         </Button>
         <Button variant="ghost" onClick={onDone}>
