@@ -12,6 +12,7 @@ import type {
   CropSummary,
   OverridableCropField,
 } from '@shared/schemas/crops';
+import { overridableCropFields } from '@shared/schemas/crops';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 
@@ -47,29 +48,8 @@ interface RelationRow {
   source: string;
 }
 
-const SOURCED_FIELDS = [
-  'botanicalName',
-  'family',
-  'inRowCm',
-  'betweenRowCm',
-  'equalSpacingCm',
-  'sowingDepthCm',
-  'sowing',
-  'daysToEmergence',
-  'emergenceByTemperature',
-  'germination',
-  'daysToMaturity',
-  'soilPh',
-  'rootingDepthCm',
-  'matureHeightCm',
-  'sun',
-  'frost',
-  'feeding',
-  'sideDressing',
-  'kc',
-  'stages',
-  'storage',
-] as const;
+// Every sourced value of a crop: its names, which no club overrides, and the overridable fields.
+const SOURCED_FIELDS = ['botanicalName', 'family', ...overridableCropFields] as const;
 
 /** Crops a club can see: the reference catalogue and its own. */
 function visible(db: Db, clubId: number) {

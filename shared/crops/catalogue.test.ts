@@ -412,7 +412,7 @@ describe('cited rows against the data', () => {
     expect(v.initial + v.development + v.mid + v.late).toBe(total);
   });
 
-  // [crop, Zr low m, Zr high m], as printed in Table 22 (pyfao56 transcription).
+  // [crop, Zr low m, Zr high m], as printed in Table 22 (pyfao56 tables file).
   const table22: [string, number, number][] = [
     ['turnip', 0.5, 1.0], ['beet', 0.6, 1.0], ['spinach', 0.3, 0.5], ['carrot', 0.5, 1.0], ['parsnip', 0.5, 1.0],
     ['lettuce', 0.3, 0.5], ['cabbage', 0.5, 0.8], ['broccoli', 0.4, 0.6], ['potato', 0.4, 0.6], ['tomato', 0.7, 1.5],

@@ -14,16 +14,16 @@ export const cropSources: CropSource[] = [
   {
     id: 'fao56-table12',
     title:
-      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 12: single crop coefficients Kc and mean maximum plant heights (read from the pyfao56 transcription)',
+      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 12: single crop coefficients Kc and mean maximum plant heights (read from the tables of the open pyfao56 package)',
     evidence: 'published',
   },
   {
     id: 'fao56-table22',
     title:
-      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 22: ranges of maximum effective rooting depth (Zr) and soil water depletion fraction for no stress (p) (read from the pyfao56 transcription)',
+      'Allen, Pereira, Raes, Smith (1998), FAO Irrigation and Drainage Paper 56, Crop evapotranspiration, Table 22: ranges of maximum effective rooting depth (Zr) and soil water depletion fraction for no stress (p) (read from the tables of the open pyfao56 package)',
     evidence: 'published',
     // Read through the search tool in pyfao56 src/pyfao56/tools/tables.py; the vegetable rows
-    // agree with a second, independent transcription found in the same search.
+    // agree with a second, independent copy of the table found in the same search.
     url: 'https://github.com/kthorp/pyfao56/blob/main/src/pyfao56/tools/tables.py',
   },
   {

@@ -11,7 +11,6 @@ import { useDeleteCropRelation } from '../api/create-crop-relation';
 import { AddClubRelation } from './add-club-relation';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
-import { Card } from '@/components/ui/card';
 import { DeadEnd } from '@/components/ui/dead-end';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
@@ -35,21 +34,9 @@ import {
 } from '../lib/format';
 import { ClubValue, type ClubValueField } from './club-value';
 import { SourceNote } from './source-note';
+import { CardSection } from '@/components/ui/page-section';
 
 type Sourced<T> = { value: T; source: string; note?: string; overridden?: true };
-
-function Group({ id, title, children }: { id: string; title: string; children: ReactNode }) {
-  return (
-    <section aria-labelledby={id} className="min-w-0">
-      <Card className="h-full">
-        <h2 id={id} className="mb-3 text-xl font-semibold">
-          {title}
-        </h2>
-        {children}
-      </Card>
-    </section>
-  );
-}
 
 function Value<T>({
   term,
@@ -113,7 +100,7 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
   });
   return (
     <div className="grid gap-6 lg:grid-cols-2">
-      <Group id="crop-names" title="Name and family">
+      <CardSection id="crop-names" title="Name and family">
         <dl>
           <Value term="Botanical name" value={crop.botanicalName} {...v()}>
             {(name) => <i>{name}</i>}
@@ -122,8 +109,8 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
             {(family) => family}
           </Value>
         </dl>
-      </Group>
-      <Group id="crop-sowing" title="Sowing and spacing">
+      </CardSection>
+      <CardSection id="crop-sowing" title="Sowing and spacing">
         <dl>
           <Value term={termOf.sowing} value={crop.sowing} {...v('sowing')}>
             {(s) => sowingLabels[s]}
@@ -141,8 +128,8 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
             {formatCmRange}
           </Value>
         </dl>
-      </Group>
-      <Group id="crop-germination" title="Germination and emergence">
+      </CardSection>
+      <CardSection id="crop-germination" title="Germination and emergence">
         <dl>
           <Value term="Soil temperature for germination" value={crop.germination} {...v()}>
             {(g, note) => (
@@ -171,8 +158,8 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
             </Value>
           )}
         </dl>
-      </Group>
-      <Group id="crop-growth" title="Growth and harvest">
+      </CardSection>
+      <CardSection id="crop-growth" title="Growth and harvest">
         <dl>
           <Value term={termOf.daysToMaturity} value={crop.daysToMaturity} {...v('daysToMaturity')}>
             {formatMaturity}
@@ -196,8 +183,8 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
             }
           </Value>
         </dl>
-      </Group>
-      <Group id="crop-soil" title="Soil, sun and frost">
+      </CardSection>
+      <CardSection id="crop-soil" title="Soil, sun and frost">
         <dl>
           <Value term={termOf.soilPh} value={crop.soilPh} {...v('soilPh')}>
             {(r) => (r.min === r.max ? trimNumber(r.min) : `${trimNumber(r.min)}–${trimNumber(r.max)}`)}
@@ -209,9 +196,9 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
             {(f) => frostLabels[f]}
           </Value>
         </dl>
-      </Group>
+      </CardSection>
       {(crop.kc || crop.stages) && (
-        <Group id="crop-water" title="Water (FAO-56)">
+        <CardSection id="crop-water" title="Water (FAO-56)">
           <dl>
             {crop.kc && (
               <Value term="Crop coefficient Kc" value={crop.kc} {...v()}>
@@ -239,9 +226,9 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
               </Value>
             )}
           </dl>
-        </Group>
+        </CardSection>
       )}
-      <Group id="crop-storage" title="Storage">
+      <CardSection id="crop-storage" title="Storage">
         <dl>
           <Value term="How it keeps" value={crop.storage} {...v()}>
             {(s, note) => (
@@ -256,7 +243,7 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
             )}
           </Value>
         </dl>
-      </Group>
+      </CardSection>
     </div>
   );
 }
@@ -312,7 +299,7 @@ function Relations({ clubId, crop, canEdit }: { clubId: number; crop: CropDetail
   const apart = crop.relations.filter((r) => r.effect === 'antagonistic');
   const cautionSource = cropSourceById(companionCaution.source);
   return (
-    <Group id="crop-relations" title="Companions">
+    <CardSection id="crop-relations" title="Companions">
       {canEdit && (
         <div className="mb-4">
           <AddClubRelation clubId={clubId} cropId={crop.id} cropName={crop.commonName} />
@@ -352,7 +339,7 @@ function Relations({ clubId, crop, canEdit }: { clubId: number; crop: CropDetail
           {cautionSource && <p className="mt-1 text-sm">published: {cautionSource.title}</p>}
         </div>
       </div>
-    </Group>
+    </CardSection>
   );
 }
 
@@ -371,7 +358,7 @@ function Guidance({ crop }: { crop: CropDetail }) {
   const parts = guidanceParts.filter(([key]) => crop.guidance[key]);
   const needsCaution = parts.some(([key]) => CAUTION_WORDS.test(crop.guidance[key] ?? ''));
   return (
-    <Group id="crop-guidance" title="Growing guidance">
+    <CardSection id="crop-guidance" title="Growing guidance">
       {needsCaution && (
         <Alert tone="warning" title="Take care with sprays, soaps, oils, lime, manure and fertiliser" className="mb-4" announce={false}>
           <p>{SAFETY_CAUTION} This is guidance, not a prescription.</p>
@@ -390,7 +377,7 @@ function Guidance({ crop }: { crop: CropDetail }) {
         </dl>
       )}
       <p className="mt-3 text-sm text-stone">Written in our own words; the values above name their sources.</p>
-    </Group>
+    </CardSection>
   );
 }
 
@@ -398,7 +385,7 @@ const pestBySlug = new Map(pestsAndDiseases.map((p) => [p.slug, p]));
 
 function WatchFor({ crop }: { crop: CropDetail }) {
   return (
-    <Group id="crop-watch" title="Watch for">
+    <CardSection id="crop-watch" title="Watch for">
       {crop.watchFor.length === 0 ? (
         <p className="text-stone">Nothing listed for this crop.</p>
       ) : (
@@ -418,7 +405,7 @@ function WatchFor({ crop }: { crop: CropDetail }) {
           })}
         </ul>
       )}
-    </Group>
+    </CardSection>
   );
 }
 

@@ -6,7 +6,6 @@ import { ArrowLeft, BookOpen, History, Map as MapIcon, SearchX, Users } from 'lu
 import { formatLength } from '@shared/geometry';
 import { plotKindLabels, sunLabels, type PlotDetail, type PlotKind } from '@shared/schemas/plots';
 import { buttonClasses } from '@/components/ui/button';
-import { Card } from '@/components/ui/card';
 import { DeadEnd } from '@/components/ui/dead-end';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
@@ -16,19 +15,7 @@ import { paths } from '@/lib/paths';
 import { LocalDate, useTimeZone } from '@/lib/time-zone';
 import { usePlot } from '../api/get-plot';
 import { formatPlotArea, formatSize, formatSoilDepth, sideText } from '../lib/format';
-
-function Panel({ id, title, children }: { id: string; title: string; children: ReactNode }) {
-  return (
-    <section aria-labelledby={id} className="min-w-0">
-      <Card className="h-full">
-        <h2 id={id} className="mb-4 text-xl font-semibold">
-          {title}
-        </h2>
-        {children}
-      </Card>
-    </section>
-  );
-}
+import { CardSection } from '@/components/ui/page-section';
 
 function Fact({ term, children }: { term: string; children: ReactNode }) {
   return (
@@ -181,25 +168,25 @@ function LoadedPlotPage({ clubId, plotId, canEdit }: PlotPageProps) {
         }
       />
       <div className="grid gap-6 lg:grid-cols-2">
-        <Panel id="plot-details" title="About this plot">
+        <CardSection id="plot-details" title="About this plot">
           <Details plot={plot} />
-        </Panel>
+        </CardSection>
         <div className="flex min-w-0 flex-col gap-6">
-          <Panel id="plot-holder" title={plot.season ? `The ${plot.season.year} season` : 'This season'}>
+          <CardSection id="plot-holder" title={plot.season ? `The ${plot.season.year} season` : 'This season'}>
             <SeasonState plot={plot} />
-          </Panel>
-          <Panel id="plot-neighbours" title="Neighbours">
+          </CardSection>
+          <CardSection id="plot-neighbours" title="Neighbours">
             <Neighbours plot={plot} clubId={clubId} />
-          </Panel>
+          </CardSection>
         </div>
         <div className="lg:col-span-2">
-          <Panel id="plot-history" title="History">
+          <CardSection id="plot-history" title="History">
             <div className="mb-3 flex items-center gap-2 text-sm text-stone">
               <History className="size-4" aria-hidden="true" />
               Newest first
             </div>
             <HistoryList plot={plot} showsPeople={canEdit} />
-          </Panel>
+          </CardSection>
         </div>
       </div>
     </>
