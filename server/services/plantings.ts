@@ -31,6 +31,7 @@ interface PlantingRow {
   quantity: number | null;
   status: Planting['status'];
   notes: string;
+  keep_reason: string | null;
   version: number;
 }
 
@@ -69,6 +70,7 @@ function toPlanting(r: PlantingRow, plot: { width: number; length: number }, cli
     quantity: r.quantity,
     status: r.status,
     notes: r.notes,
+    keepReason: r.keep_reason,
     version: r.version,
     computed: computePlanting(
       r.crop_data,

@@ -149,6 +149,7 @@ export async function getPlotBook(db: Db, opts: { plotId: number; userId: number
     harvests: harvestRows.map(toHarvest),
     pastSeasons: pastYears.map((year) => ({ year, plantings: earlier.filter((p) => p.seasonYear === year) })),
     observations: await listObservations(db, plot.id),
+    findings: [],
     harvestTotals: { byPlanting, plot: plotTotals },
   };
 }

@@ -3,6 +3,7 @@ import { pestBySlug } from '../crops/pests';
 import { dateWithinSchema, IdSchema, textSchema, VersionSchema } from './common';
 import { PlotKindSchema } from './plots';
 import { UnitsSchema } from './sites';
+import { FindingSchema } from './findings';
 
 // The plot book: plantings on a plot (or part of it), their harvests, and observations of pests and
 // diseases with photos. Lengths in metres, weights stored in grams; dates are calendar dates.
@@ -46,6 +47,8 @@ const plantingFields = {
   quantity: z.number().int('A whole number of plants').min(1, 'At least 1').max(1_000_000, 'At most 1,000,000').nullable(),
   status: PlantingStatusSchema,
   notes: textSchema({ max: 2000, multiline: true }),
+  /** Why the holder keeps the planting despite a clash the neighbour check found; needed when there is one. */
+  keepReason: textSchema({ max: 500, multiline: true }).nullable(),
 };
 
 /** POST /api/plots/:plotId/plantings: crop, method and date are needed; the rest have defaults (whole plot, rows, planned). */
@@ -60,8 +63,13 @@ export const PlantingBodySchema = z.strictObject({
   quantity: plantingFields.quantity.default(null),
   status: plantingFields.status.default('planned'),
   notes: plantingFields.notes.default(''),
+  keepReason: plantingFields.keepReason.default(null),
 });
 export type PlantingBody = z.infer<typeof PlantingBodySchema>;
+
+/** POST /api/plots/:plotId/plantings/check: a planting as the form holds it, with `plantingId` when editing a saved one. */
+export const PlantingCheckBodySchema = PlantingBodySchema.extend({ plantingId: IdSchema.nullable().default(null) });
+export type PlantingCheckBody = z.infer<typeof PlantingCheckBodySchema>;
 
 /** PATCH /api/plantings/:plantingId: any of the fields, with the version last read. */
 export const PlantingUpdateBodySchema = z.strictObject({ version: VersionSchema, ...plantingFields }).partial().required({ version: true });
@@ -105,6 +113,7 @@ export const PlantingSchema = z.object({
   quantity: z.number().int().nullable(),
   status: PlantingStatusSchema,
   notes: z.string(),
+  keepReason: z.string().nullable(),
   version: z.number().int(),
   computed: PlantingComputedSchema,
 });
@@ -220,6 +229,8 @@ export const PlotBookSchema = z.object({
   pastSeasons: z.array(z.object({ year: z.number().int(), plantings: z.array(PlantingSchema) })),
   /** Every observation of the plot, newest first: they belong to the soil's history. */
   observations: z.array(ObservationSchema),
+  /** The neighbour check's findings for the season's plantings (see shared/schemas/findings.ts). */
+  findings: z.array(FindingSchema),
   harvestTotals: z.object({
     byPlanting: z.array(TotalsSchema.extend({ plantingId: z.number().int() })),
     plot: TotalsSchema,
