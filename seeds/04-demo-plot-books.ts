@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { pestBySlug } from '../shared/crops/pests';
+import { recheckEverything } from '../server/services/findings';
 
 // Three past seasons (2023–2025) and the 2026 season of plantings on the demo holders' plots at
 // Mossgate Lane, with harvests and a few pest and disease observations (clubroot on B-2 in 2024),
@@ -230,4 +231,6 @@ export async function seed(knex: Knex): Promise<void> {
       }
     }
   }
+  // The neighbour check's findings for the demo plantings, as the product keeps them after each change.
+  await recheckEverything(knex);
 }

@@ -6,6 +6,7 @@ import { startJobs } from './jobs';
 import { createMailer } from './mail/mailer';
 import { mailIdle } from './services/outbox';
 import { loadReferenceCrops } from './services/reference-crops';
+import { bringFindingsUpToDate } from './services/findings';
 import { pino } from 'pino';
 
 export interface RunningServer {
@@ -19,7 +20,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   for (const warning of configWarnings(config)) log.warn(warning);
   const db = createDb(config.databaseUrl);
   await db.migrate.latest();
-  await loadReferenceCrops(db);
+  await bringFindingsUpToDate(db, await loadReferenceCrops(db));
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
   const built = createApp({ db, mailer, config });
   const jobs = await startJobs(config.databaseUrl, db, mailer, log);

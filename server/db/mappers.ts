@@ -26,6 +26,7 @@ export interface SiteRow {
   last_spring_frost: string | null;
   first_autumn_frost: string | null;
   soil_notes: string;
+  soil_temps_c?: unknown;
   background_file: string | null;
   background_mime: string | null;
   background_width_px: number | null;
@@ -76,6 +77,7 @@ export function toSite(r: SiteRow): Site {
     lastSpringFrost: r.last_spring_frost,
     firstAutumnFrost: r.first_autumn_frost,
     soilNotes: r.soil_notes,
+    soilTempsC: Array.isArray(r.soil_temps_c) && r.soil_temps_c.length === 12 ? (r.soil_temps_c as number[]) : null,
     background:
       r.background_file && r.background_width_px && r.background_height_px
         ? {
@@ -164,5 +166,7 @@ export function siteColumns(b: Record<string, unknown>) {
   };
   const out: Record<string, unknown> = {};
   for (const [k, v] of Object.entries(b)) if (k in map && v !== undefined) out[map[k]] = v;
+  // jsonb: knex would send a bare array as a Postgres array.
+  if (b.soilTempsC !== undefined) out.soil_temps_c = b.soilTempsC === null ? null : JSON.stringify(b.soilTempsC);
   return out;
 }

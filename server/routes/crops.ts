@@ -9,6 +9,7 @@ import {
   CropRelationParamsSchema,
 } from '@shared/schemas/crops';
 import type { Deps } from '../deps';
+import { recheckClub } from '../services/findings';
 import { parseInput } from '../errors';
 import { requireClubRole } from '../middleware/auth';
 import {
@@ -42,12 +43,21 @@ export function cropsRouter({ db }: Deps): Router {
 
   router.post('/relations', coordinator, async (req, res) => {
     const body = parseInput(CropRelationCreateBodySchema, req.body);
-    res.status(201).json(await createClubRelation(db, { clubId: req.clubId!, userId: req.session.userId!, body }));
+    // The club's crop notes feed the neighbour check: re-check the club in the same transaction.
+    const relation = await db.transaction(async (trx) => {
+      const made = await createClubRelation(trx, { clubId: req.clubId!, userId: req.session.userId!, body });
+      await recheckClub(trx, req.clubId!);
+      return made;
+    });
+    res.status(201).json(relation);
   });
 
   router.delete('/relations/:relationId', coordinator, async (req, res) => {
     const { relationId } = parseInput(CropRelationParamsSchema, req.params);
-    await removeClubRelation(db, { clubId: req.clubId!, relationId });
+    await db.transaction(async (trx) => {
+      await removeClubRelation(trx, { clubId: req.clubId!, relationId });
+      await recheckClub(trx, req.clubId!);
+    });
     res.status(204).end();
   });
 
@@ -59,12 +69,20 @@ export function cropsRouter({ db }: Deps): Router {
   router.put('/:cropId/overrides/:field', coordinator, async (req, res) => {
     const { cropId, field } = parseInput(CropOverrideParamsSchema, req.params);
     const body = parseInput(cropOverrideBodySchema(field), req.body);
-    res.json(await setCropOverride(db, { clubId: req.clubId!, cropId, field, body, userId: req.session.userId! }));
+    const crop = await db.transaction(async (trx) => {
+      const changed = await setCropOverride(trx, { clubId: req.clubId!, cropId, field, body, userId: req.session.userId! });
+      await recheckClub(trx, req.clubId!);
+      return changed;
+    });
+    res.json(crop);
   });
 
   router.delete('/:cropId/overrides/:field', coordinator, async (req, res) => {
     const { cropId, field } = parseInput(CropOverrideParamsSchema, req.params);
-    await removeCropOverride(db, { clubId: req.clubId!, cropId, field });
+    await db.transaction(async (trx) => {
+      await removeCropOverride(trx, { clubId: req.clubId!, cropId, field });
+      await recheckClub(trx, req.clubId!);
+    });
     res.status(204).end();
   });
 

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { recheckClub } from './findings';
 import type { ClubSettings, ClubSettingsUpdateBody } from '@shared/schemas/clubs';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
@@ -92,6 +93,7 @@ export async function updateClubSettings(db: Knex, clubId: number, body: ClubSet
     if (Object.keys(set).length > 0) {
       await trx('clubs').where({ id: clubId }).update({ ...set, updated_at: trx.fn.now() });
     }
+    if (body.rotationGapYears !== undefined && body.rotationGapYears !== current.rotation_gap_years) await recheckClub(trx, clubId);
     return getClubSettings(trx, clubId);
   });
 }

@@ -8,6 +8,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { type ImageLimits, inspectImage, makeThumbnail, reencodeImage } from './images';
 import { assertPartInside, plotBookAccess } from './plot-book';
+import { recheckSite } from './findings';
 
 /** The largest photo accepted, in bytes (8 MB: a phone camera's full-size JPEG fits). */
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
@@ -129,6 +130,8 @@ export async function createObservation(db: Knex, opts: { plotId: number; userId
         created_by_user_id: opts.userId,
       })
       .returning('id');
+    // A soil-borne disease lengthens the rotation gap on this soil: re-check the plot.
+    if (pest?.soilBorne) await recheckSite(trx, access.plot.siteId, [access.plot.id]);
     return row.id as number;
   });
   return getObservation(db, id);
@@ -226,11 +229,12 @@ export async function findObservationPhoto(
 /** Deletes an observation with its photos (by whoever may change its plot's book); the files go once the rows are gone. */
 export async function deleteObservation(db: Knex, opts: { observationId: number; userId: number; uploadDir: string; now?: Date }): Promise<void> {
   const names = await db.transaction(async (trx) => {
-    const row = await trx('observations').where({ id: opts.observationId }).forUpdate().first('id', 'plot_id');
+    const row = await trx('observations').where({ id: opts.observationId }).forUpdate().first('id', 'plot_id', 'is_soil_borne');
     if (!row) throw notFound('The observation');
-    await plotBookAccess(trx, { plotId: row.plot_id, userId: opts.userId, write: true, now: opts.now });
+    const access = await plotBookAccess(trx, { plotId: row.plot_id, userId: opts.userId, write: true, now: opts.now });
     const photos: Array<{ file_name: string; thumb_name: string }> = await trx('observation_photos').where({ observation_id: row.id }).select('file_name', 'thumb_name');
     await trx('observations').where({ id: row.id }).delete();
+    if (row.is_soil_borne) await recheckSite(trx, access.plot.siteId, [access.plot.id]);
     return photos.flatMap((p) => [p.file_name, p.thumb_name]);
   });
   // After the commit: a crash here leaves an unreferenced file, never a row pointing at nothing.

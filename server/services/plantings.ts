@@ -6,6 +6,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { withClubOverrides } from './crops';
 import { assertPartInside, plotBookAccess } from './plot-book';
+import { clashKeys, recheckSite } from './findings';
 
 export type { SiteClimate };
 
@@ -151,6 +152,23 @@ const partColumns = (part: PlantingBody['part']) => ({
   part_length_m: part?.length ?? null,
 });
 
+/**
+ * A planting may be kept despite a clash only with a reason: a change that brings a clash the planting
+ * did not have before, with no reason kept, is refused (409 on `keepReason`) and rolls back.
+ */
+async function assertReasonForNewClash(trx: Knex.Transaction, opts: { plantingId: number; before: Set<string>; reason: string | null | undefined }) {
+  if (opts.reason) return;
+  const rows: { key: string; title: string; message: string }[] = await trx('findings')
+    .where({ planting_id: opts.plantingId, severity: 'clash' })
+    .orderBy('key')
+    .select('key', 'title', 'message');
+  const fresh = rows.filter((r) => !opts.before.has(r.key));
+  if (fresh.length === 0) return;
+  throw new AppError('conflict', `This planting clashes: ${fresh[0].message} Say why you keep it, or change the crop or place.`, {
+    keepReason: 'Say why you keep this planting despite the clash',
+  });
+}
+
 /** Adds a planting to a plot's book in this season (the holder this season or a coordinator). */
 export async function createPlanting(db: Knex, opts: { plotId: number; userId: number; body: PlantingBody; now?: Date }): Promise<Planting> {
   const id = await db.transaction(async (trx) => {
@@ -173,9 +191,12 @@ export async function createPlanting(db: Knex, opts: { plotId: number; userId: n
         quantity: b.quantity,
         status: b.status,
         notes: b.notes,
+        keep_reason: b.keepReason || null,
         created_by_user_id: opts.userId,
       })
       .returning('id');
+    await recheckSite(trx, access.plot.siteId, [access.plot.id]);
+    await assertReasonForNewClash(trx, { plantingId: row.id, before: new Set(), reason: b.keepReason });
     return row.id as number;
   });
   return plantingById(db, { plantingId: id, userId: opts.userId, now: opts.now });
@@ -223,7 +244,12 @@ export async function updatePlanting(db: Knex, opts: { plantingId: number; userI
     if (b.quantity !== undefined) changes.quantity = b.quantity;
     if (b.status !== undefined) changes.status = b.status;
     if (b.notes !== undefined) changes.notes = b.notes;
+    if (b.keepReason !== undefined) changes.keep_reason = b.keepReason || null;
+    const before = await clashKeys(trx, row.id);
     await trx('plantings').where({ id: row.id }).update({ ...changes, version: row.version + 1, updated_at: trx.fn.now() });
+    await recheckSite(trx, access.plot.siteId, [access.plot.id]);
+    const kept = await trx('plantings').where({ id: row.id }).first('keep_reason');
+    await assertReasonForNewClash(trx, { plantingId: row.id, before, reason: kept?.keep_reason ?? null });
   });
   return plantingById(db, { plantingId: opts.plantingId, userId: opts.userId, now: opts.now });
 }
@@ -231,7 +257,8 @@ export async function updatePlanting(db: Knex, opts: { plantingId: number; userI
 /** Deletes a planting with its harvests; observations that named it keep their place on the plot. */
 export async function deletePlanting(db: Knex, opts: { plantingId: number; userId: number; now?: Date }): Promise<void> {
   await db.transaction(async (trx) => {
-    const { row } = await lockPlantingForWrite(trx, opts);
+    const { row, access } = await lockPlantingForWrite(trx, opts);
     await trx('plantings').where({ id: row.id }).delete();
+    await recheckSite(trx, access.plot.siteId, [access.plot.id]);
   });
 }

@@ -3,6 +3,7 @@ import { harvestTotals } from '@shared/plot-book';
 import type { PlotBook } from '@shared/schemas/plot-book';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
+import { listFindings } from './findings';
 import { clubTimeZone } from './clubs';
 import { listHarvestRows, toHarvest } from './harvests';
 import { rolesInClub } from './memberships';
@@ -149,7 +150,8 @@ export async function getPlotBook(db: Db, opts: { plotId: number; userId: number
     harvests: harvestRows.map(toHarvest),
     pastSeasons: pastYears.map((year) => ({ year, plantings: earlier.filter((p) => p.seasonYear === year) })),
     observations: await listObservations(db, plot.id),
-    findings: [],
+    // The neighbour check's stored findings for the season shown (names the neighbouring plot and crop, never a person).
+    findings: season ? (await listFindings(db, { clubId: plot.clubId, seasonId: season.id, plotId: plot.id })).map(({ siteId: _s, siteName: _n, ...f }) => f) : [],
     harvestTotals: { byPlanting, plot: plotTotals },
   };
 }

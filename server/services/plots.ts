@@ -5,6 +5,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { plotColumns, plotRect, STORED_LENGTH_EPS, toPlot, type PlotRow } from '../db/mappers';
 import { lapseOverdue } from './offers';
+import { neighbourPlotIds, recheckSite, siteOfPlot } from './findings';
 import { listPlotEvents, recordPlotEvent } from './plot-events';
 import { seasonPlotStates } from './season-plots';
 import { physicalPlotEvents, seesPeople, type Viewer } from './visibility';
@@ -69,6 +70,7 @@ export async function createPlot(db: Knex, opts: { siteId: number; userId: numbe
       .insert({ site_id: opts.siteId, ...plotColumns(opts.body) })
       .returning('*');
     await recordPlotEvent(trx, { plotId: row.id, userId: opts.userId, kind: 'created', details: { label: row.label } });
+    await recheckSite(trx, opts.siteId, [row.id]);
     return toPlot(row);
   });
 }
@@ -96,6 +98,9 @@ export async function updatePlot(db: Knex, opts: { plotId: number; userId: numbe
     if ([...GEOMETRY, ...SIZE].some((k) => changes[k] !== undefined)) {
       await assertPlacement(trx, site, next, opts.plotId);
     }
+    // A plot that moves or changes size leaves its old neighbours: note them before the change.
+    const moves = [...GEOMETRY, ...SIZE].some((k) => changes[k] !== undefined);
+    const oldNeighbours = moves ? await neighbourPlotIds(trx, before.site_id, opts.plotId) : [opts.plotId];
     const diff: Record<string, { from: unknown; to: unknown }> = {};
     for (const [k, v] of Object.entries(changes)) {
       const old = (current as Record<string, unknown>)[k];
@@ -112,6 +117,8 @@ export async function updatePlot(db: Knex, opts: { plotId: number; userId: numbe
           ? 'moved'
           : 'edited';
       await recordPlotEvent(trx, { plotId: row.id, userId: opts.userId, kind, details: { changes: diff } });
+      // Place, size, kind and soil all feed the neighbour check.
+      await recheckSite(trx, row.site_id, [opts.plotId, ...oldNeighbours]);
     }
     return toPlot(row);
   });
@@ -155,7 +162,12 @@ export async function deletePlot(db: Knex, opts: { plotId: number; userId: numbe
     }
     const inUse = await plotInUse(trx, opts.plotId, row.label, now);
     if (inUse) throw new AppError('conflict', inUse);
+    const siteId = await siteOfPlot(trx, opts.plotId);
+    const oldNeighbours = await neighbourPlotIds(trx, siteId, opts.plotId);
     await trx('plots').where({ id: opts.plotId }).update({ deleted_at: trx.fn.now(), version: row.version + 1 });
+    // Its findings go with it; its old neighbours lose whatever it caused them.
+    await trx('findings').where({ plot_id: opts.plotId }).delete();
+    await recheckSite(trx, siteId, oldNeighbours);
     await recordPlotEvent(trx, { plotId: opts.plotId, userId: opts.userId, kind: 'deleted', details: { label: row.label } });
   });
 }

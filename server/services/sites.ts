@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { recheckSite } from './findings';
 import type { Site, SiteCreateBody, SiteUpdateBody } from '@shared/schemas/sites';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
@@ -74,6 +75,9 @@ export async function updateSite(db: Knex, siteId: number, body: SiteUpdateBody)
     await trx('sites')
       .where({ id: siteId })
       .update({ ...siteColumns(changes), version: version + 1, updated_at: trx.fn.now() });
+    // Latitude, paths, frost dates and soil temperatures all feed the neighbour check.
+    const checked = ['latitude', 'pathWidth', 'lastSpringFrost', 'firstAutumnFrost', 'soilTempsC'] as const;
+    if (checked.some((k) => changes[k] !== undefined)) await recheckSite(trx, siteId);
     return getSite(trx, siteId);
   });
 }

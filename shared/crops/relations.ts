@@ -98,6 +98,12 @@ export const cropRelations: CropRelation[] = [
   folk('parsnip', 'radish', 'beneficial', 'Quick radishes mark the slow parsnip row and are pulled before the parsnips need the room.'),
   folk('lettuce', 'radish', 'beneficial', 'Both are quick and shallow; radishes fill gaps between young lettuces and are gone before the lettuces spread.'),
   folk('spinach', 'radish', 'beneficial', 'Radish sown with spinach is said to draw leaf miners away from it.'),
+  folk('pea', 'radish', 'beneficial', 'Radishes sown along a pea row come up fast, mark the row and are pulled before the peas need the room.'),
+  folk('bush-bean', 'radish', 'beneficial', 'Radishes between young beans use the space early and are gone before the beans close over.'),
+  folk('winter-squash', 'radish', 'beneficial', 'Radishes sown round squash are said to draw flea beetles and cucumber beetles away; they are pulled before the vines spread.'),
+  folk('zucchini', 'radish', 'beneficial', 'Radishes sown round squash plants are said to draw beetles away and are pulled before the leaves spread.'),
+  // "Beside" read as the next row or the plot across a narrow path: 1 m is our own reading (common practice gives no distance).
+  folk('potato', 'radish', 'antagonistic', 'Folk practice keeps radishes away from potatoes, saying each checks the other; there is little trial evidence.', near(1)),
   folk('lettuce', 'carrot', 'beneficial', 'Shallow lettuce and deep carrot use different soil layers, so they share a bed well.'),
   folk('lettuce', 'chives', 'beneficial', 'Chives are said to keep aphids off lettuce.'),
   folk('sweet-corn', 'bush-bean', 'beneficial', 'Part of the corn, beans and squash mix: beans fix nitrogen and corn gives shelter.'),

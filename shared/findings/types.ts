@@ -146,4 +146,6 @@ export interface CheckContext {
   relations: CheckRelation[];
   rotationGapYears: number;
   diseaseRules: DiseaseRotationRule[];
+  /** Tolerance in metres for the neighbour geometry (stored lengths are rounded to the millimetre). */
+  eps?: number;
 }

@@ -49,6 +49,11 @@ const siteFields = {
   lastSpringFrost: MonthDaySchema.nullable(),
   firstAutumnFrost: MonthDaySchema.nullable(),
   soilNotes: textSchema({ max: 4000, multiline: true }),
+  /** Typical soil temperature at sowing depth for each month, °C, January first; null until the club knows them. */
+  soilTempsC: z
+    .array(z.number('A temperature in °C').finite().min(-30, 'At least −30 °C').max(50, 'At most 50 °C'), 'Twelve monthly temperatures')
+    .length(12, 'Give all twelve months, or none')
+    .nullable(),
 };
 
 /** Fields a coordinator sets on a new site; lengths are metres (the client converts US units). */
@@ -61,6 +66,7 @@ export const SiteCreateBodySchema = z.strictObject({
   lastSpringFrost: siteFields.lastSpringFrost.default(null),
   firstAutumnFrost: siteFields.firstAutumnFrost.default(null),
   soilNotes: siteFields.soilNotes.default(''),
+  soilTempsC: siteFields.soilTempsC.default(null),
 });
 export type SiteCreateBody = z.infer<typeof SiteCreateBodySchema>;
 
@@ -99,6 +105,7 @@ export const SiteSchema = z.object({
   lastSpringFrost: z.string().nullable(),
   firstAutumnFrost: z.string().nullable(),
   soilNotes: z.string(),
+  soilTempsC: z.array(z.number()).nullable(),
   background: z
     .object({
       url: z.string(),

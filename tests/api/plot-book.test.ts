@@ -32,7 +32,7 @@ const YEAR = Number(localToday('UTC').slice(0, 4));
 
 /**
  * A club in this season: Hana holds A-1 and Ines holds A-2 (3 m × 6 m each), a coordinator and a
- * volunteer hold nothing, an outsider belongs to another club. Last year Hana's plot grew cabbage.
+ * volunteer hold nothing, an outsider belongs to another club. Last year Hana's plot grew onions (another family than the radish and tomato the tests plant).
  */
 async function club() {
   const c = await buildClub(t.db, { name: 'Willow Lane Growers' });
@@ -61,13 +61,13 @@ async function club() {
   ]);
   const radish = await buildCrop(t.db, 'radish');
   const tomato = await buildCrop(t.db, 'tomato');
-  const cabbage = await buildCrop(t.db, 'cabbage');
+  const onion = await buildCrop(t.db, 'onion');
   const [past] = await t.db('plantings')
-    .insert({ plot_id: plots[0].id, season_id: last.id, crop_id: cabbage.id, method: 'transplanted', planted_on: `${YEAR - 1}-05-01` })
+    .insert({ plot_id: plots[0].id, season_id: last.id, crop_id: onion.id, method: 'transplanted', planted_on: `${YEAR - 1}-05-01` })
     .returning('id');
   return {
     club: c, siteId: site.id as number, plotA: plots[0].id, plotB: plots[1].id, seasonId: season.id as number, lastSeasonId: last.id as number,
-    pastPlantingId: past.id as number, coordinator, hana, ines, volunteer, outsider, radish, tomato, cabbage,
+    pastPlantingId: past.id as number, coordinator, hana, ines, volunteer, outsider, radish, tomato, onion,
   };
 }
 

@@ -1,0 +1,353 @@
+import type { Knex } from 'knex';
+import { diseaseRotationRules } from '@shared/crops/rotation';
+import type { Crop } from '@shared/crops/types';
+import {
+  affectedPlots,
+  checkDraft,
+  checkPlots,
+  prepare,
+  whatFits,
+  type CheckContext,
+  type CheckPlanting,
+  type Finding,
+  type PartRect,
+} from '@shared/findings';
+import type { FindingView } from '@shared/schemas/findings';
+import type { Db } from '../db/knex';
+import { STORED_LENGTH_EPS } from '../db/mappers';
+import { notFound } from '../errors';
+import { withClubOverrides } from './crops';
+
+// The neighbour check on the server: loads what the engine needs for one site in a fixed number of
+// queries (whatever the site's size), stores each planting's findings, and after a change re-checks
+// only the plots it can affect, in the caller's transaction.
+
+interface SiteRow {
+  id: number;
+  club_id: number;
+  latitude: number;
+  path_width_m: number;
+  last_spring_frost: string | null;
+  first_autumn_frost: string | null;
+  soil_temps_c: unknown;
+  rotation_gap_years: number;
+}
+
+const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+
+function partOf(r: { part_x_m: unknown; part_y_m: unknown; part_width_m: unknown; part_length_m: unknown }): PartRect | null {
+  if (r.part_x_m === null || r.part_y_m === null || r.part_width_m === null || r.part_length_m === null) return null;
+  return { x: Number(r.part_x_m), y: Number(r.part_y_m), width: Number(r.part_width_m), length: Number(r.part_length_m) };
+}
+
+/** What the check needs for a site and its club: seven queries, whatever the number of plots. */
+export async function loadCheckContext(db: Db, siteId: number): Promise<CheckContext & { clubId: number; seasonIds: Map<number, number> }> {
+  const site: SiteRow | undefined = await db('sites as s')
+    .join('clubs as c', 'c.id', 's.club_id')
+    .where('s.id', siteId)
+    .first('s.id', 's.club_id', 's.latitude', 's.path_width_m', 's.last_spring_frost', 's.first_autumn_frost', 's.soil_temps_c', 'c.rotation_gap_years');
+  if (!site) throw notFound('The site');
+  const [plots, plantings, observations, cropRows, relations, seasons] = await Promise.all([
+    db('plots').where({ site_id: siteId }).whereNull('deleted_at').orderBy('id')
+      .select('id', 'label', 'x_m', 'y_m', 'width_m', 'length_m', 'rotation', 'kind', 'soil_depth_m', 'soil_ph'),
+    db('plantings as pl').join('plots as p', 'p.id', 'pl.plot_id').join('seasons as se', 'se.id', 'pl.season_id')
+      .where('p.site_id', siteId).whereNull('p.deleted_at').orderBy('pl.id')
+      .select('pl.id', 'pl.plot_id', 'se.year', 'pl.crop_id', 'pl.part_x_m', 'pl.part_y_m', 'pl.part_width_m', 'pl.part_length_m', 'pl.method', 'pl.planted_on', 'pl.status'),
+    db('observations as o').join('plots as p', 'p.id', 'o.plot_id')
+      .where({ 'p.site_id': siteId, 'o.is_soil_borne': true }).whereNull('p.deleted_at').orderBy('o.id')
+      .select('o.id', 'o.plot_id', 'o.planting_id', 'o.pest_slug', 'o.name', 'o.is_soil_borne', 'o.part_x_m', 'o.part_y_m', 'o.part_width_m', 'o.part_length_m', 'o.observed_on'),
+    db('crops').where((q) => q.whereNull('club_id').orWhere({ club_id: site.club_id })).orderBy('id').select('id', 'data'),
+    db('crop_relations').where((q) => q.whereNull('club_id').orWhere({ club_id: site.club_id }))
+      // The club's own relation for a pair comes last, so it replaces the reference one.
+      .orderByRaw('(club_id is not null), id')
+      .select('crop_a_id', 'crop_b_id', 'effect', 'distance_m', 'severity', 'reason', 'evidence', 'source'),
+    db('seasons').where({ club_id: site.club_id }).select('id', 'year'),
+  ]);
+  const effective = await withClubOverrides(db, site.club_id, cropRows as { id: number; data: Record<string, unknown> }[]);
+  return {
+    clubId: site.club_id,
+    seasonIds: new Map(seasons.map((s: { id: number; year: number }) => [s.year, s.id])),
+    site: {
+      id: site.id,
+      latitude: Number(site.latitude),
+      pathWidthM: Number(site.path_width_m),
+      lastSpringFrost: site.last_spring_frost,
+      firstAutumnFrost: site.first_autumn_frost,
+      soilTempsC: Array.isArray(site.soil_temps_c) && site.soil_temps_c.length === 12 ? (site.soil_temps_c as number[]) : null,
+    },
+    plots: plots.map((p: Record<string, unknown>) => ({
+      id: p.id as number,
+      label: p.label as string,
+      x: Number(p.x_m),
+      y: Number(p.y_m),
+      width: Number(p.width_m),
+      length: Number(p.length_m),
+      rotation: Number(p.rotation) === 90 ? 90 : 0,
+      kind: p.kind as CheckContext['plots'][number]['kind'],
+      soilDepthM: num(p.soil_depth_m),
+      soilPh: num(p.soil_ph),
+    })),
+    plantings: plantings.map((r: Record<string, unknown>) => ({
+      id: r.id as number,
+      plotId: r.plot_id as number,
+      seasonYear: r.year as number,
+      cropId: r.crop_id as number,
+      part: partOf(r as never),
+      method: r.method as CheckPlanting['method'],
+      plantedOn: r.planted_on as string,
+      status: r.status as CheckPlanting['status'],
+    })),
+    observations: observations.map((o: Record<string, unknown>) => ({
+      id: o.id as number,
+      plotId: o.plot_id as number,
+      plantingId: (o.planting_id as number | null) ?? null,
+      pestSlug: (o.pest_slug as string | null) ?? null,
+      name: o.name as string,
+      isSoilBorne: Boolean(o.is_soil_borne),
+      part: partOf(o as never),
+      observedOn: o.observed_on as string,
+    })),
+    crops: new Map(cropRows.map((c: { id: number }) => [c.id, { id: c.id, data: effective.get(c.id) as unknown as Crop }])),
+    relations: relations.map((r: Record<string, unknown>) => ({
+      cropA: r.crop_a_id as number,
+      cropB: r.crop_b_id as number,
+      effect: r.effect as 'beneficial' | 'antagonistic',
+      distanceM: num(r.distance_m),
+      severity: (r.severity as 'clash' | 'watch' | null) ?? null,
+      reason: r.reason as string,
+      evidence: r.evidence as 'research' | 'common_practice',
+      source: r.source as string,
+    })),
+    rotationGapYears: site.rotation_gap_years,
+    diseaseRules: diseaseRotationRules,
+    eps: STORED_LENGTH_EPS,
+  };
+}
+
+/** First key of the per-site advisory lock taken while its findings are re-checked. */
+const FINDINGS_LOCK = 71_840;
+
+interface StoredFinding {
+  planting_id: number;
+  key: string;
+  severity: string;
+  kind: string;
+  rule: string;
+  title: string;
+  message: string;
+  peers: unknown;
+  source: unknown;
+  numbers: unknown;
+}
+
+const FINDING_COLUMNS = ['planting_id', 'key', 'severity', 'kind', 'rule', 'title', 'message', 'peers', 'source', 'numbers'] as const;
+
+/** The stored form of a finding, compared column by column (jsonb comes back with its keys reordered). */
+function sameFinding(a: StoredFinding, b: StoredFinding): boolean {
+  return FINDING_COLUMNS.every((c) => (typeof a[c] === 'object' ? canonical(a[c]) === canonical(b[c]) : a[c] === b[c]));
+}
+
+function canonical(v: unknown): string {
+  if (Array.isArray(v)) return `[${v.map(canonical).join(',')}]`;
+  if (v && typeof v === 'object') {
+    return `{${Object.keys(v as object).sort().map((k) => `${JSON.stringify(k)}:${canonical((v as Record<string, unknown>)[k])}`).join(',')}}`;
+  }
+  return JSON.stringify(v);
+}
+
+function toStored(f: Finding): StoredFinding {
+  return {
+    planting_id: f.plantingId,
+    key: f.key,
+    severity: f.severity,
+    kind: f.kind,
+    rule: f.rule,
+    title: f.title,
+    message: f.message,
+    peers: f.peers,
+    source: f.source,
+    numbers: f.numbers,
+  };
+}
+
+export interface RecheckResult {
+  plots: number;
+  inserted: number;
+  updated: number;
+  deleted: number;
+}
+
+/**
+ * Re-checks the plantings of `plotIds` and their neighbouring plots (all of the site when omitted) and
+ * brings the stored findings in line, writing only what changed. Call it inside the change's
+ * transaction; for a moved plot pass its old neighbours too (`neighbourPlotIds` before the move).
+ */
+export async function recheckSite(trx: Knex.Transaction | Knex, siteId: number, plotIds?: Iterable<number>): Promise<RecheckResult> {
+  // One re-check of a site at a time: a second change waits, then reads what the first committed.
+  await trx.raw('select pg_advisory_xact_lock(?, ?)', [FINDINGS_LOCK, siteId]);
+  const ctx = await loadCheckContext(trx, siteId);
+  const plots = plotIds ? affectedPlots(ctx, plotIds) : new Set(ctx.plots.map((p) => p.id));
+  const fresh = checkPlots(ctx, plots);
+  const stored: StoredFinding[] = plots.size
+    ? await trx('findings').where({ site_id: siteId }).whereIn('plot_id', [...plots]).select(...FINDING_COLUMNS)
+    : [];
+  // Findings left on plots that are gone or no longer on this site are dropped with them.
+  const storedByKey = new Map(stored.map((s) => [`${s.planting_id}|${s.key}`, s]));
+  const keep = new Set<string>();
+  const upserts: Array<Record<string, unknown>> = [];
+  const plantingOf = new Map(ctx.plantings.map((p) => [p.id, p]));
+  for (const f of fresh) {
+    const row = toStored(f);
+    const k = `${row.planting_id}|${row.key}`;
+    keep.add(k);
+    const old = storedByKey.get(k);
+    if (old && sameFinding(old, row)) continue;
+    const planting = plantingOf.get(f.plantingId)!;
+    upserts.push({
+      ...row,
+      peers: JSON.stringify(row.peers),
+      source: JSON.stringify(row.source),
+      numbers: JSON.stringify(row.numbers),
+      club_id: ctx.clubId,
+      site_id: siteId,
+      plot_id: f.plotId,
+      season_id: ctx.seasonIds.get(planting.seasonYear),
+    });
+  }
+  const gone = stored.filter((s) => !keep.has(`${s.planting_id}|${s.key}`));
+  if (gone.length) {
+    await trx('findings')
+      .whereIn(['planting_id', 'key'], gone.map((g) => [g.planting_id, g.key]))
+      .delete();
+  }
+  if (upserts.length) {
+    await trx('findings').insert(upserts).onConflict(['planting_id', 'key']).merge();
+  }
+  const inserted = upserts.filter((u) => !storedByKey.has(`${u.planting_id}|${u.key}`)).length;
+  return { plots: plots.size, inserted, updated: upserts.length - inserted, deleted: gone.length };
+}
+
+/** Re-checks every live site of a club (after a club setting or the club's crop notes change). */
+export async function recheckClub(trx: Knex.Transaction | Knex, clubId: number): Promise<void> {
+  const sites: { id: number }[] = await trx('sites').where({ club_id: clubId }).whereNull('archived_at').orderBy('id').select('id');
+  for (const s of sites) await recheckSite(trx, s.id);
+}
+
+/** Re-checks every live site of every club, site by site in its own transaction (at start, after the reference crops change). */
+export async function recheckEverything(db: Knex): Promise<number> {
+  const sites: { id: number }[] = await db('sites').whereNull('archived_at').orderBy('id').select('id');
+  for (const s of sites) await db.transaction((trx) => recheckSite(trx, s.id));
+  return sites.length;
+}
+
+/** A plot's neighbours as they stand now (for a plot about to move, so its old neighbours are re-checked too). */
+export async function neighbourPlotIds(db: Db, siteId: number, plotId: number): Promise<number[]> {
+  const ctx = await loadCheckContext(db, siteId);
+  return [...affectedPlots(ctx, [plotId])];
+}
+
+/** Clash findings stored for a planting, by key. */
+export async function clashKeys(db: Db, plantingId: number): Promise<Set<string>> {
+  const rows: { key: string }[] = await db('findings').where({ planting_id: plantingId, severity: 'clash' }).select('key');
+  return new Set(rows.map((r) => r.key));
+}
+
+/**
+ * At start, after the reference crops are loaded: re-check everything when the reference data changed
+ * (every finding may cite it) or when plantings exist without any stored finding (a database from before
+ * the check). Otherwise the stored findings are current and nothing is written.
+ */
+export async function bringFindingsUpToDate(db: Knex, reference: { cropsInserted: number; cropsUpdated: number; relationsInserted: number; relationsUpdated: number; relationsDeleted: number }): Promise<number> {
+  const changed = Object.values(reference).some((n) => n > 0);
+  if (!changed) {
+    const planting = await db('plantings').first('id');
+    if (!planting || (await db('findings').first('id'))) return 0;
+  }
+  return recheckEverything(db);
+}
+
+/** The site of a live plot, or a 404. */
+export async function siteOfPlot(db: Db, plotId: number): Promise<number> {
+  const row = await db('plots').where({ id: plotId }).whereNull('deleted_at').first('site_id');
+  if (!row) throw notFound('The plot');
+  return row.site_id;
+}
+
+interface FindingRow extends StoredFinding {
+  plot_id: number;
+  site_id: number;
+  site_name: string;
+  plot_label: string;
+  crop_name: string;
+  season_year: number;
+  keep_reason: string | null;
+}
+
+function toView(r: FindingRow): FindingView & { siteId: number; siteName: string } {
+  return {
+    key: r.key,
+    severity: r.severity as FindingView['severity'],
+    kind: r.kind as FindingView['kind'],
+    rule: r.rule,
+    title: r.title,
+    message: r.message,
+    plantingId: r.planting_id,
+    plotId: r.plot_id,
+    plotLabel: r.plot_label,
+    cropName: r.crop_name,
+    seasonYear: r.season_year,
+    peers: r.peers as FindingView['peers'],
+    source: r.source as FindingView['source'],
+    numbers: r.numbers as FindingView['numbers'],
+    keptReason: r.severity === 'clash' ? r.keep_reason : null,
+    siteId: r.site_id,
+    siteName: r.site_name,
+  };
+}
+
+const severityRank = "case f.severity when 'clash' then 0 when 'watch' then 1 else 2 end";
+
+/** Stored findings, joined to what a reader needs, in one query: clashes first, then by site, plot and planting. */
+export async function listFindings(
+  db: Db,
+  where: { clubId: number; seasonId: number; siteId?: number; plotId?: number; severity?: string; kind?: string },
+): Promise<Array<FindingView & { siteId: number; siteName: string }>> {
+  const q = db('findings as f')
+    .join('plots as p', 'p.id', 'f.plot_id')
+    .join('sites as s', 's.id', 'f.site_id')
+    .join('plantings as pl', 'pl.id', 'f.planting_id')
+    .join('crops as c', 'c.id', 'pl.crop_id')
+    .join('seasons as se', 'se.id', 'f.season_id')
+    .where({ 'f.club_id': where.clubId, 'f.season_id': where.seasonId })
+    .whereNull('p.deleted_at')
+    .whereNull('s.archived_at')
+    .select('f.*', 's.name as site_name', 'p.label as plot_label', 'c.common_name as crop_name', 'se.year as season_year', 'pl.keep_reason')
+    .orderByRaw(`${severityRank}, s.name, lower(p.label), f.planting_id, f.key`);
+  if (where.siteId !== undefined) q.where('f.site_id', where.siteId);
+  if (where.plotId !== undefined) q.where('f.plot_id', where.plotId);
+  if (where.severity !== undefined) q.where('f.severity', where.severity);
+  if (where.kind !== undefined) q.where('f.kind', where.kind);
+  const rows: FindingRow[] = await q;
+  return rows.map(toView);
+}
+
+/** A draft planting's findings, by the same rules and data as the saved check. */
+export async function dryRun(db: Db, siteId: number, draft: CheckPlanting): Promise<Finding[]> {
+  const ctx = await loadCheckContext(db, siteId);
+  return checkDraft(prepare(ctx), draft);
+}
+
+/** Every crop of the club tried on a plot (or part) on a date, best first. */
+export async function fitsFor(db: Db, opts: { siteId: number; plotId: number; seasonYear: number; part: PartRect | null; date: string }) {
+  const ctx = await loadCheckContext(db, opts.siteId);
+  const ranked = whatFits(ctx, opts);
+  return ranked.map((item) => {
+    const crop = ctx.crops.get(item.cropId)!.data;
+    return {
+      crop: { id: item.cropId, slug: crop.slug, commonName: crop.commonName, family: crop.family.value },
+      verdict: item.verdict,
+      score: item.score,
+      findings: item.findings.map((f) => ({ ...f, keptReason: null })),
+    };
+  });
+}
