@@ -432,6 +432,84 @@ describe('cited rows against the data', () => {
   });
 });
 
+describe('least soil depth for raised beds and containers', () => {
+  // Whole centimetres: the catalogue rounds printed inches × 2.54 to the nearest cm (a plot's soil
+  // depth is measured to the centimetre).
+  const in2wholeCm = (inches: number) => Math.round(in2cm(inches));
+
+  it('is given for every crop, in cm, with the raised bed never below the container', () => {
+    for (const c of crops) {
+      const d = c.minSoilDepthCm;
+      expect(d, c.slug).toBeDefined();
+      expect(sourceIds.has(d!.source), c.slug).toBe(true);
+      expect(d!.value.container, c.slug).toBeGreaterThan(0);
+      expect(d!.value.raisedBed, c.slug).toBeGreaterThanOrEqual(d!.value.container);
+      // A unit slip (inches or metres) would land far outside 5–100 cm.
+      expect(d!.value.container, c.slug).toBeGreaterThanOrEqual(5);
+      expect(d!.value.raisedBed, c.slug).toBeLessThanOrEqual(100);
+    }
+  });
+
+  it('gives radish 20 cm (8 in) in a raised bed and 10 cm (4 in) in a container, as common practice', () => {
+    expect(crop('radish').minSoilDepthCm).toMatchObject({ value: { raisedBed: 20, container: 10 }, source: 'common-practice' });
+    expect(in2wholeCm(8)).toBe(20);
+    expect(in2wholeCm(4)).toBe(10);
+  });
+
+  it('says from memory in the note of every from-memory value', () => {
+    for (const c of crops) {
+      const d = c.minSoilDepthCm!;
+      if (d.source === 'from-memory') expect(d.note, c.slug).toMatch(/from memory/);
+    }
+  });
+
+  it('lists the University of Maryland Extension page as a published source with its address', () => {
+    const s = cropSources.find((x) => x.id === 'umd-container-size');
+    expect(s?.evidence).toBe('published');
+    expect(s?.url).toMatch(/^https:\/\/extension\.umd\.edu\//);
+  });
+
+  // [crop, UMD group as printed, lower end of the printed depth in inches]. The page prints
+  // "depth of 12-16 inches" (large), "8-12 inches" (medium) and "4-6 inches" (small).
+  const umd: [string, string, number][] = [
+    ['beet', 'Medium Vegetables', 8], ['chard', 'Medium Vegetables', 8], ['spinach', 'Small Vegetables', 4],
+    ['carrot', 'Medium Vegetables', 8], ['lettuce', 'Small Vegetables', 4], ['cabbage', 'Medium Vegetables', 8],
+    ['broccoli', 'Medium Vegetables', 8], ['kale', 'Medium Vegetables', 8], ['tomato', 'Large Vegetables', 12],
+    ['sweet-pepper', 'Large Vegetables', 12], ['eggplant', 'Large Vegetables', 12], ['cucumber', 'Large Vegetables', 12],
+    ['zucchini', 'Medium Vegetables', 8], ['winter-squash', 'Large Vegetables', 12], ['bush-bean', 'Medium Vegetables', 8],
+    ['pea', 'Small Vegetables', 4], ['garlic', 'Small Vegetables', 4], ['basil', 'Small Vegetables', 4],
+    ['parsley', 'Medium Vegetables', 8], ['coriander', 'Small Vegetables', 4],
+  ];
+  it.each(umd)('UMD container depth: %s, group %s, %s in, is the printed inches × 2.54 to the whole cm', (slug, group, inches) => {
+    const d = crop(slug).minSoilDepthCm!;
+    expect(d.value.container).toBe(in2wholeCm(inches));
+    expect(d.note).toContain('umd-container-size');
+    expect(d.note).toContain(group);
+    expect(d.note).toContain(`lower end ${inches} in kept`);
+    // The raised bed figure has no stored source, so the value as a whole is marked from memory.
+    expect(d.source).toBe('from-memory');
+    expect(d.note).toMatch(/raised bed from memory/);
+  });
+
+  it('cites the UMD page only for the crops in the table above, each note printing the group’s inches', () => {
+    const cited = crops.filter((c) => c.minSoilDepthCm?.note?.includes('umd-container-size')).map((c) => c.slug);
+    expect(cited.sort()).toEqual(umd.map(([slug]) => slug).sort());
+    for (const slug of cited) {
+      const note = crop(slug).minSoilDepthCm!.note!;
+      const printed = /depth of (\d+)-(\d+) inches/.exec(note);
+      expect(printed, slug).not.toBeNull();
+      expect(crop(slug).minSoilDepthCm!.value.container, slug).toBe(in2wholeCm(Number(printed![1])));
+    }
+  });
+
+  it('is a different thing from the FAO-56 rooting depth: the container figure stays below it', () => {
+    for (const c of crops) {
+      if (c.rootingDepthCm.source !== 'fao56-table22') continue;
+      expect(c.minSoilDepthCm!.value.container, c.slug).toBeLessThan(c.rootingDepthCm.value.min);
+    }
+  });
+});
+
 describe('radish facts (common practice)', () => {
   const radish = crop('radish');
   it('emerges in 5–10 days, wants pH 6.0–7.0, sits 0.6–1.3 cm deep, sown 1 in apart and thinned to about 2 in', () => {

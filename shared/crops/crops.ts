@@ -157,6 +157,35 @@ const store = (tLo: number, tHi: number, hLo: number, hHi: number, dLo: number, 
 const feed = (from: number, to: number): SideDressing => ({ needed: true, weeksAfterEmergence: r(from, to) });
 const NO_SIDE_DRESSING: SideDressing = { needed: false };
 
+// Least soil depth for raised beds and containers. The University of Maryland Extension page prints a
+// container depth for three groups of crops; each group's lower end is kept, in whole centimetres
+// (a plot's soil depth is measured to the centimetre, so rounding moves a value by at most 0.5 cm).
+// No raised bed figures were found in a stored source, so every raised bed value is from memory, and
+// a Sourced value has one source: a crop whose container depth comes from the page is still marked
+// from memory as a whole, with the page, group and printed inches in the note.
+type UmdGroup = 'large' | 'medium' | 'small';
+const UMD_GROUPS: Record<UmdGroup, { printed: string; lowIn: number }> = {
+  large: { printed: "'For Large Vegetables', depth of 12-16 inches", lowIn: 12 },
+  medium: { printed: "'Medium Vegetables or Flowering Plants', depth of 8-12 inches", lowIn: 8 },
+  small: { printed: "'Small Vegetables or Flowering Plant', depth of 4-6 inches", lowIn: 4 },
+};
+/** Inches as whole centimetres. */
+export const inchesToWholeCm = (inches: number) => Math.round(inches * CM_PER_INCH);
+
+/** Container depth from the UMD group that names the crop; raised bed depth from memory. */
+function umdDepth(raisedBed: number, group: UmdGroup, named: string, extra?: string): Sourced<{ raisedBed: number; container: number }> {
+  const g = UMD_GROUPS[group];
+  return mem(
+    { raisedBed, container: inchesToWholeCm(g.lowIn) },
+    `raised bed from memory; container: umd-container-size, ${g.printed}, names ${named}; lower end ${g.lowIn} in kept` +
+      (extra ? `; ${extra}` : ''),
+  );
+}
+/** Both depths from memory. */
+const memDepth = (raisedBed: number, container: number, extra?: string) =>
+  mem({ raisedBed, container }, 'from memory' + (extra ? `; ${extra}` : ''));
+
+
 // The caution is added where the words appear rather than typed by hand, so a new text
 // cannot forget it.
 function withCaution(text: string): string {
@@ -208,6 +237,7 @@ export const crops: Crop[] = [
       r(10, 20),
       'soil depth needed: at least 10 cm (4 in) in a container, at least 20 cm (8 in) in a raised bed',
     ),
+    minSoilDepthCm: cp({ raisedBed: 20, container: 10 }, 'about 8 in in a raised bed, 4 in in a container; the UMD small-vegetable group, which names radish, prints a container depth of 4-6 inches'),
     matureHeightCm: faoHeight(0.3, 'radish'),
     sun: mem('full_sun'),
     frost: purdueFrost('frost tolerant', 'Radish'),
@@ -245,6 +275,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(40, 60, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: faoRoot(0.5, 1.0, 'turnip rutabaga'),
+    minSoilDepthCm: memDepth(30, 20),
     matureHeightCm: faoHeight(0.6, 'turnip rutabaga'),
     sun: mem('full_sun'),
     frost: purdueFrost('very hardy', 'Turnip'),
@@ -281,6 +312,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(60, 70, 'sowing', 'beet'),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: faoRoot(0.6, 1.0, 'beets table'),
+    minSoilDepthCm: umdDepth(30, 'medium', 'beets'),
     matureHeightCm: faoHeight(0.4, 'table beet'),
     sun: mem('full_sun'),
     frost: purdueFrost('frost tolerant', 'Beet'),
@@ -315,6 +347,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(50, 60, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: mem(r(30, 45)),
+    minSoilDepthCm: umdDepth(30, 'medium', 'chard', 'small group too (4-6 in)'),
     matureHeightCm: mem(r(45, 60)),
     sun: mem('full_sun'),
     frost: purdueFrost('frost tolerant', 'Chard'),
@@ -347,6 +380,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(40, 50, 'sowing', 'spinach'),
     soilPh: mem(r(6.5, 7.5)),
     rootingDepthCm: faoRoot(0.3, 0.5, 'spinach'),
+    minSoilDepthCm: umdDepth(20, 'small', 'spinach'),
     matureHeightCm: faoHeight(0.3, 'spinach'),
     sun: mem('full_sun'),
     frost: purdueFrost('very hardy', 'Spinach'),
@@ -380,6 +414,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(70, 80, 'sowing', 'carrot'),
     soilPh: mem(r(6.0, 6.8)),
     rootingDepthCm: faoRoot(0.5, 1.0, 'carrots'),
+    minSoilDepthCm: umdDepth(30, 'medium', 'carrots', 'long carrots want more'),
     matureHeightCm: faoHeight(0.3, 'carrots'),
     sun: mem('full_sun'),
     frost: purdueFrost('frost tolerant', 'Carrot'),
@@ -414,6 +449,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(100, 130, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.5, 1.0, 'parsnip'),
+    minSoilDepthCm: memDepth(45, 30),
     matureHeightCm: faoHeight(0.4, 'parsnip'),
     sun: mem('full_sun'),
     frost: purdueFrost('frost tolerant', 'Parsnip'),
@@ -450,6 +486,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(60, 80, 'transplanting', 'lettuce'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.3, 0.5, 'lettuce'),
+    minSoilDepthCm: umdDepth(15, 'small', 'salad greens'),
     matureHeightCm: faoHeight(0.3, 'lettuce'),
     sun: mem('part_shade'),
     frost: purdueFrost('very hardy', 'Lettuce'),
@@ -485,6 +522,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(70, 100, 'transplanting', 'cabbage'),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: faoRoot(0.5, 0.8, 'cabbage'),
+    minSoilDepthCm: umdDepth(30, 'medium', 'cole crops, cabbage'),
     matureHeightCm: faoHeight(0.4, 'cabbage'),
     sun: mem('full_sun'),
     frost: purdueFrost('frost tolerant', 'Cabbage'),
@@ -518,6 +556,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(50, 80, 'transplanting', 'broccoli'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.4, 0.6, 'broccoli'),
+    minSoilDepthCm: umdDepth(30, 'medium', 'cole crops'),
     matureHeightCm: faoHeight(0.3, 'broccoli'),
     sun: mem('full_sun'),
     frost: purdueFrost('frost tolerant', 'Broccoli'),
@@ -551,6 +590,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(50, 65, 'transplanting')),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: mem(r(30, 45)),
+    minSoilDepthCm: umdDepth(30, 'medium', 'cole crops'),
     matureHeightCm: mem(r(30, 90)),
     sun: mem('full_sun'),
     frost: purdueFrost('very hardy', 'Kale'),
@@ -582,6 +622,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(90, 120, 'sowing', 'potato'),
     soilPh: mem(r(5.0, 6.5), 'slightly acid soil keeps common scab down'),
     rootingDepthCm: faoRoot(0.4, 0.6, 'potato'),
+    minSoilDepthCm: memDepth(45, 30, 'the UMD page gives potatoes 30 gallons of potting mix, no depth'),
     matureHeightCm: faoHeight(0.6, 'potato'),
     sun: mem('full_sun'),
     frost: mem(
@@ -619,6 +660,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(70, 90, 'transplanting', 'tomato'),
     soilPh: mem(r(6.0, 6.8)),
     rootingDepthCm: faoRoot(0.7, 1.5, 'tomato'),
+    minSoilDepthCm: umdDepth(45, 'large', 'tomatoes', 'medium group: dwarf tomato (8-12 in)'),
     matureHeightCm: faoHeight(0.6, 'tomato'),
     sun: mem('full_sun'),
     frost: purdueFrost('tender', 'Tomato'),
@@ -653,6 +695,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(70, 80, 'transplanting', 'pepper'),
     soilPh: mem(r(6.0, 6.8)),
     rootingDepthCm: faoRoot(0.5, 1.0, 'sweet peppers bell'),
+    minSoilDepthCm: umdDepth(30, 'large', 'pepper', 'medium group: dwarf pepper (8-12 in)'),
     matureHeightCm: faoHeight(0.7, 'sweet peppers (bell)'),
     sun: mem('full_sun'),
     frost: purdueFrost('warm loving', 'Pepper'),
@@ -686,6 +729,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(60, 80, 'transplanting')),
     soilPh: mem(r(6.0, 6.8)),
     rootingDepthCm: faoRoot(0.7, 1.2, 'eggplant'),
+    minSoilDepthCm: umdDepth(30, 'large', 'eggplant', 'medium group: dwarf eggplant (8-12 in)'),
     matureHeightCm: faoHeight(0.8, 'eggplant'),
     sun: mem('full_sun'),
     frost: purdueFrost('warm loving', 'Eggplant'),
@@ -718,6 +762,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(50, 70, 'sowing', 'cucumber'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.7, 1.2, 'cucumber fresh market'),
+    minSoilDepthCm: umdDepth(30, 'large', 'cucumber'),
     matureHeightCm: faoHeight(0.3, 'cucumber (fresh market)'),
     sun: mem('full_sun'),
     frost: purdueFrost('warm loving', 'Cucumber'),
@@ -751,6 +796,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(45, 60, 'sowing', 'summer squash'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.6, 1.0, 'squash zucchini'),
+    minSoilDepthCm: umdDepth(30, 'medium', 'summer squash'),
     matureHeightCm: faoHeight(0.3, 'squash, zucchini'),
     sun: mem('full_sun'),
     frost: purdueFrost('warm loving', 'Squash, summer'),
@@ -784,6 +830,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(80, 110, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(1.0, 1.5, 'pumpkin winter squash'),
+    minSoilDepthCm: umdDepth(45, 'large', 'Winter squash'),
     matureHeightCm: faoHeight(0.4, 'squash, winter / pumpkin'),
     sun: mem('full_sun'),
     frost: purdueFrost('warm loving', 'Squash, winter'),
@@ -817,6 +864,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(50, 60, 'sowing', 'bean'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.5, 0.7, 'beans green'),
+    minSoilDepthCm: umdDepth(30, 'medium', 'beans', 'small group too (4-6 in)'),
     matureHeightCm: faoHeight(0.4, 'beans, green'),
     sun: mem('full_sun'),
     frost: purdueFrost('tender', 'Snap bean'),
@@ -852,6 +900,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(60, 75, 'sowing', 'pea'),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: faoRoot(0.6, 1.0, 'peas fresh'),
+    minSoilDepthCm: umdDepth(30, 'small', 'peas'),
     matureHeightCm: faoHeight(0.5, 'peas, fresh'),
     sun: mem('full_sun'),
     frost: purdueFrost('very hardy', 'Pea'),
@@ -886,6 +935,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(75, 100, 'sowing', 'sweet corn'),
     soilPh: mem(r(6.0, 6.8)),
     rootingDepthCm: faoRoot(0.8, 1.2, 'maize sweet corn'),
+    minSoilDepthCm: memDepth(30, 30),
     matureHeightCm: faoHeight(1.5, 'sweet maize'),
     sun: mem('full_sun'),
     frost: purdueFrost('tender', 'Sweet corn'),
@@ -920,6 +970,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(100, 150, 'transplanting', 'onion'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.3, 0.6, 'onions dry'),
+    minSoilDepthCm: memDepth(20, 15, 'the UMD small group names scallions, not bulb onions'),
     matureHeightCm: faoHeight(0.4, 'onions, dry'),
     sun: mem('full_sun'),
     frost: purdueFrost('very hardy', 'Onion (sets and seeds)', "'Onion (plants)' is in the 'frost tolerant' column"),
@@ -952,6 +1003,7 @@ export const crops: Crop[] = [
     daysToMaturity: britannica(180, 180, 'sowing', 'garlic'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: faoRoot(0.3, 0.5, 'garlic'),
+    minSoilDepthCm: umdDepth(20, 'small', 'garlic'),
     matureHeightCm: faoHeight(0.3, 'garlic'),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -984,6 +1036,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(80, 120, 'transplanting')),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: mem(r(30, 45)),
+    minSoilDepthCm: memDepth(30, 20),
     matureHeightCm: mem(r(45, 90)),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -1015,6 +1068,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(60, 90, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: mem(r(20, 30)),
+    minSoilDepthCm: umdDepth(20, 'small', 'basil'),
     matureHeightCm: mem(r(30, 60)),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -1047,6 +1101,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(70, 90, 'sowing')),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: mem(r(30, 45)),
+    minSoilDepthCm: umdDepth(30, 'medium', 'larger herbs, parsley'),
     matureHeightCm: mem(r(20, 45)),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -1078,6 +1133,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(40, 60, 'sowing'), 'to leaf harvest'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: mem(r(30, 45)),
+    minSoilDepthCm: memDepth(30, 20),
     matureHeightCm: mem(r(60, 120)),
     sun: mem('full_sun'),
     frost: mem('half_hardy'),
@@ -1109,6 +1165,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(60, 90, 'sowing'), 'to first cutting'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: mem(r(20, 30)),
+    minSoilDepthCm: memDepth(15, 10),
     matureHeightCm: mem(r(20, 40)),
     sun: mem('full_sun'),
     frost: mem('hardy'),
@@ -1140,6 +1197,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(45, 70, 'sowing'), 'to leaf harvest'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: mem(r(20, 30)),
+    minSoilDepthCm: umdDepth(20, 'small', 'cilantro'),
     matureHeightCm: mem(r(30, 60)),
     sun: mem('full_sun'),
     frost: mem('half_hardy'),
@@ -1171,6 +1229,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(50, 60, 'sowing'), 'to first flowers'),
     soilPh: mem(r(6.0, 7.0)),
     rootingDepthCm: mem(r(15, 30)),
+    minSoilDepthCm: memDepth(15, 10),
     matureHeightCm: mem(r(15, 30)),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -1202,6 +1261,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(50, 60, 'sowing'), 'to first flowers'),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: mem(r(20, 30)),
+    minSoilDepthCm: memDepth(15, 10),
     matureHeightCm: mem(r(30, 60)),
     sun: mem('full_sun'),
     frost: mem('tender'),
@@ -1233,6 +1293,7 @@ export const crops: Crop[] = [
     daysToMaturity: mem(maturity(80, 120, 'sowing')),
     soilPh: mem(r(6.0, 7.5)),
     rootingDepthCm: faoRoot(0.8, 1.5, 'sunflower'),
+    minSoilDepthCm: memDepth(45, 30),
     matureHeightCm: faoHeight(2.0, 'sunflower'),
     sun: mem('full_sun'),
     frost: mem('tender'),

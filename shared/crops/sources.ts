@@ -196,6 +196,15 @@ export const cropSources: CropSource[] = [
     url: 'http://digitalcommons.unl.edu/extensionhist/1013',
   },
   {
+    id: 'umd-container-size',
+    title:
+      'University of Maryland Extension, Types of containers for growing vegetables: Choose the right container size (updated 20 February 2023)',
+    evidence: 'published',
+    // Read through the search tool. It prints a least depth of growing media for three groups of
+    // crops (large 12-16 in, medium 8-12 in, small 4-6 in) and no raised bed depths.
+    url: 'https://extension.umd.edu/resource/types-containers-growing-vegetables',
+  },
+  {
     id: 'common-practice',
     title: 'Common practice among gardeners and extension services; no single published source found',
     evidence: 'common_practice',

@@ -100,6 +100,13 @@ export interface Crop {
   daysToMaturity: Sourced<Range & { from: 'sowing' | 'transplanting' }>;
   soilPh: Sourced<Range>;
   rootingDepthCm: Sourced<Range>;
+  /**
+   * The least depth of loose soil the crop needs to grow well in a raised bed or a container, in cm;
+   * not the FAO-56 rooting depth, which is the depth roots reach for irrigation. The neighbour check's
+   * site fit compares a raised bed's or a container's measured soil depth against it. The raised bed
+   * figure is never below the container one.
+   */
+  minSoilDepthCm?: Sourced<{ raisedBed: number; container: number }>;
   matureHeightCm: Sourced<Range>;
   sun: Sourced<SunNeed>;
   frost: Sourced<FrostTolerance>;

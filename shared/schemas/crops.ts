@@ -105,6 +105,9 @@ export const cropValueSchemas = {
     .refine((r) => r.min <= r.max, { message: 'Must not be below the minimum', path: ['max'] }),
   soilPh: rangeSchema(3, 10, 'pH'),
   rootingDepthCm: rangeSchema(1, 500, 'cm'),
+  minSoilDepthCm: z
+    .strictObject({ raisedBed: num(1, 300, 'cm'), container: num(1, 300, 'cm') })
+    .refine((d) => d.raisedBed >= d.container, { message: 'Must not be below the container depth', path: ['raisedBed'] }),
   matureHeightCm: rangeSchema(1, 1000, 'cm'),
   sun: oneOf(sunNeeds),
   frost: oneOf(frostTolerances),
@@ -138,6 +141,7 @@ export const overridableCropFields = [
   'daysToMaturity',
   'soilPh',
   'rootingDepthCm',
+  'minSoilDepthCm',
   'matureHeightCm',
   'sun',
   'frost',
@@ -200,6 +204,7 @@ export const CropCreateBodySchema = z.strictObject({
   germination: opt('germination'),
   soilPh: opt('soilPh'),
   rootingDepthCm: opt('rootingDepthCm'),
+  minSoilDepthCm: opt('minSoilDepthCm'),
   matureHeightCm: opt('matureHeightCm'),
   sun: opt('sun'),
   frost: opt('frost'),
@@ -349,6 +354,7 @@ export const CropDetailSchema = z.object({
   daysToMaturity: view('daysToMaturity'),
   soilPh: view('soilPh').optional(),
   rootingDepthCm: view('rootingDepthCm').optional(),
+  minSoilDepthCm: view('minSoilDepthCm').optional(),
   matureHeightCm: view('matureHeightCm').optional(),
   sun: view('sun').optional(),
   frost: view('frost').optional(),
