@@ -148,7 +148,7 @@ describe('who may open a plot book', () => {
     expect(book.plantings.map((p: { crop: { slug: string } }) => p.crop.slug)).toEqual(['radish']);
     expect(book.pastSeasons).toHaveLength(1);
     expect(book.pastSeasons[0].year).toBe(YEAR - 1);
-    expect(book.pastSeasons[0].plantings.map((p: { id: number; crop: { family: string } }) => [p.id, p.crop.family])).toEqual([[s.pastPlantingId, 'Brassicaceae']]);
+    expect(book.pastSeasons[0].plantings.map((p: { id: number; crop: { family: string } }) => [p.id, p.crop.family])).toEqual([[s.pastPlantingId, 'Amaryllidaceae']]);
     const last = (await s.hana.get(`/api/plots/${s.plotA}/book?year=${YEAR - 1}`).expect(200)).body;
     expect(last.season).toEqual({ id: s.lastSeasonId, year: YEAR - 1, isCurrent: false });
     expect(last.canWrite).toBe(false);
