@@ -1,7 +1,7 @@
 import { useEffect } from 'react';
 import { Spinner } from '@/components/ui/spinner';
 import { usePlantingCheck, type PlantingCheckInput } from '../api/check-planting';
-import { findingCounts, hasClash } from '../lib/wording';
+import { errorText, findingCounts, hasClash } from '../lib/wording';
 import { FindingList } from './finding-list';
 
 export interface PlantingCheckProps {
@@ -34,7 +34,7 @@ export function PlantingCheck({ plotId, draft, onClashChange }: PlantingCheckPro
             <Spinner className="size-4" /> Checking this planting against the plot and its neighbours…
           </span>
         ) : check.isError ? (
-          <span className="font-medium text-clay-700">Could not check it just now: {check.error.message} You can still save.</span>
+          <span className="font-medium text-clay-700">Could not check it just now: {errorText(check.error)} You can still save.</span>
         ) : findings ? (
           <span>{counts ? `Found ${counts}.` : 'Nothing found for this planting.'}</span>
         ) : null}

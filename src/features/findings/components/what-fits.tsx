@@ -6,7 +6,7 @@ import { TextField } from '@/components/ui/field';
 import { Spinner } from '@/components/ui/spinner';
 import { useTimeZone } from '@/lib/time-zone';
 import { useWhatFits } from '../api/get-what-fits';
-import { findingCounts, verdictWords } from '../lib/wording';
+import { errorText, findingCounts, verdictWords } from '../lib/wording';
 import { FindingList } from './finding-list';
 import { FindingMark } from './finding-mark';
 
@@ -51,7 +51,7 @@ export function WhatFits({ plotId, plantingsStamp, renderPartPicker, showKeptRea
             <Spinner className="size-4" /> Weighing the club's crops for {part ? 'this part' : 'this plot'}…
           </span>
         ) : fits.isError ? (
-          <span className="font-medium text-clay-700">{fits.error.message}</span>
+          <span className="font-medium text-clay-700">{errorText(fits.error)}</span>
         ) : fits.data ? (
           <span>{items.length === 0 ? 'No crops came back for this date.' : `${items.length} crops, best first.`}</span>
         ) : null}

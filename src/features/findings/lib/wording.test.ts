@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { FindingView } from '@shared/schemas/findings';
-import { evidenceWords, findingCounts, groupByPlanting, hasClash, peerText, sortFindings } from './wording';
+import { errorText, evidenceWords, findingCounts, groupByPlanting, hasClash, peerText, sortFindings } from './wording';
 
 function finding(over: Partial<FindingView>): FindingView {
   return {
@@ -91,5 +91,15 @@ describe('groupByPlanting', () => {
       [3, 'Leek', ['a']],
       [99, 'Bean', ['c']],
     ]);
+  });
+});
+
+describe('errorText', () => {
+  it('adds the field messages that differ from the main one', () => {
+    expect(errorText({ message: 'Some fields need attention.', fields: { date: 'Use a date like 2027-04-12' } })).toBe(
+      'Some fields need attention. Use a date like 2027-04-12',
+    );
+    expect(errorText({ message: 'Too far ahead', fields: { plantedOn: 'Too far ahead' } })).toBe('Too far ahead');
+    expect(errorText({ message: 'Gone.' })).toBe('Gone.');
   });
 });

@@ -101,3 +101,9 @@ export function groupByPlanting<F extends Pick<FindingView, 'plantingId' | 'crop
   }
   return [...groups.values()].filter((g) => g.findings.length > 0).map((g) => ({ ...g, findings: sortFindings(g.findings) }));
 }
+
+/** An error as one line: its message and any field messages the server gave (a 400 on a date out of range, say). */
+export function errorText(error: { message: string; fields?: Record<string, string> }): string {
+  const fields = Object.values(error.fields ?? {}).filter((m) => m !== error.message);
+  return [error.message, ...fields].join(' ');
+}
