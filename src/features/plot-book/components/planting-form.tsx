@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -66,10 +66,10 @@ export function PlantingForm({ clubId, plot, others, onSaved, onCancel, Check }:
   const [part, setPart] = useState<PlotPart | null>(null);
   const [partError, setPartError] = useState<string | undefined>();
   const [formError, setFormError] = useState<string | null>(null);
-  // The dry run found a clash, or the server refused the save for want of a reason: either way the reason box shows.
+  // The dry run found a clash, or the server refused to save this very planting for want of a reason: either way the
+  // reason box shows. The server's word holds until crop, part, method, date or the like change.
   const [dryRunClash, setDryRunClash] = useState(false);
-  const [serverWantsReason, setServerWantsReason] = useState(false);
-  const needsReason = dryRunClash || serverWantsReason;
+  const [reasonAskedFor, setReasonAskedFor] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -90,6 +90,12 @@ export function PlantingForm({ clubId, plot, others, onSaved, onCancel, Check }:
     () => draftFromForm({ cropId, method, plantedOn, layout, rowCount, quantity, status }, part),
     [cropId, method, plantedOn, layout, rowCount, quantity, status, part],
   );
+  const draftKey = JSON.stringify(draft);
+  const serverWantsReason = reasonAskedFor === draftKey;
+  const needsReason = dryRunClash || serverWantsReason;
+  useEffect(() => {
+    if (serverWantsReason) setFocus('keepReason');
+  }, [serverWantsReason, setFocus]);
   const options = useMemo(() => {
     const all = crops.data?.items ?? [];
     const q = search.trim().toLowerCase();
@@ -119,10 +125,7 @@ export function PlantingForm({ clubId, plot, others, onSaved, onCancel, Check }:
             const partMessage = Object.entries(error.fields).find(([k]) => k === 'part' || k.startsWith('part.'))?.[1];
             if (partMessage) setPartError(partMessage);
             // A clash the dry run had not shown yet: the box appears with the server's words on it, the rest kept.
-            if (error.fields.keepReason) {
-              setServerWantsReason(true);
-              setTimeout(() => setFocus('keepReason'), 0);
-            }
+            if (error.fields.keepReason) setReasonAskedFor(draftKey);
           }
           setFormError(applyServerErrors(error, setError, fieldNames));
         },
