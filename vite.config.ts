@@ -27,7 +27,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
-          include: ['shared/**/*.test.ts', 'fake-mail/**/*.test.ts', 'server/**/*.test.ts'],
+          include: ['shared/**/*.test.ts', 'fake-mail/**/*.test.ts', 'server/**/*.test.ts', 'src/**/*.test.ts'],
           environment: 'node',
         },
       },

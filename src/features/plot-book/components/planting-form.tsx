@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -14,7 +14,9 @@ import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useTimeZone } from '@/lib/time-zone';
 import { useCropOptions } from '../api/get-crop-options';
 import { useCreatePlanting } from '../api/create-planting';
+import { draftFromForm } from '../lib/check-draft';
 import { statusWords } from '../lib/format';
+import type { NeighbourCheckSlots } from './neighbour-check-slots';
 import { PartPicker } from './part-picker';
 import type { DrawnPart } from './plot-drawing';
 
@@ -35,10 +37,12 @@ const FormSchema = z.object({
   quantity: wholeNumber('plants'),
   status: z.enum(plantingStatuses),
   notes: z.string().max(2000, 'At most 2000 characters'),
+  // Needed only when the neighbour check finds a clash; the submit handler says so.
+  keepReason: z.string().max(500, 'At most 500 characters'),
 });
 type FormInput = z.input<typeof FormSchema>;
 
-const fieldNames = ['cropId', 'variety', 'method', 'plantedOn', 'layout', 'rowCount', 'quantity', 'status', 'notes'] as const;
+const fieldNames = ['cropId', 'variety', 'method', 'plantedOn', 'layout', 'rowCount', 'quantity', 'status', 'notes', 'keepReason'] as const;
 
 export interface PlantingFormProps {
   clubId: number;
@@ -46,10 +50,15 @@ export interface PlantingFormProps {
   others: DrawnPart[];
   onSaved: (planting: Planting) => void;
   onCancel: () => void;
+  /** The dry run shown under the form (the neighbour check); left out, the form saves without it. */
+  Check?: NeighbourCheckSlots['PlantingCheck'];
 }
 
-/** Adds a planting to this season: crop (searchable), variety, the part of the plot, how and when, rows or plants. */
-export function PlantingForm({ clubId, plot, others, onSaved, onCancel }: PlantingFormProps) {
+/**
+ * Adds a planting to this season: crop (searchable), variety, the part of the plot, how and when, rows or plants.
+ * As it is filled in, the neighbour check runs on it; a clash asks why the holder keeps the planting.
+ */
+export function PlantingForm({ clubId, plot, others, onSaved, onCancel, Check }: PlantingFormProps) {
   const zone = useTimeZone();
   const crops = useCropOptions(clubId);
   const create = useCreatePlanting(plot.id);
@@ -57,18 +66,36 @@ export function PlantingForm({ clubId, plot, others, onSaved, onCancel }: Planti
   const [part, setPart] = useState<PlotPart | null>(null);
   const [partError, setPartError] = useState<string | undefined>();
   const [formError, setFormError] = useState<string | null>(null);
+  // The dry run found a clash, or the server refused to save this very planting for want of a reason: either way the
+  // reason box shows. The server's word holds until crop, part, method, date or the like change.
+  const [dryRunClash, setDryRunClash] = useState(false);
+  const [reasonAskedFor, setReasonAskedFor] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
     setError,
     setValue,
+    setFocus,
     control,
     formState: { errors },
   } = useForm<FormInput, unknown, z.output<typeof FormSchema>>({
     resolver: zodResolver(FormSchema),
-    defaultValues: { cropId: '', variety: '', method: 'sown', plantedOn: localToday(zone), layout: 'rows', rowCount: '', quantity: '', status: 'planned', notes: '' },
+    defaultValues: { cropId: '', variety: '', method: 'sown', plantedOn: localToday(zone), layout: 'rows', rowCount: '', quantity: '', status: 'planned', notes: '', keepReason: '' },
   });
-  const cropId = useWatch({ control, name: 'cropId' });
+  const [cropId, method, plantedOn, layout, rowCount, quantity, status] = useWatch({
+    control,
+    name: ['cropId', 'method', 'plantedOn', 'layout', 'rowCount', 'quantity', 'status'],
+  });
+  const draft = useMemo(
+    () => draftFromForm({ cropId, method, plantedOn, layout, rowCount, quantity, status }, part),
+    [cropId, method, plantedOn, layout, rowCount, quantity, status, part],
+  );
+  const draftKey = JSON.stringify(draft);
+  const serverWantsReason = reasonAskedFor === draftKey;
+  const needsReason = dryRunClash || serverWantsReason;
+  useEffect(() => {
+    if (serverWantsReason) setFocus('keepReason');
+  }, [serverWantsReason, setFocus]);
   const options = useMemo(() => {
     const all = crops.data?.items ?? [];
     const q = search.trim().toLowerCase();
@@ -84,14 +111,21 @@ export function PlantingForm({ clubId, plot, others, onSaved, onCancel }: Planti
   const onSubmit = handleSubmit((values) => {
     setFormError(null);
     setPartError(undefined);
+    const keepReason = values.keepReason.trim();
+    if (needsReason && !keepReason) {
+      setError('keepReason', { type: 'required', message: 'Say why you keep this planting despite the clash' }, { shouldFocus: true });
+      return;
+    }
     create.mutate(
-      { ...values, part },
+      { ...values, part, keepReason: needsReason ? keepReason : null },
       {
         onSuccess: onSaved,
         onError: (error) => {
           if (isApiError(error) && error.fields) {
             const partMessage = Object.entries(error.fields).find(([k]) => k === 'part' || k.startsWith('part.'))?.[1];
             if (partMessage) setPartError(partMessage);
+            // A clash the dry run had not shown yet: the box appears with the server's words on it, the rest kept.
+            if (error.fields.keepReason) setReasonAskedFor(draftKey);
           }
           setFormError(applyServerErrors(error, setError, fieldNames));
         },
@@ -157,6 +191,17 @@ export function PlantingForm({ clubId, plot, others, onSaved, onCancel }: Planti
         <TextField label="Plants or seeds (optional)" inputMode="numeric" error={errors.quantity?.message} {...register('quantity')} />
       </div>
       <TextAreaField label="Notes (optional)" rows={3} error={errors.notes?.message} {...register('notes')} />
+      {Check && <Check plotId={plot.id} draft={draft} onClashChange={setDryRunClash} />}
+      {needsReason && (
+        <TextAreaField
+          label="Why keep this planting?"
+          hint="The check found a clash. Say in a line or two why you plant it here anyway (up to 500 characters); the coordinators can read it."
+          rows={3}
+          required
+          error={errors.keepReason?.message}
+          {...register('keepReason')}
+        />
+      )}
       <div className="flex flex-wrap gap-3">
         <Button type="submit" loading={create.isPending} loadingText="Saving…">
           Save the planting

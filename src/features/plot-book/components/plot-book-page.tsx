@@ -14,8 +14,10 @@ import { paths } from '@/lib/paths';
 import { usePlotBook } from '../api/get-plot-book';
 import { areaText, calendarDate, partText, plantingName, statusWords } from '../lib/format';
 import { HarvestFigures } from './harvest-figures';
+import type { NeighbourCheckSlots } from './neighbour-check-slots';
 import { ObservationForm } from './observation-form';
 import { ObservationsList } from './observations-list';
+import { PartPicker } from './part-picker';
 import { PlantingCard } from './planting-card';
 import { PlantingForm } from './planting-form';
 import { PlotDrawing } from './plot-drawing';
@@ -41,10 +43,12 @@ export interface PlotBookPageProps {
   year?: number;
   /** Coordinators come back to the plot page; holders to their home. */
   isCoordinator: boolean;
+  /** The neighbour check's parts (src/app hands them in from the findings feature). */
+  neighbourCheck?: NeighbourCheckSlots;
 }
 
 /** A plot's plot book: the plot with this season's plantings drawn on it, their dates and harvests, pests and diseases, earlier seasons. */
-export function PlotBookPage({ clubId, plotId, year, isCoordinator }: PlotBookPageProps) {
+export function PlotBookPage({ clubId, plotId, year, isCoordinator, neighbourCheck }: PlotBookPageProps) {
   const book = usePlotBook(plotId, year);
   const [adding, setAdding] = useState(false);
   const [observing, setObserving] = useState(false);
@@ -81,6 +85,9 @@ export function PlotBookPage({ clubId, plotId, year, isCoordinator }: PlotBookPa
   const units = plot.units;
   const writable = b.canWrite && (b.season?.isCurrent ?? false);
   const drawn = b.plantings.map((p) => ({ id: p.id, part: p.part, label: p.crop.commonName }));
+  // Keep reasons are the holder's words to the coordinators; other members reading the book do not see them.
+  const showKeptReasons = isCoordinator || b.canWrite;
+  const plantingsStamp = b.plantings.map((p) => `${p.id}:${p.version}`).join(',');
   const years = [...new Set([...(b.season ? [b.season.year] : []), ...b.pastSeasons.map((s) => s.year)])].sort((a, z) => z - a);
 
   return (
@@ -155,6 +162,7 @@ export function PlotBookPage({ clubId, plotId, year, isCoordinator }: PlotBookPa
                       setSaved(`${plantingName(p)} saved. Its dates are below.`);
                     }}
                     onCancel={() => setAdding(false)}
+                    Check={neighbourCheck?.PlantingCheck}
                   />
                 </Card>
               )}
@@ -166,6 +174,37 @@ export function PlotBookPage({ clubId, plotId, year, isCoordinator }: PlotBookPa
               ))}
             </Section>
           </div>
+
+          {neighbourCheck && (
+            <Section id="neighbour-check" title="Neighbour check">
+              <p className="-mt-2 max-w-prose text-sm text-stone">
+                How this season's plantings sit with what grew here before, with each other and with the neighbours' plots.
+              </p>
+              <neighbourCheck.NeighbourCheck
+                findings={b.findings}
+                plantings={b.plantings.map((p) => ({ id: p.id, name: plantingName(p) }))}
+                showKeptReasons={showKeptReasons}
+              />
+            </Section>
+          )}
+
+          {neighbourCheck && writable && (
+            <Section id="what-fits" title="What fits here">
+              <p className="-mt-2 max-w-prose text-sm text-stone">
+                The club's crops weighed for this plot on the day you would sow or plant out, good choices first. Open a crop to see why.
+              </p>
+              <Card>
+                <neighbourCheck.WhatFits
+                  plotId={plot.id}
+                  plantingsStamp={plantingsStamp}
+                  showKeptReasons={showKeptReasons}
+                  renderPartPicker={(value, onChange) => (
+                    <PartPicker plot={{ width: plot.width, length: plot.length, units }} value={value} onChange={onChange} others={drawn} />
+                  )}
+                />
+              </Card>
+            </Section>
+          )}
 
           <Section
             id="observations"
