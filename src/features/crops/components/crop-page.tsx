@@ -20,6 +20,7 @@ import { paths } from '@/lib/paths';
 import { useCrop } from '../api/get-crop';
 import {
   feedingLabels,
+  formatCm,
   formatCmRange,
   formatDays,
   formatMaturity,
@@ -186,6 +187,14 @@ function Values({ crop, clubId, canSetClubValues }: { crop: TypedCropDetail; clu
       </CardSection>
       <CardSection id="crop-soil" title="Soil, sun and frost">
         <dl>
+          <Value term="Least soil depth" value={crop.minSoilDepthCm} {...v()}>
+            {(d, note) => (
+              <ul>
+                <li>In a raised bed: {formatCm(d.raisedBed, note)}</li>
+                <li>In a container: {formatCm(d.container, note)}</li>
+              </ul>
+            )}
+          </Value>
           <Value term={termOf.soilPh} value={crop.soilPh} {...v('soilPh')}>
             {(r) => (r.min === r.max ? trimNumber(r.min) : `${trimNumber(r.min)}–${trimNumber(r.max)}`)}
           </Value>

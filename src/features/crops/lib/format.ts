@@ -26,6 +26,11 @@ export function formatCmRange(r: { min: number; max: number }, note?: string): s
   return `${cm} (${span(trimNumber(r.min / CM_PER_INCH, 2), trimNumber(r.max / CM_PER_INCH, 2))} in)`;
 }
 
+/** One length in cm, with inches in brackets when the source printed inches, e.g. "10 cm (3.94 in)". */
+export function formatCm(cm: number, note?: string): string {
+  return formatCmRange({ min: cm, max: cm }, note);
+}
+
 const toFahrenheit = (c: number) => (c * 9) / 5 + 32;
 
 /** One temperature in °C, with °F in brackets when the source printed °F. */

@@ -7,22 +7,40 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
+import { ApiError, isApiError } from '@/lib/api/client';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useCreateSite } from '../api/create-site';
 import { isSiteConflict, useUpdateSite } from '../api/update-site';
 import {
   convertLengthText,
+  convertTemperatureText,
   emptySiteForm,
+  formFieldOf,
   lengthFields,
   newSiteLengths,
   sameFormFields,
   SiteFormSchema,
   siteChanges,
   siteFormFieldNames,
+  soilTempFieldNames,
   siteToForm,
   type SiteFormValues,
 } from '../lib/site-form';
 import { MonthDayField } from './month-day-field';
+import { SoilTempsField } from './soil-temps-field';
+
+const serverFieldNames = [...siteFormFieldNames, ...soilTempFieldNames];
+
+/** The server's error with its field names turned into the form's (`soilTempsC.3` → `soilTemps.3`). */
+function withFormFields(error: unknown): unknown {
+  if (!isApiError(error) || !error.fields) return error;
+  const fields: Record<string, string> = {};
+  for (const [field, message] of Object.entries(error.fields)) {
+    const name = formFieldOf(field);
+    fields[name] = fields[name] ? `${fields[name]} ${message}` : message;
+  }
+  return new ApiError({ status: error.status, code: error.code, message: error.message, fields, requestId: error.requestId });
+}
 
 const CONFLICT_MESSAGE =
   'Someone else changed this site while you were editing. The form now shows the saved details: check them and make your change again.';
@@ -76,6 +94,7 @@ export function SiteForm({ clubId, site, onSaved, onCancel }: SiteFormProps) {
     defaultValues: site ? siteToForm(site) : emptySiteForm(),
   });
   const units = useWatch({ control, name: 'units' });
+  const soilTemps = useWatch({ control, name: 'soilTemps' });
   const unit = lengthUnitLabel(units);
 
   useEffect(() => {
@@ -98,6 +117,8 @@ export function SiteForm({ clubId, site, onSaved, onCancel }: SiteFormProps) {
       const isStarter = !site && (field === 'pathWidth' || field === 'grid') && text === newSiteLengths[from][field];
       setValue(field, isStarter ? newSiteLengths[to][field] : convertLengthText(text, from, to), { shouldDirty: true });
     }
+    // Soil temperatures follow the units too: °C on metric sites, °F on US ones.
+    soilTempFieldNames.forEach((name) => setValue(name, convertTemperatureText(getValues(name), from, to), { shouldDirty: true }));
   };
 
   const onError = (error: unknown) => {
@@ -105,7 +126,7 @@ export function SiteForm({ clubId, site, onSaved, onCancel }: SiteFormProps) {
       conflictRef.current = true;
       setFormError(CONFLICT_MESSAGE);
     } else {
-      setFormError(applyServerErrors(error, setError, siteFormFieldNames));
+      setFormError(applyServerErrors(withFormFields(error), setError, serverFieldNames));
     }
   };
 
@@ -268,6 +289,7 @@ export function SiteForm({ clubId, site, onSaved, onCancel }: SiteFormProps) {
             />
           )}
         />
+        <SoilTempsField register={register} errors={errors} units={units} values={soilTemps} className="sm:col-span-2" />
         <TextAreaField label="Soil notes" hint="Optional. Soil type, tests, what was added." error={errors.soilNotes?.message} className="sm:col-span-2" rows={3} {...register('soilNotes')} />
       </Group>
 

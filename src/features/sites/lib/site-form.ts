@@ -1,12 +1,24 @@
 import { z } from 'zod';
 import { fromDisplayLength, roundTo, toDisplayLength, type UnitSystem } from '@shared/geometry';
 import { SiteCreateBodySchema, UnitsSchema, type Site, type SiteCreateBody, type SiteUpdateBody } from '@shared/schemas/sites';
+import {
+  fromDisplayTemperature,
+  MONTHS,
+  sameSoilTemps,
+  soilTempBounds,
+  soilTempsText,
+  temperatureUnitLabel,
+  toDisplayTemperature,
+} from './soil-temps';
 
 /** The lengths the form shows in the site's units; the API always takes metres. */
 export const lengthFields = ['width', 'length', 'pathWidth', 'grid'] as const;
 export type LengthField = (typeof lengthFields)[number];
 
-/** What the inputs hold: text as typed, lengths in the chosen units, frost dates as "MM-DD" or "". */
+/**
+ * What the inputs hold: text as typed, lengths in the chosen units, frost dates as "MM-DD" or "",
+ * soil temperatures as twelve texts (January first) in °C or °F by the chosen units.
+ */
 export interface SiteFormValues {
   name: string;
   address: string;
@@ -21,6 +33,7 @@ export interface SiteFormValues {
   lastSpringFrost: string;
   firstAutumnFrost: string;
   soilNotes: string;
+  soilTemps: string[];
 }
 
 export const siteFormFieldNames = [
@@ -34,7 +47,25 @@ export const siteFormFieldNames = [
   'lastSpringFrost',
   'firstAutumnFrost',
   'soilNotes',
+  'soilTemps',
 ] as const satisfies readonly (keyof SiteFormValues)[];
+
+/** One input per month: `soilTemps.0` is January. */
+export const soilTempFieldNames = Array.from({ length: MONTHS }, (_, i) => `soilTemps.${i}` as const);
+
+/** The message when some months are filled and others are not. */
+export const SOIL_TEMPS_INCOMPLETE = 'Fill in all twelve months, or leave them all empty';
+
+/**
+ * The form's name for a field the server named: the server checks `soilTempsC` (°C) and its months
+ * `soilTempsC.3`; the form holds them as `soilTemps` in the site's units. Other names are the same.
+ */
+export function formFieldOf(serverField: string): string {
+  const month = /^soilTempsC\.(\d+)$/.exec(serverField);
+  if (month && Number(month[1]) < MONTHS) return `soilTemps.${Number(month[1])}`;
+  if (serverField === 'soilTempsC' || serverField.startsWith('soilTempsC.')) return 'soilTemps';
+  return serverField;
+}
 
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)$/;
 const numberText = z
@@ -47,9 +78,12 @@ const monthDayText = z
   .refine((v) => v === '' || /^\d\d-\d\d$/.test(v), 'Pick both a month and a day, or neither');
 const shape = SiteCreateBodySchema.shape;
 
+/** Twelve typed temperatures; the refinement below checks each is a number or empty, and all or none filled. */
+const soilTempsTexts = z.array(z.string()).length(MONTHS);
+
 /**
  * Reads the form into an API body: numbers from text, lengths to metres, blank frost dates to null,
- * then checks the result against the shared site schema so the form and the server apply one set of rules.
+ * soil temperatures to °C (all blank to null), then checks the result against the shared site schema so the form and the server apply one set of rules.
  */
 export const SiteFormSchema = z
   .object({
@@ -66,6 +100,32 @@ export const SiteFormSchema = z
     lastSpringFrost: monthDayText,
     firstAutumnFrost: monthDayText,
     soilNotes: z.string(),
+    soilTemps: soilTempsTexts,
+  })
+  .superRefine((v, ctx) => {
+    const unit = temperatureUnitLabel(v.units);
+    const { min, max } = soilTempBounds(v.units);
+    const texts = v.soilTemps.map((t) => t.trim());
+    texts.forEach((text, i) => {
+      if (text === '') return;
+      if (!NUMBER.test(text)) {
+        ctx.addIssue({ code: 'custom', path: ['soilTemps', i], message: 'Enter a number, like 12.5' });
+        return;
+      }
+      // Checked in the units the person typed, so the message names them; the bounds are the server's.
+      const value = Number(text);
+      if (value < min) ctx.addIssue({ code: 'custom', path: ['soilTemps', i], message: `At least ${min} ${unit}` });
+      else if (value > max) ctx.addIssue({ code: 'custom', path: ['soilTemps', i], message: `At most ${max} ${unit}` });
+    });
+    const filled = texts.filter((t) => t !== '').length;
+    if (filled > 0 && filled < MONTHS) ctx.addIssue({ code: 'custom', path: ['soilTemps'], message: SOIL_TEMPS_INCOMPLETE });
+  }, {
+    // Runs even when another field (say latitude) is wrong, so every mistake shows at once; it needs only
+    // the units and the twelve texts to be readable.
+    when: ({ value }) => {
+      const v = value as { units?: unknown; soilTemps?: unknown } | null;
+      return UnitsSchema.safeParse(v?.units).success && soilTempsTexts.safeParse(v?.soilTemps).success;
+    },
   })
   .transform(
     (v): z.input<typeof SiteCreateBodySchema> => ({
@@ -82,6 +142,9 @@ export const SiteFormSchema = z
       lastSpringFrost: v.lastSpringFrost || null,
       firstAutumnFrost: v.firstAutumnFrost || null,
       soilNotes: v.soilNotes.trim(),
+      soilTempsC: v.soilTemps.every((t) => t.trim() === '')
+        ? null
+        : v.soilTemps.map((t) => fromDisplayTemperature(Number(t.trim()), v.units)),
     }),
   )
   .pipe(SiteCreateBodySchema);
@@ -99,6 +162,13 @@ export function convertLengthText(text: string, from: UnitSystem, to: UnitSystem
   const value = text.trim();
   if (!NUMBER.test(value) || from === to) return text;
   return lengthText(fromDisplayLength(Number(value), from), to);
+}
+
+/** Re-expresses a typed temperature in other units (10 °C → 50 °F); text that is not a number is left alone. */
+export function convertTemperatureText(text: string, from: UnitSystem, to: UnitSystem): string {
+  const value = text.trim();
+  if (!NUMBER.test(value) || from === to) return text;
+  return String(toDisplayTemperature(fromDisplayTemperature(Number(value), from), to));
 }
 
 /** Round numbers a new site starts with in each unit system (a 3 ft path is the US habit, common practice). */
@@ -130,6 +200,7 @@ export function emptySiteForm(): SiteFormValues {
     lastSpringFrost: '',
     firstAutumnFrost: '',
     soilNotes: '',
+    soilTemps: soilTempsText(null, 'metric'),
   };
 }
 
@@ -150,6 +221,7 @@ export function siteToForm(site: Site): SiteFormValues {
     lastSpringFrost: site.lastSpringFrost ?? '',
     firstAutumnFrost: site.firstAutumnFrost ?? '',
     soilNotes: site.soilNotes,
+    soilTemps: soilTempsText(site.soilTempsC, units),
   };
 }
 
@@ -174,6 +246,7 @@ export function siteChanges(site: Site, body: SiteCreateBody): SiteUpdateBody {
   if (body.lastSpringFrost !== site.lastSpringFrost) changes.lastSpringFrost = body.lastSpringFrost;
   if (body.firstAutumnFrost !== site.firstAutumnFrost) changes.firstAutumnFrost = body.firstAutumnFrost;
   if (body.soilNotes !== site.soilNotes) changes.soilNotes = body.soilNotes;
+  if (!sameSoilTemps(body.soilTempsC, site.soilTempsC)) changes.soilTempsC = body.soilTempsC;
   return changes;
 }
 
@@ -181,5 +254,9 @@ export function siteChanges(site: Site, body: SiteCreateBody): SiteUpdateBody {
 export function sameFormFields(a: Site, b: Site): boolean {
   const x = siteToForm(a);
   const y = siteToForm(b);
-  return siteFormFieldNames.every((name) => x[name] === y[name]);
+  return siteFormFieldNames.every((name) => {
+    const a = x[name];
+    const b = y[name];
+    return Array.isArray(a) && Array.isArray(b) ? a.length === b.length && a.every((t, i) => t === b[i]) : a === b;
+  });
 }
