@@ -310,10 +310,10 @@ describe('cited rows against the data', () => {
     expect(f.note).toContain(`column '${column}'`);
   });
 
-  it('keeps potato tender from memory, with the Purdue column in the note', () => {
+  it('takes potato from Purdue’s very hardy column: seed tubers are planted weeks before the last frost', () => {
     const f = crop('potato').frost;
-    expect(f).toMatchObject({ value: 'tender', source: 'from-memory' });
-    expect(f.note).toContain('very hardy');
+    expect(f).toMatchObject({ value: 'hardy', source: 'purdue-frost-resistance' });
+    expect(f.note).toContain("column 'very hardy'");
   });
 
   // [crop, days at 50/59/68/77/86 °F as printed in Appendix 4 (null: not tested)]

@@ -625,10 +625,9 @@ export const crops: Crop[] = [
     minSoilDepthCm: memDepth(45, 30, 'the UMD page gives potatoes 30 gallons of potting mix, no depth'),
     matureHeightCm: faoHeight(0.6, 'potato'),
     sun: mem('full_sun'),
-    frost: mem(
-      'tender',
-      "the Purdue frost resistance table puts potato in its 'very hardy' column; kept tender here, from memory, because frost kills the tops and this value drives the frost warnings",
-    ),
+    // Purdue classes crops by when they can be planted: seed tubers go in weeks before the last frost.
+    // Shoots that are up when a frost comes are nipped and need covering (common practice).
+    frost: purdueFrost('very hardy', 'Potato', 'planting time of the seed tubers; cover shoots that are up when frost threatens'),
     feeding: mem('heavy'),
     sideDressing: mem(feed(4, 6), 'at hilling'),
     kc: kc(0.5, 1.15, 0.75, 0.75, 'potato'),

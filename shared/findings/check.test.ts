@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { crops } from '../crops/crops';
 import { cropRelations } from '../crops/relations';
 import { diseaseRotationRules } from '../crops/rotation';
-import { affectedPlots, checkDraft, checkPlots, withinGap } from './check';
+import { affectedPlots, checkDraft, checkPlots, SHADE_MIN_REACH_M, withinGap } from './check';
 import type { CheckContext, CheckObservation, CheckPlanting, CheckPlot, CheckRelation, Finding } from './types';
 import { noonElevationDeg, shadowLengthM } from './sun';
 import { whatFits } from './what-fits';
@@ -229,6 +229,36 @@ describe('shade', () => {
     const site = { id: 1, latitude: 51.5, pathWidthM: 1.3, lastSpringFrost: null, firstAutumnFrost: null, soilTempsC: null };
     const far = about(checkPlots(context(tallSouth(6.2), [radish, sunflower], { site })), radish.id);
     expect(far.filter((x) => x.kind === 'shade')).toHaveLength(0);
+  });
+
+  it('leaves out a shadow that only grazes the edge (under 10 cm in, our own threshold)', () => {
+    // 1.07 m of shadow across a 1.0 m gap reaches 7 cm in (on 2024-06-20; mid-season is later and lower, so sow a
+    // quick crop and check only dates with a short shadow): the path is 1.0 m and the site allows it.
+    const site = { id: 1, latitude: 51.5, pathWidthM: 1.0, lastSpringFrost: null, firstAutumnFrost: null, soilTempsC: null };
+    const radish = planting(1, 'radish', 2024, '2024-06-10');
+    const sunflower = planting(2, 'sunflower', 2024, '2024-04-01');
+    const f = about(checkPlots(context(tallSouth(6.0), [radish, sunflower], { site })), radish.id).filter((x) => x.kind === 'shade');
+    // Both key dates (10 June, early July) have the sun near 61°: about 1.09 m of shadow, 9 cm past the 1.0 m gap.
+    expect(shadowLengthM(2, noonElevationDeg('2024-06-10', 51.5)) - 1.0).toBeLessThan(SHADE_MIN_REACH_M);
+    expect(f).toHaveLength(0);
+    // Across 0.9 m the same shadow reaches 19 cm in, and counts.
+    const near = about(checkPlots(context(tallSouth(5.9), [radish, sunflower], { site })), radish.id).filter((x) => x.kind === 'shade');
+    expect(near).toHaveLength(1);
+  });
+
+  it('counts the tall crop only once it stands at full height', () => {
+    // Sweet corn (1.5 m) has FAO-56 Table 11 stages of 20 + 25 days before mid-season: sown on 2024-06-01 it
+    // stands full height from 2024-07-16. Radish sown on 2024-05-20 is out by 2024-07-09 (50 days at most).
+    const radish = planting(1, 'radish', 2024, '2024-05-20');
+    const young = planting(2, 'sweet-corn', 2024, '2024-06-01');
+    expect(about(checkPlots(context(tallSouth(5.9), [radish, young])), radish.id).filter((x) => x.kind === 'shade')).toHaveLength(0);
+    // The same corn sown in April stands full height by late May, while the radish grows: a shadow of
+    // 1.5 / tan(~60°) ≈ 0.9 m does not cross 0.9 m plus 10 cm, so put the radish across a narrow 0.5 m path.
+    const early = planting(2, 'sweet-corn', 2024, '2024-04-01');
+    const site = { id: 1, latitude: 51.5, pathWidthM: 0.5, lastSpringFrost: null, firstAutumnFrost: null, soilTempsC: null };
+    const shaded = about(checkPlots(context(tallSouth(5.5), [radish, early], { site })), radish.id).filter((x) => x.kind === 'shade');
+    expect(shaded).toHaveLength(1);
+    expect(shaded[0].numbers.heightM).toBe(1.5);
   });
 
   it('never falls south in the northern hemisphere', () => {

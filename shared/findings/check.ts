@@ -24,6 +24,9 @@ export function withinGap(earlierYear: number, laterYear: number, gapYears: numb
 /** A crop this tall (mature height, cm) or taller is checked for the shade it casts: our own threshold (common practice calls such crops "tall"). */
 export const TALL_CROP_CM = 100;
 
+/** A noon shadow must reach this far into a planting to count (our own threshold: a shadow that only grazes the edge is left out). */
+export const SHADE_MIN_REACH_M = 0.1;
+
 /** Plantings whose growing time overlaps by fewer days than this are not together in the ground. */
 const MIN_DAYS_TOGETHER = 1;
 
@@ -205,12 +208,31 @@ function companionFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: Che
   return out;
 }
 
-/** The shaded planting's key dates: its sowing (or planting out) and the middle of its time in the ground. */
-function keyDates(pr: Prepared, s: CheckPlanting): string[] {
+/**
+ * When a crop stands at its full height: from the start of its FAO-56 mid-season stage ("effective full
+ * cover", Table 11 stage lengths in the crop notes), or halfway to its earliest harvest where the crop
+ * has no stage lengths (our own stand-in).
+ */
+export function fullHeightFrom(pr: Prepared, p: CheckPlanting): string | null {
+  const crop = cropOf(pr, p);
+  if (!crop) return null;
+  const st = crop.stages?.value;
+  if (st) return plusDays(p.plantedOn, st.initial + st.development);
+  const w = plantingDates({ crop, method: p.method, date: p.plantedOn });
+  return plusDays(p.plantedOn, Math.max(0, Math.round(daysBetween(p.plantedOn, w.harvest.earliest) / 2)));
+}
+
+/**
+ * Dates the noon shadow is measured on: the shaded planting's sowing and the middle of its time in the
+ * ground, and the day the tall crop reaches full height when that falls while the shaded one grows.
+ */
+function keyDates(pr: Prepared, s: CheckPlanting, tallFrom: string): string[] {
   const w = windowOf(pr, s);
   if (!w) return [s.plantedOn];
   const mid = plusDays(w.from, Math.floor(daysBetween(w.from, w.to) / 2));
-  return mid === w.from ? [w.from] : [w.from, mid];
+  const dates = new Set([w.from, mid]);
+  if (w.from < tallFrom && tallFrom <= w.to) dates.add(tallFrom);
+  return [...dates].sort();
 }
 
 function inWindow(pr: Prepared, p: CheckPlanting, date: string): boolean {
@@ -231,9 +253,12 @@ function shadeFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: CheckPl
       const heightM = tall.matureHeightCm.value.max / 100;
       if (heightM <= ownHeightM) continue;
       const tBox = plantingFootprint(tallPlot, t.part);
+      const tallFrom = fullHeightFrom(pr, t);
+      if (!tallFrom) continue;
       let worst: { date: string; elevation: number; shadow: number; distance: number; toward: 'north' | 'south' } | null = null;
-      for (const date of keyDates(pr, s)) {
-        if (!inWindow(pr, t, date)) continue;
+      for (const date of keyDates(pr, s, tallFrom)) {
+        // The tall crop casts its full shadow only once it stands at full height, until it is cleared.
+        if (date < tallFrom || !inWindow(pr, t, date)) continue;
         const sun = noonSunDirection(date, lat);
         if (sun === 'overhead') continue;
         const toward = sun === 'south' ? 'north' : 'south';
@@ -244,7 +269,7 @@ function shadeFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: CheckPl
         if (elevation <= 0) continue;
         const shadow = shadowLengthM(heightM, elevation);
         const gap = Math.max(0, distance);
-        if (shadow > gap + 1e-6 && (!worst || shadow - gap > worst.shadow - worst.distance)) {
+        if (shadow >= gap + SHADE_MIN_REACH_M - 1e-9 && (!worst || shadow - gap > worst.shadow - worst.distance)) {
           worst = { date, elevation, shadow, distance: gap, toward };
         }
       }
@@ -257,8 +282,8 @@ function shadeFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: CheckPl
         title: `Shade from ${lower(tall.commonName)} in ${tallPlot.label}`,
         message:
           `${tall.commonName} in ${tallPlot.label}, up to ${metres(heightM)} tall, casts a noon shadow of ${metres(worst.shadow)} on ${worst.date} ` +
-          `(sun ${worst.elevation.toFixed(1)}° high at latitude ${lat}°); this ${lower(crop.commonName)} is ${metres(worst.distance)} to its ${worst.toward} ` +
-          `and wants full sun.`,
+          `(sun ${worst.elevation.toFixed(1)}° high at latitude ${lat}°); this ${lower(crop.commonName)} is ${metres(worst.distance)} to its ${worst.toward}, ` +
+          `so the shadow reaches ${metres(worst.shadow - worst.distance)} into it, and it wants full sun.`,
         peers: [peerOf(pr, t)],
         source: findingSource('noon-shadow'),
         numbers: { shadowM: round2(worst.shadow), distanceM: round2(worst.distance), elevationDeg: round2(worst.elevation), heightM },
