@@ -12,10 +12,11 @@ import {
   type Finding,
   type PartRect,
 } from '@shared/findings';
+import { neighbours } from '@shared/geometry';
 import type { FindingView } from '@shared/schemas/findings';
 import type { Db } from '../db/knex';
 import { STORED_LENGTH_EPS } from '../db/mappers';
-import { notFound } from '../errors';
+import { AppError, notFound } from '../errors';
 import { withClubOverrides } from './crops';
 
 // The neighbour check on the server: loads what the engine needs for one site in a fixed number of
@@ -31,42 +32,138 @@ interface SiteRow {
   first_autumn_frost: string | null;
   soil_temps_c: unknown;
   rotation_gap_years: number;
+  seasons: Array<{ id: number; year: number }>;
+  notes_stamp: string;
 }
 
 const num = (v: unknown) => (v === null || v === undefined ? null : Number(v));
+
+/** The plots within `rings` rings of neighbours of the given ones (themselves included), from geometry alone. */
+function ringsOf(plots: CheckContext['plots'], pathWidthM: number, start: Iterable<number>, rings: 1 | 2): Set<number> {
+  const around = new Map<number, number[]>();
+  for (const n of neighbours(plots, pathWidthM, STORED_LENGTH_EPS)) {
+    around.set(n.a, [...(around.get(n.a) ?? []), n.b]);
+    around.set(n.b, [...(around.get(n.b) ?? []), n.a]);
+  }
+  let ring = new Set(start);
+  for (let r = 0; r < rings; r++) {
+    const next = new Set(ring);
+    for (const id of ring) for (const n of around.get(id) ?? []) next.add(n);
+    ring = next;
+  }
+  return ring;
+}
 
 function partOf(r: { part_x_m: unknown; part_y_m: unknown; part_width_m: unknown; part_length_m: unknown }): PartRect | null {
   if (r.part_x_m === null || r.part_y_m === null || r.part_width_m === null || r.part_length_m === null) return null;
   return { x: Number(r.part_x_m), y: Number(r.part_y_m), width: Number(r.part_width_m), length: Number(r.part_length_m) };
 }
 
-/** What the check needs for a site and its club: seven queries, whatever the number of plots. */
-export async function loadCheckContext(db: Db, siteId: number): Promise<CheckContext & { clubId: number; seasonIds: Map<number, number> }> {
-  const site: SiteRow | undefined = await db('sites as s')
-    .join('clubs as c', 'c.id', 's.club_id')
-    .where('s.id', siteId)
-    .first('s.id', 's.club_id', 's.latitude', 's.path_width_m', 's.last_spring_frost', 's.first_autumn_frost', 's.soil_temps_c', 'c.rotation_gap_years');
-  if (!site) throw notFound('The site');
-  const [plots, plantings, observations, cropRows, relations, seasons] = await Promise.all([
-    db('plots').where({ site_id: siteId }).whereNull('deleted_at').orderBy('id')
-      .select('id', 'label', 'x_m', 'y_m', 'width_m', 'length_m', 'rotation', 'kind', 'soil_depth_m', 'soil_ph'),
-    db('plantings as pl').join('plots as p', 'p.id', 'pl.plot_id').join('seasons as se', 'se.id', 'pl.season_id')
-      .where('p.site_id', siteId).whereNull('p.deleted_at').orderBy('pl.id')
-      .select('pl.id', 'pl.plot_id', 'se.year', 'pl.crop_id', 'pl.part_x_m', 'pl.part_y_m', 'pl.part_width_m', 'pl.part_length_m', 'pl.method', 'pl.planted_on', 'pl.status'),
-    db('observations as o').join('plots as p', 'p.id', 'o.plot_id')
-      .where({ 'p.site_id': siteId, 'o.is_soil_borne': true }).whereNull('p.deleted_at').orderBy('o.id')
-      .select('o.id', 'o.plot_id', 'o.planting_id', 'o.pest_slug', 'o.name', 'o.is_soil_borne', 'o.part_x_m', 'o.part_y_m', 'o.part_width_m', 'o.part_length_m', 'o.observed_on'),
-    db('crops').where((q) => q.whereNull('club_id').orWhere({ club_id: site.club_id })).orderBy('id').select('id', 'data'),
-    db('crop_relations').where((q) => q.whereNull('club_id').orWhere({ club_id: site.club_id }))
+/**
+ * A club's crop notes as the check reads them (its crops with the club's own values in place, and the
+ * reference and club relations), kept per process. The site query brings a stamp of every row the notes
+ * are made of (id and last change of each crop, override and relation); a different stamp reads them again,
+ * so a change made through any server process is seen by the next check in every other.
+ */
+interface CropNotes {
+  stamp: string;
+  crops: CheckContext['crops'];
+  relations: CheckContext['relations'];
+}
+const notesCache = new Map<number, CropNotes>();
+const NOTES_CACHE_CLUBS = 500;
+
+const stampSql = (table: string, where: string) =>
+  `(select md5(coalesce(string_agg(t.id::text || '@' || extract(epoch from t.updated_at)::text, ',' order by t.id), '')) from ${table} t where ${where})`;
+const overridesStampSql = `(select md5(coalesce(string_agg(o.crop_id::text || o.field || '@' || extract(epoch from o.updated_at)::text, ',' order by o.crop_id, o.field), '')) from crop_overrides o where o.club_id = s.club_id)`;
+
+async function cropNotes(db: Db, clubId: number, stamp: string): Promise<CropNotes> {
+  const hit = notesCache.get(clubId);
+  if (hit && hit.stamp === stamp) return hit;
+  const [cropRows, relations] = await Promise.all([
+    db('crops').where((q) => q.whereNull('club_id').orWhere({ club_id: clubId })).orderBy('id').select('id', 'data'),
+    db('crop_relations').where((q) => q.whereNull('club_id').orWhere({ club_id: clubId }))
       // The club's own relation for a pair comes last, so it replaces the reference one.
       .orderByRaw('(club_id is not null), id')
       .select('crop_a_id', 'crop_b_id', 'effect', 'distance_m', 'severity', 'reason', 'evidence', 'source'),
-    db('seasons').where({ club_id: site.club_id }).select('id', 'year'),
   ]);
-  const effective = await withClubOverrides(db, site.club_id, cropRows as { id: number; data: Record<string, unknown> }[]);
+  const effective = await withClubOverrides(db, clubId, cropRows as { id: number; data: Record<string, unknown> }[]);
+  const notes: CropNotes = {
+    stamp,
+    crops: new Map(cropRows.map((c: { id: number }) => [c.id, { id: c.id, data: effective.get(c.id) as unknown as Crop }])),
+    relations: relations.map((r: Record<string, unknown>) => ({
+      cropA: r.crop_a_id as number,
+      cropB: r.crop_b_id as number,
+      effect: r.effect as 'beneficial' | 'antagonistic',
+      distanceM: num(r.distance_m),
+      severity: (r.severity as 'clash' | 'watch' | null) ?? null,
+      reason: r.reason as string,
+      evidence: r.evidence as 'research' | 'common_practice',
+      source: r.source as string,
+    })),
+  };
+  if (notesCache.size >= NOTES_CACHE_CLUBS) notesCache.clear();
+  notesCache.set(clubId, notes);
+  return notes;
+}
+
+/** Which plots' plantings a check needs: all of the site, or the plots around some (one or two rings of neighbours). */
+export interface CheckScope {
+  plotIds: Iterable<number>;
+  /** 1: the plots and their neighbours (a dry run); 2: and the neighbours' neighbours (a re-check of the plots and their neighbours). */
+  rings: 1 | 2;
+}
+
+/**
+ * What the check needs for a site and its club, in a fixed number of queries whatever the site's size:
+ * the site (with the club's seasons and the stamp of its crop notes), its plots, then the plantings
+ * and soil-borne observations (only around the given plots, with a scope), and the crop notes when
+ * their stamp has changed since this process last read them.
+ */
+export async function loadCheckContext(db: Db, siteId: number, scope?: CheckScope): Promise<CheckContext & { clubId: number; seasonIds: Map<number, number> }> {
+  const site: SiteRow | undefined = await db('sites as s')
+    .join('clubs as c', 'c.id', 's.club_id')
+    .where('s.id', siteId)
+    .first(
+      's.id', 's.club_id', 's.latitude', 's.path_width_m', 's.last_spring_frost', 's.first_autumn_frost', 's.soil_temps_c', 'c.rotation_gap_years',
+      db.raw("(select coalesce(json_agg(json_build_object('id', se.id, 'year', se.year)), '[]') from seasons se where se.club_id = s.club_id) as seasons"),
+      db.raw(`${stampSql('crops', 't.club_id is null or t.club_id = s.club_id')} || ${stampSql('crop_relations', 't.club_id is null or t.club_id = s.club_id')} || ${overridesStampSql} as notes_stamp`),
+    );
+  if (!site) throw notFound('The site');
+  const plots = await db('plots').where({ site_id: siteId }).whereNull('deleted_at').orderBy('id')
+    .select('id', 'label', 'x_m', 'y_m', 'width_m', 'length_m', 'rotation', 'kind', 'soil_depth_m', 'soil_ph');
+  const checkPlots = plots.map((p: Record<string, unknown>) => ({
+    id: p.id as number,
+    label: p.label as string,
+    x: Number(p.x_m),
+    y: Number(p.y_m),
+    width: Number(p.width_m),
+    length: Number(p.length_m),
+    rotation: (Number(p.rotation) === 90 ? 90 : 0) as 0 | 90,
+    kind: p.kind as CheckContext['plots'][number]['kind'],
+    soilDepthM: num(p.soil_depth_m),
+    soilPh: num(p.soil_ph),
+  }));
+  const within = scope ? [...ringsOf(checkPlots, Number(site.path_width_m), scope.plotIds, scope.rings)] : null;
+  const onPlots = <T extends Knex.QueryBuilder>(q: T, column: string): T => (within ? (q.whereIn(column, within) as T) : q);
+  const [plantings, observations, notes] = await Promise.all([
+    onPlots(
+      db('plantings as pl').join('plots as p', 'p.id', 'pl.plot_id').join('seasons as se', 'se.id', 'pl.season_id')
+        .where('p.site_id', siteId).whereNull('p.deleted_at').orderBy('pl.id')
+        .select('pl.id', 'pl.plot_id', 'se.year', 'pl.crop_id', 'pl.part_x_m', 'pl.part_y_m', 'pl.part_width_m', 'pl.part_length_m', 'pl.method', 'pl.planted_on', 'pl.status'),
+      'pl.plot_id',
+    ),
+    onPlots(
+      db('observations as o').join('plots as p', 'p.id', 'o.plot_id')
+        .where({ 'p.site_id': siteId, 'o.is_soil_borne': true }).whereNull('p.deleted_at').orderBy('o.id')
+        .select('o.id', 'o.plot_id', 'o.planting_id', 'o.pest_slug', 'o.name', 'o.is_soil_borne', 'o.part_x_m', 'o.part_y_m', 'o.part_width_m', 'o.part_length_m', 'o.observed_on'),
+      'o.plot_id',
+    ),
+    cropNotes(db, site.club_id, site.notes_stamp),
+  ]);
   return {
     clubId: site.club_id,
-    seasonIds: new Map(seasons.map((s: { id: number; year: number }) => [s.year, s.id])),
+    seasonIds: new Map(site.seasons.map((se) => [se.year, se.id])),
     site: {
       id: site.id,
       latitude: Number(site.latitude),
@@ -75,18 +172,7 @@ export async function loadCheckContext(db: Db, siteId: number): Promise<CheckCon
       firstAutumnFrost: site.first_autumn_frost,
       soilTempsC: Array.isArray(site.soil_temps_c) && site.soil_temps_c.length === 12 ? (site.soil_temps_c as number[]) : null,
     },
-    plots: plots.map((p: Record<string, unknown>) => ({
-      id: p.id as number,
-      label: p.label as string,
-      x: Number(p.x_m),
-      y: Number(p.y_m),
-      width: Number(p.width_m),
-      length: Number(p.length_m),
-      rotation: Number(p.rotation) === 90 ? 90 : 0,
-      kind: p.kind as CheckContext['plots'][number]['kind'],
-      soilDepthM: num(p.soil_depth_m),
-      soilPh: num(p.soil_ph),
-    })),
+    plots: checkPlots,
     plantings: plantings.map((r: Record<string, unknown>) => ({
       id: r.id as number,
       plotId: r.plot_id as number,
@@ -107,17 +193,8 @@ export async function loadCheckContext(db: Db, siteId: number): Promise<CheckCon
       part: partOf(o as never),
       observedOn: o.observed_on as string,
     })),
-    crops: new Map(cropRows.map((c: { id: number }) => [c.id, { id: c.id, data: effective.get(c.id) as unknown as Crop }])),
-    relations: relations.map((r: Record<string, unknown>) => ({
-      cropA: r.crop_a_id as number,
-      cropB: r.crop_b_id as number,
-      effect: r.effect as 'beneficial' | 'antagonistic',
-      distanceM: num(r.distance_m),
-      severity: (r.severity as 'clash' | 'watch' | null) ?? null,
-      reason: r.reason as string,
-      evidence: r.evidence as 'research' | 'common_practice',
-      source: r.source as string,
-    })),
+    crops: notes.crops,
+    relations: notes.relations,
     rotationGapYears: site.rotation_gap_years,
     diseaseRules: diseaseRotationRules,
     eps: STORED_LENGTH_EPS,
@@ -185,8 +262,10 @@ export interface RecheckResult {
 export async function recheckSite(trx: Knex.Transaction | Knex, siteId: number, plotIds?: Iterable<number>): Promise<RecheckResult> {
   // One re-check of a site at a time: a second change waits, then reads what the first committed.
   await trx.raw('select pg_advisory_xact_lock(?, ?)', [FINDINGS_LOCK, siteId]);
-  const ctx = await loadCheckContext(trx, siteId);
-  const plots = plotIds ? affectedPlots(ctx, plotIds) : new Set(ctx.plots.map((p) => p.id));
+  const start = plotIds ? [...plotIds] : null;
+  // A re-check of some plots reads the plantings two rings out: their neighbours' findings name the neighbours' neighbours.
+  const ctx = await loadCheckContext(trx, siteId, start ? { plotIds: start, rings: 2 } : undefined);
+  const plots = start ? affectedPlots(ctx, start) : new Set(ctx.plots.map((p) => p.id));
   const fresh = checkPlots(ctx, plots);
   const stored: StoredFinding[] = plots.size
     ? await trx('findings').where({ site_id: siteId }).whereIn('plot_id', [...plots]).select(...FINDING_COLUMNS)
@@ -242,8 +321,14 @@ export async function recheckEverything(db: Knex): Promise<number> {
 
 /** A plot's neighbours as they stand now (for a plot about to move, so its old neighbours are re-checked too). */
 export async function neighbourPlotIds(db: Db, siteId: number, plotId: number): Promise<number[]> {
-  const ctx = await loadCheckContext(db, siteId);
-  return [...affectedPlots(ctx, [plotId])];
+  const site = await db('sites').where({ id: siteId }).first('path_width_m');
+  if (!site) throw notFound('The site');
+  const rows = await db('plots').where({ site_id: siteId }).whereNull('deleted_at').select('id', 'x_m', 'y_m', 'width_m', 'length_m', 'rotation');
+  const plots = rows.map((p: Record<string, unknown>) => ({
+    id: p.id as number, label: '', x: Number(p.x_m), y: Number(p.y_m), width: Number(p.width_m), length: Number(p.length_m),
+    rotation: (Number(p.rotation) === 90 ? 90 : 0) as 0 | 90, kind: 'in_ground' as const, soilDepthM: null, soilPh: null,
+  }));
+  return [...ringsOf(plots, Number(site.path_width_m), [plotId], 1)];
 }
 
 /** Clash findings stored for a planting, by key. */
@@ -333,13 +418,15 @@ export async function listFindings(
 
 /** A draft planting's findings, by the same rules and data as the saved check. */
 export async function dryRun(db: Db, siteId: number, draft: CheckPlanting): Promise<Finding[]> {
-  const ctx = await loadCheckContext(db, siteId);
+  const ctx = await loadCheckContext(db, siteId, { plotIds: [draft.plotId], rings: 1 });
+  // The club's crop notes are in the context: a crop outside them is the same 400 as on saving.
+  if (!ctx.crops.has(draft.cropId)) throw new AppError('validation_failed', 'That crop is not in the crop notes.', { cropId: 'Choose a crop from the crop notes' });
   return checkDraft(prepare(ctx), draft);
 }
 
 /** Every crop of the club tried on a plot (or part) on a date, best first. */
 export async function fitsFor(db: Db, opts: { siteId: number; plotId: number; seasonYear: number; part: PartRect | null; date: string }) {
-  const ctx = await loadCheckContext(db, opts.siteId);
+  const ctx = await loadCheckContext(db, opts.siteId, { plotIds: [opts.plotId], rings: 1 });
   const ranked = whatFits(ctx, opts);
   return ranked.map((item) => {
     const crop = ctx.crops.get(item.cropId)!.data;

@@ -6,7 +6,6 @@ import type { Db } from '../db/knex';
 import { listFindings } from './findings';
 import { clubTimeZone } from './clubs';
 import { listHarvestRows, toHarvest } from './harvests';
-import { rolesInClub } from './memberships';
 import { listObservations } from './observations';
 import { loadPlantings, type SiteClimate } from './plantings';
 
@@ -40,25 +39,43 @@ export interface PlotBookAccess {
  * or, while every season is still ahead (a club's first spring round), the earliest of them.
  */
 export async function currentSeason(db: Db, clubId: number, now: Date = new Date()): Promise<{ id: number; year: number } | null> {
-  const year = Number(localToday(await clubTimeZone(db, clubId), now).slice(0, 4));
-  const started = await db('seasons').where({ club_id: clubId }).where('year', '<=', year).orderBy('year', 'desc').first('id', 'year');
-  if (started) return started;
-  return (await db('seasons').where({ club_id: clubId }).orderBy('year', 'asc').first('id', 'year')) ?? null;
+  const seasons: Array<{ id: number; year: number }> = await db('seasons').where({ club_id: clubId }).select('id', 'year');
+  return pickCurrentSeason(seasons, await clubTimeZone(db, clubId), now);
 }
 
-/** The club a plot-book record's plot belongs to is found from the plot; this loads that plot on a live site, or null. */
-async function livePlot(db: Db, plotId: number): Promise<PlotBookPlot | null> {
+/** The season "this season" means among a club's seasons (see currentSeason), without a query. */
+export function pickCurrentSeason(seasons: Array<{ id: number; year: number }>, timeZone: string, now: Date = new Date()) {
+  const year = Number(localToday(timeZone, now).slice(0, 4));
+  const byYear = [...seasons].sort((a, b) => a.year - b.year);
+  const started = byYear.filter((s) => s.year <= year);
+  return started.length ? started[started.length - 1] : (byYear[0] ?? null);
+}
+
+/**
+ * Decides whether a person may read (or, with `write`, change) a plot's book, throwing 404 for a plot
+ * that is gone or in a club they are not part of and 403 for a member the rule leaves out. One query
+ * reads the plot on a live site, the person's roles, the club's seasons and the seasons they hold it.
+ */
+export async function plotBookAccess(
+  db: Db,
+  opts: { plotId: number; userId: number; write: boolean; now?: Date },
+): Promise<PlotBookAccess> {
   const row = await db('plots as p')
     .join('sites as s', 's.id', 'p.site_id')
-    .where('p.id', plotId)
+    .join('clubs as c', 'c.id', 's.club_id')
+    .where('p.id', opts.plotId)
     .whereNull('p.deleted_at')
     .whereNull('s.archived_at')
     .first(
       'p.id', 'p.label', 'p.width_m', 'p.length_m', 'p.kind', 's.id as site_id', 's.club_id', 's.name as site_name', 's.units',
-      's.last_spring_frost', 's.first_autumn_frost', 's.soil_temps_c',
+      's.last_spring_frost', 's.first_autumn_frost', 's.soil_temps_c', 'c.time_zone', 'c.shares_plot_books',
+      db.raw("(select coalesce(array_agg(m.role::text), '{}') from memberships m where m.club_id = s.club_id and m.user_id = ?) as roles", [opts.userId]),
+      db.raw("(select coalesce(json_agg(json_build_object('id', se.id, 'year', se.year)), '[]') from seasons se where se.club_id = s.club_id) as seasons"),
+      db.raw("(select coalesce(array_agg(a.season_id), '{}') from allocations a where a.plot_id = p.id and a.user_id = ? and a.status = 'active') as held", [opts.userId]),
     );
-  if (!row) return null;
-  return {
+  const roles: string[] = row?.roles ?? [];
+  if (!row || roles.length === 0) throw notFound('The plot');
+  const plot: PlotBookPlot = {
     id: row.id,
     clubId: row.club_id,
     label: row.label,
@@ -74,29 +91,13 @@ async function livePlot(db: Db, plotId: number): Promise<PlotBookPlot | null> {
       soilTempsC: Array.isArray(row.soil_temps_c) && row.soil_temps_c.length === 12 ? (row.soil_temps_c as number[]) : null,
     },
   };
-}
-
-/**
- * Decides whether a person may read (or, with `write`, change) a plot's book, throwing 404 for a plot
- * that is gone or in a club they are not part of and 403 for a member the rule leaves out.
- */
-export async function plotBookAccess(
-  db: Db,
-  opts: { plotId: number; userId: number; write: boolean; now?: Date },
-): Promise<PlotBookAccess> {
-  const plot = await livePlot(db, opts.plotId);
-  const roles = plot ? await rolesInClub(db, plot.clubId, opts.userId) : [];
-  if (!plot || roles.length === 0) throw notFound('The plot');
-  const season = await currentSeason(db, plot.clubId, opts.now);
+  const season = pickCurrentSeason(row.seasons as Array<{ id: number; year: number }>, row.time_zone ?? 'UTC', opts.now);
   const isCoordinator = roles.includes('coordinator');
-  const holds =
-    season !== null &&
-    Boolean(await db('allocations').where({ season_id: season.id, plot_id: plot.id, user_id: opts.userId, status: 'active' }).first('id'));
+  const holds = season !== null && (row.held as number[]).includes(season.id);
   const canWrite = isCoordinator || holds;
   if (!canWrite) {
     if (opts.write) throw new AppError('forbidden', 'Only the plot’s holder this season and the coordinators can change its plot book.');
-    const club = await db('clubs').where({ id: plot.clubId }).first('shares_plot_books');
-    if (!club?.shares_plot_books) throw new AppError('forbidden', 'This club keeps each plot book to the plot’s holder and the coordinators.');
+    if (!row.shares_plot_books) throw new AppError('forbidden', 'This club keeps each plot book to the plot’s holder and the coordinators.');
   }
   return { plot, season, isCoordinator, canWrite };
 }

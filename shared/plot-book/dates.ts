@@ -1,10 +1,8 @@
-import { addDays, differenceInCalendarDays, format } from 'date-fns';
-import { TZDate } from '@date-fns/tz';
 import type { Crop, Range } from '../crops/types';
 import { expectedEmergence, type EmergenceEstimate } from './emergence';
 
 // A planting's dates are calendar dates ("YYYY-MM-DD", already in the site's time zone). They are
-// read as midnight UTC and added to with date-fns, so neither the machine's zone nor a DST change
+// counted as whole days since 1970-01-01 (UTC), so neither the machine’s zone nor a DST change
 // can move a day; no instant or local clock is involved.
 
 const CALENDAR_DATE = /^\d{4}-\d{2}-\d{2}$/;
@@ -19,27 +17,35 @@ export const THINNING_DAYS_AFTER_EMERGENCE = 7;
  */
 export const TRANSPLANT_AGE_DAYS = 42;
 
-function day(iso: string): TZDate {
-  if (!CALENDAR_DATE.test(iso)) throw new RangeError(`Not a calendar date: ${iso}`);
-  const [y, m, d] = iso.split('-').map(Number);
-  const date = new TZDate(y, m - 1, d, 'UTC');
-  if (date.getFullYear() !== y || date.getMonth() !== m - 1 || date.getDate() !== d) throw new RangeError(`Not a calendar date: ${iso}`);
-  return date;
+const DAY_MS = 86_400_000;
+
+// Calendar dates are counted as whole days since 1970-01-01 with Date.UTC: adding days is integer
+// arithmetic, so no zone or DST change can move a day. (Plain arithmetic rather than date-fns here:
+// the neighbour check works out thousands of planting dates per request, and a TZDate is slow to make.)
+function dayNumber(isoDate: string): number {
+  if (!CALENDAR_DATE.test(isoDate)) throw new RangeError(`Not a calendar date: ${isoDate}`);
+  const y = Number(isoDate.slice(0, 4));
+  const m = Number(isoDate.slice(5, 7));
+  const d = Number(isoDate.slice(8, 10));
+  const t = Date.UTC(y, m - 1, d);
+  const back = new Date(t);
+  if (back.getUTCFullYear() !== y || back.getUTCMonth() !== m - 1 || back.getUTCDate() !== d) throw new RangeError(`Not a calendar date: ${isoDate}`);
+  return t / DAY_MS;
 }
 
-function iso(date: TZDate): string {
-  return format(date, 'yyyy-MM-dd');
+function isoOf(dayNo: number): string {
+  return new Date(dayNo * DAY_MS).toISOString().slice(0, 10);
 }
 
 /** The calendar date `days` after `isoDate` (negative goes back), as YYYY-MM-DD. */
 export function plusDays(isoDate: string, days: number): string {
   if (!Number.isInteger(days)) throw new RangeError(`Whole days only, got ${days}`);
-  return iso(addDays(day(isoDate), days));
+  return isoOf(dayNumber(isoDate) + days);
 }
 
 /** Whole calendar days from `from` to `to` (negative when `to` is earlier). */
 export function daysBetween(from: string, to: string): number {
-  return differenceInCalendarDays(day(to), day(from));
+  return dayNumber(to) - dayNumber(from);
 }
 
 // A site's frost dates are averages that recur each year, so only their month and day count
@@ -47,13 +53,14 @@ export function daysBetween(from: string, to: string): number {
 // September and autumn frost in April work without knowing the hemisphere.
 /** The first date on or after `onOrAfter` that has the month and day of `frostDate`. */
 export function nextOccurrence(frostDate: string, onOrAfter: string): string {
-  const frost = day(frostDate);
-  const from = day(onOrAfter);
-  for (let y = from.getFullYear(); ; y += 1) {
-    const m = frost.getMonth();
-    const lastOfMonth = new TZDate(y, m + 1, 0, 'UTC').getDate();
-    const candidate = new TZDate(y, m, Math.min(frost.getDate(), lastOfMonth), 'UTC');
-    if (candidate.getTime() >= from.getTime()) return iso(candidate);
+  dayNumber(frostDate);
+  const m = Number(frostDate.slice(5, 7)) - 1;
+  const d = Number(frostDate.slice(8, 10));
+  const from = dayNumber(onOrAfter);
+  for (let y = Number(onOrAfter.slice(0, 4)); ; y += 1) {
+    const lastOfMonth = new Date(Date.UTC(y, m + 1, 0)).getUTCDate();
+    const candidate = Date.UTC(y, m, Math.min(d, lastOfMonth)) / DAY_MS;
+    if (candidate >= from) return isoOf(candidate);
   }
 }
 
@@ -108,7 +115,7 @@ function windowFrom(start: string, range: Range, extra = 0): DateWindow {
  */
 export function plantingDates(input: PlantingInput): PlantingDates {
   const { crop, method, date } = input;
-  day(date);
+  dayNumber(date);
   const warnings: PlantingWarning[] = [];
 
   let emergence: PlantingDates['emergence'] = null;

@@ -25,12 +25,14 @@ describe('the plot book', () => {
     await w.shot('plot-book-phone');
 
     await w.page.getByRole('button', { name: 'Add a planting' }).click();
-    await w.page.getByLabel('Find a crop').fill('rad');
-    await w.page.getByLabel('Crop', { exact: true }).selectOption({ label: 'Radish' });
-    await w.page.getByLabel('Variety (optional)').fill('Sparkler');
-    await w.page.getByLabel('The whole plot').uncheck();
+    // The planting form sits in this season's plantings; "what fits here" has a part picker of its own.
+    const form = w.page.getByRole('region', { name: 'Plantings in 2026' });
+    await form.getByLabel('Find a crop').fill('rad');
+    await form.getByLabel('Crop', { exact: true }).selectOption({ label: 'Radish' });
+    await form.getByLabel('Variety (optional)').fill('Sparkler');
+    await form.getByLabel('The whole plot').uncheck();
     // Draw the part with a real pointer: press near the top-left of the plot drawing, drag, let go.
-    const drawing = w.page.getByRole('img', { name: /^Plot drawing: the part marked is/ });
+    const drawing = form.getByRole('img', { name: /^Plot drawing: the part marked is/ });
     await drawing.scrollIntoViewIfNeeded();
     const box = (await drawing.boundingBox())!;
     await w.page.mouse.move(box.x + box.width * 0.1, box.y + box.height * 0.55);
@@ -38,19 +40,19 @@ describe('the plot book', () => {
     for (let i = 1; i <= 8; i++) await w.page.mouse.move(box.x + box.width * (0.1 + 0.05 * i), box.y + box.height * (0.55 + 0.04 * i));
     await w.page.mouse.up();
     // The boxes follow the drag: the starting half-plot (1.5 × 3 m at the corner) has moved and changed.
-    const widthBox = w.page.getByLabel('Width (m)');
+    const widthBox = form.getByLabel('Width (m)');
     const drawn = {
       width: Number(await widthBox.inputValue()),
-      length: Number(await w.page.getByLabel('Length (m)').inputValue()),
-      x: Number(await w.page.getByLabel('From the left (m)').inputValue()),
-      y: Number(await w.page.getByLabel('From the top (m)').inputValue()),
+      length: Number(await form.getByLabel('Length (m)').inputValue()),
+      x: Number(await form.getByLabel('From the left (m)').inputValue()),
+      y: Number(await form.getByLabel('From the top (m)').inputValue()),
     };
     expect(drawn.y).toBeGreaterThan(2);
     expect(drawn.length).not.toBe(3);
-    await w.page.getByLabel('Date', { exact: false }).first().fill('2026-09-01');
-    await w.page.getByLabel('Rows (optional)').fill('3');
+    await form.getByLabel('Date', { exact: false }).first().fill('2026-09-01');
+    await form.getByLabel('Rows (optional)').fill('3');
     await w.shot('plot-book-new-planting-phone');
-    await w.page.getByRole('button', { name: 'Save the planting' }).click();
+    await form.getByRole('button', { name: 'Save the planting' }).click();
     await w.page.getByText('Radish ‘Sparkler’ saved. Its dates are below.').waitFor();
 
     // The saved row is the part that was drawn, inside the plot.
