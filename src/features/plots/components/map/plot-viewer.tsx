@@ -4,8 +4,7 @@ import { footprint, type Rect, type UnitSystem } from '@shared/geometry';
 import type { Plot } from '@shared/schemas/plots';
 import { Button } from '@/components/ui/button';
 import { useElementWidth } from '../../hooks/use-element-width';
-import { kindClasses } from './plot-shape';
-import { ScaleBar } from './scale-bar';
+import { kindClasses, MapBearings } from './map-canvas';
 
 export interface PlotViewerProps {
   site: { name: string; width: number; length: number; units: UnitSystem };
@@ -199,10 +198,7 @@ export function PlotViewer({ site, plots, yourPlotId }: PlotViewerProps) {
           </div>
         )}
       </div>
-      <div className="flex flex-wrap items-end gap-4">
-        {scale > 0 && <ScaleBar scale={scale} units={site.units} />}
-        <span className="text-sm font-medium text-stone">North is up ↑</span>
-      </div>
+      <MapBearings scale={scale} units={site.units} />
     </div>
   );
 }
