@@ -26,6 +26,8 @@ type SiteFinding = FindingList['items'][number];
 export interface OverlayView {
   plots: Array<{ plot: Plot; rect: Rect }>;
   scale: number;
+  /** The canvas's width in px. */
+  width: number;
 }
 
 export interface NeighbourCheckOptions {
@@ -154,7 +156,7 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
     </div>
   );
 
-  const marks = ({ plots, scale }: OverlayView) =>
+  const marks = ({ plots, scale, width }: OverlayView) =>
     on && findings.data
       ? plots.flatMap(({ plot, rect }) => {
           const list = byPlot.get(plot.id);
@@ -170,12 +172,17 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
               aria-pressed={isChosen}
               aria-controls={panelId}
               data-finding-mark={plot.label}
-              onClick={() => choose(plot.id)}
+              onClick={() => {
+                choose(plot.id);
+                // On a phone the panel sits below the map: bring it into view (a no-op when it is already in view).
+                requestAnimationFrame(() => document.getElementById(panelId)?.scrollIntoView({ block: 'nearest' }));
+              }}
               onFocus={() => choose(plot.id)}
               className={`absolute z-[25] inline-flex h-7 items-center gap-1 rounded-full border-2 bg-white px-1.5 text-xs font-bold text-soil shadow ${
                 isChosen ? 'border-soil ring-2 ring-soil ring-offset-1' : 'border-soil/60'
               }`}
-              style={{ left: fp.maxX * scale, top: fp.minY * scale, transform: 'translate(-85%, -50%)' }}
+              // Inside the plot's north-east corner, so it never runs off the map's edge or over the resize grip (south-east).
+              style={{ right: width - fp.maxX * scale + 2, top: fp.minY * scale + 2 }}
             >
               {severityOrder
                 .filter((s) => counts[s] > 0)

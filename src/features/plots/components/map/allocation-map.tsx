@@ -228,7 +228,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
             plots={plots}
             renderPlot={(p) => <PlotTile plot={p} state={stateOf.get(p.id)} scale={scale} selected={p.id === selectedId} onSelect={() => setSelectedId(p.id)} />}
           >
-            {overlay?.marks?.({ plots: plotViews(plots), scale })}
+            {overlay?.marks?.({ plots: plotViews(plots), scale, width: site.width * scale })}
           </MapCanvas>
           <SmallPlotsKey plots={smallPlots} canZoom={false} />
           <div className="flex flex-wrap items-center justify-between gap-3">

@@ -25,11 +25,12 @@ export interface MapPlotView {
 
 /**
  * Something drawn over a map by a page that composes it (a feature the map does not know):
- * `marks` goes inside the canvas above the plots, in the canvas's pixels; `controls` above the
+ * `marks` goes inside the canvas above the plots, in the canvas's pixels (`width` is the
+ * canvas's, for marks placed from its right edge); `controls` above the
  * map; `panel` beside it; `legend` under the map's own legend.
  */
 export interface MapOverlay {
-  marks?(view: { plots: MapPlotView[]; scale: number }): ReactNode;
+  marks?(view: { plots: MapPlotView[]; scale: number; width: number }): ReactNode;
   controls?: ReactNode;
   panel?: ReactNode;
   legend?: ReactNode;

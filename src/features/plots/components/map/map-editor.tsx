@@ -433,7 +433,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
             }}
           >
             {canEdit && selected && <ResizeHandle plot={selected} rect={candidate(selected, drag)} scale={scale} />}
-            {overlay?.marks?.({ plots: plotViews(plots), scale })}
+            {overlay?.marks?.({ plots: plotViews(plots), scale, width: site.width * scale })}
           </MapCanvas>
         </DndContext>
         {/* Below the map, so it never moves the map under the pointer during a drag. */}
