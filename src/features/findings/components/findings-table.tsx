@@ -66,7 +66,7 @@ function columnsFor(clubId: number): ColumnDef<Row>[] {
       id: 'title',
       header: 'Finding',
       accessorFn: (f) => f.title,
-      cell: ({ row }) => <span className="block font-medium sm:min-w-40">{row.original.title}</span>,
+      cell: ({ row }) => <span className="block font-medium break-words sm:min-w-40">{row.original.title}</span>,
     },
     {
       id: 'message',
@@ -76,7 +76,7 @@ function columnsFor(clubId: number): ColumnDef<Row>[] {
       cell: ({ row }) => {
         const caution = cautionFor(row.original.title, row.original.message);
         return (
-          <span className="block sm:min-w-72">
+          <span className="block break-words sm:min-w-72">
             {row.original.message}
             {row.original.peers.length > 0 && (
               <span className="mt-1 block text-sm text-stone">
@@ -95,7 +95,7 @@ function columnsFor(clubId: number): ColumnDef<Row>[] {
       cell: ({ row }) => {
         const { source } = row.original;
         return (
-          <span className="block sm:min-w-40">
+          <span className="block break-words sm:min-w-40">
             {source.url ? (
               <a href={source.url} target="_blank" rel="noreferrer">
                 {source.title}
@@ -112,7 +112,7 @@ function columnsFor(clubId: number): ColumnDef<Row>[] {
       id: 'kept',
       header: 'Kept because',
       accessorFn: (f) => f.keptReason ?? '',
-      cell: ({ row }) => <span className="block sm:min-w-40">{row.original.keptReason ?? '—'}</span>,
+      cell: ({ row }) => <span className="block break-words sm:min-w-40">{row.original.keptReason ?? '—'}</span>,
     },
   ];
 }

@@ -18,7 +18,7 @@ import { useSitePlots } from '../../api/get-site-plots';
 import { useUpdatePlot } from '../../api/update-plot';
 import { MapLegend } from './map-legend';
 import { dragIdParts, movedWords, resizedWords } from './drag-words';
-import { MapBearings, MapCanvas, plotViews, tooSmallToLabel, useMapScale, type MapOverlay } from './map-canvas';
+import { MapBearings, MapCanvas, plotViews, rectOf, tooSmallToLabel, useMapScale, type MapOverlay } from './map-canvas';
 import { clampToSite, defaultPlotSize, findFreeSpot, nextLabel, spansToSize } from './map-math';
 import { PlotInspector } from './plot-inspector';
 import { PlotShape, ResizeHandle, type PlotMark } from './plot-shape';
@@ -64,10 +64,6 @@ const MIN_SIDE = 0.5;
 /** What the Alt + arrow step is in metres: 1 m, or 3 ft on a site measured in feet. */
 function bigStep(units: Site['units']): number {
   return units === 'us' ? feetToMetres(3) : 1;
-}
-
-function rectOf(p: Plot): Rect {
-  return { x: p.x, y: p.y, width: p.width, length: p.length, rotation: p.rotation };
 }
 
 /** The site map: plots to scale on the site's grid, moved and resized by pointer or keyboard, each change saved at once. */
