@@ -79,6 +79,15 @@ export function FindingCard({ finding, showPlot = false }: { finding: SiteFindin
   );
 }
 
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/** "5 findings on 3 plots in 2027: 1 clash, 4 to watch." or "Nothing found on this site's plantings in 2027." */
+function summary(items: SiteFinding[], plots: number, year: number | null | undefined): string {
+  const inYear = year ? ` in ${year}` : '';
+  if (items.length === 0) return `Nothing found on this site’s plantings${inYear}.`;
+  return `${plural(items.length, 'finding', 'findings')} on ${plural(plots, 'plot', 'plots')}${inYear}: ${countsSentence(countBySeverity(items))}.`;
+}
+
 /** The symbols of the neighbour check explained in our own words, with the marks as drawn on the map. */
 export function NeighbourCheckLegend() {
   const rows: Array<[ReactNode, string, string]> = [
@@ -151,7 +160,7 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
               ? 'Checking the plantings…'
               : findings.isError
                 ? ''
-                : `${findings.data.items.length} findings on ${byPlot.size} plots${shownYear ? ` in ${shownYear}` : ''}: ${countsSentence(countBySeverity(findings.data.items))}.`}
+                : summary(findings.data.items, byPlot.size, shownYear)}
       </p>
     </div>
   );
