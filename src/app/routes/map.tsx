@@ -26,7 +26,7 @@ export function MapRoute() {
   // Coordinators may lay the season's neighbour check over the map; nobody else asks for it.
   const check = useNeighbourCheckOverlay({
     siteId: shownSiteId,
-    seasonId: newest?.id ?? null,
+    seasonId: seasons.isPending ? undefined : (newest?.id ?? null),
     seasonYear: newest?.year,
     plotBookHref: (plotId) => paths.plotBook(club.clubId, plotId, newest?.year),
   });

@@ -32,8 +32,8 @@ export interface OverlayView {
 
 export interface NeighbourCheckOptions {
   siteId: number;
-  /** The season whose plantings are checked; null when the club has none (the toggle then says so). */
-  seasonId: number | null;
+  /** The season whose plantings are checked; null when the club has none (the toggle then says so), undefined while that is not known yet. */
+  seasonId: number | null | undefined;
   seasonYear?: number;
   /** The plot book of a plot for that season, linked from the panel. */
   plotBookHref?(plotId: number): string;
@@ -129,7 +129,7 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
   const [on, setOn] = useState(false);
   const [chosen, setChosen] = useState<{ siteId: number; plotId: number } | null>(null);
   const panelId = useId();
-  const findings = useSiteFindings(siteId, seasonId, on);
+  const findings = useSiteFindings(siteId, seasonId ?? null, on);
   const chosenId = chosen?.siteId === siteId ? chosen.plotId : null;
 
   const byPlot = useMemo(() => {
@@ -144,7 +144,7 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
 
   const controls = (
     <div className="flex flex-wrap items-center gap-3">
-      <Button variant="secondary" aria-pressed={on} disabled={seasonId === null} onClick={() => setOn((v) => !v)}>
+      <Button variant="secondary" aria-pressed={on} disabled={seasonId == null} onClick={() => setOn((v) => !v)}>
         <ScanSearch className="size-5" aria-hidden="true" />
         Show neighbour check
         <span className={`rounded-full px-2 text-sm ${on ? 'bg-leaf text-white' : 'bg-paper-200'}`} aria-hidden="true">
