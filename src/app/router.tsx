@@ -75,6 +75,7 @@ export const router = createBrowserRouter([
               { path: 'crops', lazy: () => import('./routes/crops').then((m) => ({ Component: m.CropsRoute })) },
               { path: 'crops/:cropId', lazy: () => import('./routes/crop').then((m) => ({ Component: m.CropRoute })) },
               { path: 'harvests', lazy: () => import('./routes/harvests').then((m) => ({ Component: m.HarvestsRoute })) },
+              { path: 'findings', lazy: () => import('./routes/findings').then((m) => ({ Component: m.FindingsRoute })) },
               { path: 'map', lazy: () => import('./routes/map').then((m) => ({ Component: m.MapRoute })) },
               { path: 'fees', lazy: () => import('./routes/fees').then((m) => ({ Component: m.FeesRoute })) },
               {

@@ -8,6 +8,8 @@ const reasons = {
   people: "This page holds people's contact details, so only the club's coordinators see it.",
   settings: "Only the club's coordinators change its name, rules and fees. If something needs changing, tell one of them.",
   members: "Only the club's coordinators can see the member list and send invites. If something here needs changing, ask one of them.",
+  findings:
+    "The neighbour check of every plot in the club is for the club's coordinators. What it finds on your own plot is in your plot book.",
   'spring-round':
     "The spring round (renewals, the waiting list and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail.",
 } as const;

@@ -17,6 +17,8 @@ export const paths = {
   /** The club's harvest figures per crop; `year` picks a season. */
   harvests: (clubId: number, year?: number) => `/clubs/${clubId}/harvests${year ? `?year=${year}` : ''}`,
   springRound: (clubId: number) => `/clubs/${clubId}/spring-round`,
+  /** The coordinators' table of a season's neighbour check findings. */
+  findings: (clubId: number) => `/clubs/${clubId}/findings`,
   waitlist: (clubId: number) => `/clubs/${clubId}/waitlist`,
   messages: (clubId: number) => `/clubs/${clubId}/messages`,
   outgoingMail: (clubId: number) => `/clubs/${clubId}/outgoing-mail`,

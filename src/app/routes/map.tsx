@@ -4,6 +4,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
+import { useNeighbourCheckOverlay } from '@/features/findings/components/neighbour-check-overlay';
 import { MapEditor } from '@/features/plots/components/map/map-editor';
 import { useSites } from '@/features/sites/api/get-sites';
 import { usePlotStates } from '@/features/spring-round/api/get-plot-states';
@@ -22,6 +23,13 @@ export function MapRoute() {
   const wantedSite = Number(params.get('site'));
   const shownSiteId = sites.data ? (sites.data.items.find((s) => s.id === wantedSite) ?? sites.data.items[0])?.id ?? 0 : 0;
   const states = usePlotStates(newest?.id ?? null, shownSiteId);
+  // Coordinators may lay the season's neighbour check over the map; nobody else asks for it.
+  const check = useNeighbourCheckOverlay({
+    siteId: shownSiteId,
+    seasonId: seasons.isPending ? undefined : (newest?.id ?? null),
+    seasonYear: newest?.year,
+    plotBookHref: (plotId) => paths.plotBook(club.clubId, plotId, newest?.year),
+  });
 
   if (sites.isPending) return <LoadingState label="Loading the sites…" />;
   if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
@@ -83,6 +91,7 @@ export function MapRoute() {
         initialPlotId={Number(params.get('plot')) || null}
         seasonStates={states.data?.items}
         seasonYear={newest?.year}
+        overlay={canEdit ? check.overlay : undefined}
         plotHref={(plotId) => paths.plot(club.clubId, plotId)}
       />
     </div>

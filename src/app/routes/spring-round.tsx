@@ -6,6 +6,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { PageHeader } from '@/components/ui/page-header';
 import { LoadingState } from '@/components/ui/spinner';
+import { useNeighbourCheckOverlay } from '@/features/findings/components/neighbour-check-overlay';
 import { AllocationMap, type AllocationPerson } from '@/features/plots/components/map/allocation-map';
 import { useClubSettings } from '@/features/club-settings/api/get-club-settings';
 import { useSites } from '@/features/sites/api/get-sites';
@@ -32,6 +33,12 @@ function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; s
   const waiting = useWaitingPeople(clubId);
   const offer = useCreateOffer(season.id, () => waiting.refetch());
   const withdraw = useWithdrawOffer(() => waiting.refetch());
+  const check = useNeighbourCheckOverlay({
+    siteId: site.id,
+    seasonId: season.id,
+    seasonYear: season.year,
+    plotBookHref: (plotId) => paths.plotBook(clubId, plotId, season.year),
+  });
   if (states.isPending || waiting.isPending) return <LoadingState label="Loading the season…" />;
   if (states.isError) return <ErrorState title="The season could not be loaded" message={states.error.message} onRetry={() => void states.refetch()} />;
   if (waiting.isError) return <ErrorState title="The waiting list could not be loaded" message={waiting.error.message} onRetry={() => void waiting.refetch()} />;
@@ -61,6 +68,7 @@ function SeasonMap({ clubId, season, site }: { clubId: number; season: Season; s
       onQuote={(plotId, applicationId) => getOfferQuote(season.id, plotId, applicationId)}
       onOffer={(plotId, applicationId) => offer.mutateAsync({ plotId, applicationId })}
       onWithdraw={(offerId) => withdraw.mutateAsync(offerId)}
+      overlay={check.overlay}
     />
   );
 }

@@ -14,7 +14,7 @@ import {
 import { Accessibility, GripVertical, Hourglass, UserRound } from 'lucide-react';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { footprint, formatArea, formatLength } from '@shared/geometry';
+import { formatArea, formatLength } from '@shared/geometry';
 import { plotKindLabels, type Plot } from '@shared/schemas/plots';
 import { formatMoney } from '@shared/fees/compute';
 import { plotSeasonStatusLabels, type OfferQuote, type PlotSeasonState, type PlotSeasonStatus } from '@shared/schemas/seasons';
@@ -30,12 +30,10 @@ import { NoticeToast, type Notice } from '@/components/ui/notice-toast';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { useSitePlots } from '../../api/get-site-plots';
-import { useElementWidth } from '../../hooks/use-element-width';
 import { dragIdParts } from './drag-words';
-import { kindClasses, shownOnTile, tileText, TileText } from './plot-shape';
+import { MapBearings, MapCanvas, plotViews, PlotTileView, rectOf, tooSmallToLabel, useMapScale, type MapOverlay } from './map-canvas';
 import { SmallPlotsKey } from './small-plots-key';
-import { plotName, statusClasses, statusWord } from './season-status';
-import { ScaleBar } from './scale-bar';
+import { seasonPerson, statusClasses, statusWord } from './season-status';
 import { LocalDate } from '@/lib/time-zone';
 
 /** Someone on the waiting list, as the allocation map shows them. */
@@ -54,6 +52,8 @@ export interface AllocationMapProps {
   onQuote(plotId: number, personId: number): Promise<OfferQuote>;
   onOffer(plotId: number, personId: number): Promise<unknown>;
   onWithdraw(offerId: number): Promise<unknown>;
+  /** Drawn over the map by the page (the coordinator's neighbour check). */
+  overlay?: MapOverlay;
 }
 
 
@@ -64,30 +64,22 @@ function fits(person: AllocationPerson, plot: Plot, siteId: number) {
 function PlotTile({ plot, state, scale, selected, onSelect }: { plot: Plot; state: PlotSeasonState | undefined; scale: number; selected: boolean; onSelect(): void }) {
   const status = state?.status ?? 'free';
   const { setNodeRef, isOver } = useDroppable({ id: `plot:${plot.id}`, disabled: status !== 'free' || plot.kind === 'shared_bed' });
-  const fp = footprint(plot);
-  const w = (fp.maxX - fp.minX) * scale;
-  const h = (fp.maxY - fp.minY) * scale;
-  const who = state?.holder?.name ?? state?.offer?.name ?? state?.renewal?.name ?? null;
-  const word = statusWord(status, who, plot.kind);
-  const text = tileText(plot, word, w, h, 14);
-  const name = plotName(plot.label, status, who, plot.kind);
   return (
-    <button
+    <PlotTileView
+      as="button"
       ref={setNodeRef}
       type="button"
+      plot={plot}
+      rect={rectOf(plot)}
+      scale={scale}
+      status={status}
+      who={seasonPerson(state)}
+      maxPx={14}
       onClick={onSelect}
       aria-pressed={selected}
-      aria-label={name}
-      title={name}
-      data-plot-label={plot.label}
       data-drop-over={isOver ? 'true' : undefined}
-      className={`absolute flex flex-col items-center justify-center overflow-hidden text-soil ${kindClasses[plot.kind]} ${statusClasses[status]} ${
-        selected ? 'z-20 ring-4 ring-leaf' : ''
-      } ${isOver ? 'z-20 ring-4 ring-water' : ''}`}
-      style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: text.px }}
-    >
-      <TileText label={plot.label} word={word} layout={text.layout} />
-    </button>
+      className={`${selected ? 'z-20 ring-4 ring-leaf' : ''} ${isOver ? 'z-20 ring-4 ring-water' : ''}`}
+    />
   );
 }
 
@@ -123,9 +115,9 @@ function PersonChip({ person, suggested, fitsSelected, describedBy }: { person: 
 }
 
 /** The spring-round map: plots coloured and labelled by their status, and the waiting list to drag onto free plots. */
-export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer, onWithdraw }: AllocationMapProps) {
+export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer, onWithdraw, overlay }: AllocationMapProps) {
   const plotsQuery = useSitePlots(site.id);
-  const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
+  const [wrapRef, scale] = useMapScale(site.width, { fallbackFit: 600 / site.width });
   const [selectedId, setSelectedId] = useState<number | null>(null);
   const [choice, setChoice] = useState<string>('');
   const [dragging, setDragging] = useState<AllocationPerson | null>(null);
@@ -140,7 +132,6 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
   const selected = plots.find((p) => p.id === selectedId) ?? null;
   const selectedState = selected ? stateOf.get(selected.id) : undefined;
   const suggested = selected && selectedState?.status === 'free' ? suggestApplicant({ ...selected, siteId: site.id }, people) : null;
-  const scale = Math.max(2, (wrapWidth ? wrapWidth - 2 : 600) / site.width);
 
   /** First step of an offer (drop or menu): fetch what it would say and ask before anything is sent. */
   async function askToOffer(plotId: number, personId: number) {
@@ -202,11 +193,9 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
     { free: 0, renewal_pending: 0, offered: 0, taken: 0 },
   );
 
-  const smallPlots = plots.flatMap((p) => {
+  const smallPlots = tooSmallToLabel(plots, scale, 14, (p) => {
     const state = stateOf.get(p.id);
-    const who = state?.holder?.name ?? state?.offer?.name ?? state?.renewal?.name ?? null;
-    const word = statusWord(state?.status ?? 'free', who, p.kind);
-    return shownOnTile(p, p, scale, word, 14) ? [] : [{ label: p.label, word }];
+    return statusWord(state?.status ?? 'free', seasonPerson(state), p.kind);
   });
 
   return (
@@ -230,16 +219,20 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
             Drag a person from the waiting list onto a free plot to send them an offer, or select a plot and choose a person
             below the map.
           </p>
-          <div ref={wrapRef} className="overflow-auto rounded-xl border border-paper-300 bg-white">
-            <div className="map-grid relative" style={{ width: site.width * scale, height: site.length * scale, ['--grid-px' as string]: `${Math.max(site.grid * scale, 8)}px` }} role="group" aria-label={`Spring round map of ${site.name}`}>
-              {plots.map((p) => (
-                <PlotTile key={p.id} plot={p} state={stateOf.get(p.id)} scale={scale} selected={p.id === selectedId} onSelect={() => setSelectedId(p.id)} />
-              ))}
-            </div>
-          </div>
+          {overlay?.controls}
+          <MapCanvas
+            site={site}
+            scale={scale}
+            frameRef={wrapRef}
+            label={`Spring round map of ${site.name}`}
+            plots={plots}
+            renderPlot={(p) => <PlotTile plot={p} state={stateOf.get(p.id)} scale={scale} selected={p.id === selectedId} onSelect={() => setSelectedId(p.id)} />}
+          >
+            {overlay?.marks?.({ plots: plotViews(plots), scale, width: site.width * scale })}
+          </MapCanvas>
           <SmallPlotsKey plots={smallPlots} canZoom={false} />
           <div className="flex flex-wrap items-center justify-between gap-3">
-            <ScaleBar scale={scale} units={site.units} />
+            <MapBearings scale={scale} units={site.units} />
             <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Plot status legend">
               {(Object.keys(statusClasses) as PlotSeasonStatus[]).map((s) => (
                 <li key={s} className="flex items-center gap-1.5">
@@ -249,6 +242,7 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
               ))}
             </ul>
           </div>
+          {overlay?.legend}
           {selected && (
             <Card className="space-y-3 p-4">
               <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -309,29 +303,32 @@ export function AllocationMap({ site, states, people, plotHref, onQuote, onOffer
             </Card>
           )}
         </div>
-        <Card className="h-fit min-w-0 p-4 lg:sticky lg:top-4">
-          <h2 className="flex items-center gap-2 text-xl font-semibold">
-            <UserRound className="size-5" aria-hidden="true" /> Waiting list
-          </h2>
-          <p className="mb-3 text-sm text-stone">
-            In order of application. {suggested ? `For plot ${selected?.label}, the next who fits is ${suggested.name}.` : 'Select a free plot to see who fits it.'}
-          </p>
-          {people.length === 0 ? (
-            <p className="text-stone">Nobody is waiting for a plot.</p>
-          ) : (
-            <ul className="max-h-[32rem] space-y-2 overflow-y-auto pr-1" aria-label="People waiting for a plot">
-              {people.map((p) => (
-                <PersonChip
-                  key={p.id}
-                  person={p}
-                  suggested={p.id === suggested?.id}
-                  describedBy={`drag-help-${site.id}`}
-                  fitsSelected={selected && selectedState?.status === 'free' ? fits(p, selected, site.id) : null}
-                />
-              ))}
-            </ul>
-          )}
-        </Card>
+        <div className="h-fit min-w-0 space-y-4 lg:sticky lg:top-4">
+          {overlay?.panel}
+          <Card className="min-w-0 p-4">
+            <h2 className="flex items-center gap-2 text-xl font-semibold">
+              <UserRound className="size-5" aria-hidden="true" /> Waiting list
+            </h2>
+            <p className="mb-3 text-sm text-stone">
+              In order of application. {suggested ? `For plot ${selected?.label}, the next who fits is ${suggested.name}.` : 'Select a free plot to see who fits it.'}
+            </p>
+            {people.length === 0 ? (
+              <p className="text-stone">Nobody is waiting for a plot.</p>
+            ) : (
+              <ul className="max-h-[32rem] space-y-2 overflow-y-auto pr-1" aria-label="People waiting for a plot">
+                {people.map((p) => (
+                  <PersonChip
+                    key={p.id}
+                    person={p}
+                    suggested={p.id === suggested?.id}
+                    describedBy={`drag-help-${site.id}`}
+                    fitsSelected={selected && selectedState?.status === 'free' ? fits(p, selected, site.id) : null}
+                  />
+                ))}
+              </ul>
+            )}
+          </Card>
+        </div>
       </div>
       <Dialog
         open={confirming !== null}

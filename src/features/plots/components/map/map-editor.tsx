@@ -16,15 +16,14 @@ import { useDeletePlot } from '../../api/delete-plot';
 import { useSiteNeighbours } from '../../api/get-site-neighbours';
 import { useSitePlots } from '../../api/get-site-plots';
 import { useUpdatePlot } from '../../api/update-plot';
-import { useElementWidth } from '../../hooks/use-element-width';
 import { MapLegend } from './map-legend';
 import { dragIdParts, movedWords, resizedWords } from './drag-words';
+import { MapBearings, MapCanvas, plotViews, rectOf, tooSmallToLabel, useMapScale, type MapOverlay } from './map-canvas';
 import { clampToSite, defaultPlotSize, findFreeSpot, nextLabel, spansToSize } from './map-math';
 import { PlotInspector } from './plot-inspector';
-import { PlotShape, ResizeHandle, shownOnTile, type PlotMark } from './plot-shape';
-import { statusWord } from './season-status';
+import { PlotShape, ResizeHandle, type PlotMark } from './plot-shape';
+import { seasonPerson, statusWord } from './season-status';
 import { SmallPlotsKey } from './small-plots-key';
-import { ScaleBar } from './scale-bar';
 
 export interface MapEditorProps {
   site: Site;
@@ -35,6 +34,8 @@ export interface MapEditorProps {
   /** The newest season's status of each plot, to show who holds what. */
   seasonStates?: PlotSeasonState[];
   seasonYear?: number;
+  /** Drawn over the map by the page (the coordinator's neighbour check). */
+  overlay?: MapOverlay;
 }
 
 interface DragState {
@@ -65,12 +66,8 @@ function bigStep(units: Site['units']): number {
   return units === 'us' ? feetToMetres(3) : 1;
 }
 
-function rectOf(p: Plot): Rect {
-  return { x: p.x, y: p.y, width: p.width, length: p.length, rotation: p.rotation };
-}
-
 /** The site map: plots to scale on the site's grid, moved and resized by pointer or keyboard, each change saved at once. */
-export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seasonStates, seasonYear }: MapEditorProps) {
+export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seasonStates, seasonYear, overlay }: MapEditorProps) {
   const plotsQuery = useSitePlots(site.id);
   const neighboursQuery = useSiteNeighbours(site.id);
   const updatePlot = useUpdatePlot(site.id);
@@ -86,10 +83,7 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
   const [undoing, setUndoing] = useState(false);
   /** What the screen reader hears when a pointer drag ends, set by onDragEnd just before dnd-kit asks. */
   const dragEndWords = useRef<string | undefined>(undefined);
-  const [wrapRef, wrapWidth] = useElementWidth<HTMLDivElement>();
-
-  const fit = wrapWidth ? (wrapWidth - 2) / site.width : 16;
-  const scale = Math.min(200, Math.max(2, fit * zoom));
+  const [wrapRef, scale] = useMapScale(site.width, { zoom, maxScale: 200, fallbackFit: 16 });
   const grid = site.grid > 0 ? site.grid : 0.1;
   const [announcement, setAnnouncement] = useState('');
   // Pointer drags go through dnd-kit; keyboard moves are our own pick-up mode (below), because
@@ -337,11 +331,9 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
   const draggedRect = dragged ? candidate(dragged, drag) : null;
   const blocked = Boolean(dragged && draggedRect && plots.some((p) => p.id !== dragged.id && overlaps(draggedRect, rectOf(p))));
   const helpId = `map-help-${site.id}`;
-  const smallPlots = plots.flatMap((p) => {
+  const smallPlots = tooSmallToLabel(plots, scale, 15, (p) => {
     const season = seasonOf.get(p.id);
-    const who = season?.holder?.name ?? season?.offer?.name ?? season?.renewal?.name ?? null;
-    const word = season ? statusWord(season.status, who, p.kind) : null;
-    return shownOnTile(p, rectOf(p), scale, word, 15) ? [] : [{ label: p.label, word }];
+    return season ? statusWord(season.status, seasonPerson(season), p.kind) : null;
   });
 
   return (
@@ -384,129 +376,114 @@ export function MapEditor({ site, canEdit, plotHref, initialPlotId = null, seaso
           {announcement}
         </p>
         <NoticeToast notice={notice} onDismiss={() => setNotice(null)} />
-        <div
-          ref={wrapRef}
-          className="overflow-auto rounded-xl border border-paper-300 bg-white"
-          onKeyDown={(e) => {
-            // Ctrl+Z (Cmd+Z on a Mac) while the map has focus takes back the last change.
-            if (canEdit && (e.ctrlKey || e.metaKey) && !e.shiftKey && !e.altKey && e.key.toLowerCase() === 'z' && !drag) {
-              e.preventDefault();
-              void undo();
-            }
+        {overlay?.controls}
+        {/* No auto-scroll: scrolling the page under a drag moved the plot further than the pointer and ran it off the map. */}
+        <DndContext
+          sensors={sensors}
+          autoScroll={false}
+          accessibility={{
+            announcements,
+            screenReaderInstructions: {
+              draggable:
+                'Drag the grip with a pointer to resize the plot. With the keyboard, Tab to the plot and press Shift with the arrow keys.',
+            },
           }}
+          onDragMove={onDragMove}
+          onDragEnd={onDragEnd}
+          onDragCancel={() => setDrag(null)}
         >
-          {/* No auto-scroll: scrolling the page under a drag moved the plot further than the pointer and ran it off the map. */}
-          <DndContext
-            sensors={sensors}
-            autoScroll={false}
-            accessibility={{
-              announcements,
-              screenReaderInstructions: {
-                draggable:
-                  'Drag the grip with a pointer to resize the plot. With the keyboard, Tab to the plot and press Shift with the arrow keys.',
-              },
+          <MapCanvas
+            site={site}
+            scale={scale}
+            frameRef={wrapRef}
+            label={`Map of ${site.name}`}
+            plots={plots}
+            onKeyDown={(e) => {
+              // Ctrl+Z (Cmd+Z on a Mac) while the map has focus takes back the last change.
+              if (canEdit && (e.ctrlKey || e.metaKey) && !e.shiftKey && !e.altKey && e.key.toLowerCase() === 'z' && !drag) {
+                e.preventDefault();
+                void undo();
+              }
             }}
-            onDragMove={onDragMove}
-            onDragEnd={onDragEnd}
-            onDragCancel={() => setDrag(null)}
-          >
-            <div
-              className="map-grid relative"
-              style={{
-                width: site.width * scale,
-                height: site.length * scale,
-                ['--grid-px' as string]: `${Math.max(grid * scale, 4) < 6 ? grid * scale * 10 : grid * scale}px`,
-              }}
-              aria-label={`Map of ${site.name}`}
-              role="group"
-            >
-              {site.background?.metresPerPixel && (
-                <img
-                  src={site.background.url}
-                  alt=""
-                  className="pointer-events-none absolute top-0 left-0 opacity-50 select-none"
-                  style={{ width: site.background.widthPx * site.background.metresPerPixel * scale }}
+            renderPlot={(p) => {
+              let mark: PlotMark = null;
+              if (drag?.plotId === p.id && blocked) mark = 'blocked';
+              else if (p.id === selectedId) mark = 'selected';
+              else if (neighbourIds.has(p.id)) mark = 'neighbour';
+              return (
+                <PlotShape
+                  plot={p}
+                  rect={candidate(p, drag)}
+                  scale={scale}
+                  mark={mark}
+                  canEdit={canEdit}
+                  describedBy={helpId}
+                  season={seasonOf.get(p.id)}
+                  onSelect={() => setSelectedId(p.id)}
+                  onBlur={() => {
+                    if (drag?.byKeyboard && drag.plotId === p.id) setDrag(null);
+                  }}
+                  onKeyCommand={(e) => onKeyCommand(p, e)}
                 />
-              )}
-              {plots.map((p) => {
-                const rect = candidate(p, drag);
-                let mark: PlotMark = null;
-                if (drag?.plotId === p.id && blocked) mark = 'blocked';
-                else if (p.id === selectedId) mark = 'selected';
-                else if (neighbourIds.has(p.id)) mark = 'neighbour';
-                return (
-                  <PlotShape
-                    key={p.id}
-                    plot={p}
-                    rect={rect}
-                    scale={scale}
-                    mark={mark}
-                    canEdit={canEdit}
-                    describedBy={helpId}
-                    season={seasonOf.get(p.id)}
-                    onSelect={() => setSelectedId(p.id)}
-                    onBlur={() => {
-                      if (drag?.byKeyboard && drag.plotId === p.id) setDrag(null);
-                    }}
-                    onKeyCommand={(e) => onKeyCommand(p, e)}
-                  />
-                );
-              })}
-              {canEdit && selected && <ResizeHandle plot={selected} rect={candidate(selected, drag)} scale={scale} />}
-            </div>
-          </DndContext>
-        </div>
+              );
+            }}
+          >
+            {canEdit && selected && <ResizeHandle plot={selected} rect={candidate(selected, drag)} scale={scale} />}
+            {overlay?.marks?.({ plots: plotViews(plots), scale, width: site.width * scale })}
+          </MapCanvas>
+        </DndContext>
         {/* Below the map, so it never moves the map under the pointer during a drag. */}
         <p className="min-h-6 font-medium text-clay-700" role="status">
           {blocked ? 'Here it would overlap another plot: plots may touch but not overlap.' : ''}
         </p>
         <SmallPlotsKey plots={smallPlots} canZoom />
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <div className="flex items-end gap-4">
-            <ScaleBar scale={scale} units={site.units} />
-            <span className="text-sm font-medium text-stone">North is up ↑</span>
-          </div>
+          <MapBearings scale={scale} units={site.units} />
           <span className="text-sm text-stone">
             {plots.length} plots · path width {site.units === 'us' ? `${Math.round((site.pathWidth / 0.3048) * 10) / 10} ft` : `${site.pathWidth} m`}
           </span>
         </div>
         <MapLegend seasonYear={seasonStates ? seasonYear : undefined} />
+        {overlay?.legend}
       </div>
-      <Card className="h-fit p-4 lg:sticky lg:top-4">
-        {selected ? (
-          <PlotInspector
-            key={`${selected.id}-${selected.version}`}
-            plot={selected}
-            units={site.units}
-            canEdit={canEdit}
-            neighbours={neighboursOfSelected}
-            plotHref={plotHref(selected.id)}
-            onSave={(changes) => save(selected, changes, 'change')}
-            onRotate={() => void save(selected, { rotation: selected.rotation === 0 ? 90 : 0 }, 'turn').catch(() => undefined)}
-            onDelete={async () => {
-              try {
-                await deletePlot.mutateAsync({ plotId: selected.id, version: selected.version });
-                setNotice({ tone: 'success', text: `Plot ${selected.label} was removed from the map.` });
-                setSelectedId(null);
-              } catch (err) {
-                setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The plot could not be removed.' });
-              }
-            }}
-          />
-        ) : plots.length === 0 ? (
-          <div>
-            <h2 className="text-xl font-semibold">An empty site</h2>
-            <p className="mt-1 text-stone">
-              {canEdit ? 'Add the first plot, or import a plan from a CSV file on the plots page.' : 'No plots have been drawn yet.'}
-            </p>
-          </div>
-        ) : (
-          <div>
-            <h2 className="text-xl font-semibold">No plot selected</h2>
-            <p className="mt-1 text-stone">Select a plot on the map to see its size, soil and neighbours.</p>
-          </div>
-        )}
-      </Card>
+      <div className="h-fit space-y-4 lg:sticky lg:top-4">
+        {overlay?.panel}
+        <Card className="p-4">
+          {selected ? (
+            <PlotInspector
+              key={`${selected.id}-${selected.version}`}
+              plot={selected}
+              units={site.units}
+              canEdit={canEdit}
+              neighbours={neighboursOfSelected}
+              plotHref={plotHref(selected.id)}
+              onSave={(changes) => save(selected, changes, 'change')}
+              onRotate={() => void save(selected, { rotation: selected.rotation === 0 ? 90 : 0 }, 'turn').catch(() => undefined)}
+              onDelete={async () => {
+                try {
+                  await deletePlot.mutateAsync({ plotId: selected.id, version: selected.version });
+                  setNotice({ tone: 'success', text: `Plot ${selected.label} was removed from the map.` });
+                  setSelectedId(null);
+                } catch (err) {
+                  setNotice({ tone: 'error', text: isApiError(err) ? err.message : 'The plot could not be removed.' });
+                }
+              }}
+            />
+          ) : plots.length === 0 ? (
+            <div>
+              <h2 className="text-xl font-semibold">An empty site</h2>
+              <p className="mt-1 text-stone">
+                {canEdit ? 'Add the first plot, or import a plan from a CSV file on the plots page.' : 'No plots have been drawn yet.'}
+              </p>
+            </div>
+          ) : (
+            <div>
+              <h2 className="text-xl font-semibold">No plot selected</h2>
+              <p className="mt-1 text-stone">Select a plot on the map to see its size, soil and neighbours.</p>
+            </div>
+          )}
+        </Card>
+      </div>
     </div>
   );
 }

@@ -1,11 +1,10 @@
 import { Crosshair, Minus, Plus } from 'lucide-react';
 import { useCallback, useEffect, useId, useMemo, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
-import { footprint, type Rect, type UnitSystem } from '@shared/geometry';
+import { footprint, type UnitSystem } from '@shared/geometry';
 import type { Plot } from '@shared/schemas/plots';
 import { Button } from '@/components/ui/button';
 import { useElementWidth } from '../../hooks/use-element-width';
-import { kindClasses } from './plot-shape';
-import { ScaleBar } from './scale-bar';
+import { kindClasses, MapBearings, plotBox, rectOf } from './map-canvas';
 
 export interface PlotViewerProps {
   site: { name: string; width: number; length: number; units: UnitSystem };
@@ -30,7 +29,6 @@ const PAN_STEP = 40;
 /** When the map opens, the reader's plot is drawn at least this many px on its short side (so its label reads). */
 const READABLE_SIDE = 72;
 
-const rectOf = (p: Plot): Rect => ({ x: p.x, y: p.y, width: p.width, length: p.length, rotation: p.rotation });
 const clampZoom = (z: number) => Math.min(MAX_ZOOM, Math.max(MIN_ZOOM, z));
 
 /**
@@ -171,9 +169,7 @@ export function PlotViewer({ site, plots, yourPlotId }: PlotViewerProps) {
             style={{ width: site.width * scale, height: site.length * scale, transform: `translate(${shown.x}px, ${shown.y}px)` }}
           >
             {plots.map((p) => {
-              const fp = footprint(rectOf(p));
-              const w = (fp.maxX - fp.minX) * scale;
-              const h = (fp.maxY - fp.minY) * scale;
+              const { w, h, style } = plotBox(rectOf(p), scale);
               const mine = p.id === yourPlotId;
               const fontPx = Math.max(10, Math.min(16, Math.min(w, h) / 3));
               return (
@@ -185,7 +181,7 @@ export function PlotViewer({ site, plots, yourPlotId }: PlotViewerProps) {
                   className={`absolute flex items-center justify-center overflow-visible text-soil ${kindClasses[p.kind]} ${
                     mine ? 'z-10 bg-straw-100 outline-4 outline-offset-2 outline-water' : 'bg-white/85'
                   }`}
-                  style={{ left: fp.minX * scale, top: fp.minY * scale, width: w, height: h, fontSize: fontPx }}
+                  style={{ ...style, fontSize: fontPx }}
                 >
                   {Math.min(w, h) >= 14 && <span className="max-w-full truncate px-0.5 leading-tight font-semibold">{p.label}</span>}
                   {mine && (
@@ -199,10 +195,7 @@ export function PlotViewer({ site, plots, yourPlotId }: PlotViewerProps) {
           </div>
         )}
       </div>
-      <div className="flex flex-wrap items-end gap-4">
-        {scale > 0 && <ScaleBar scale={scale} units={site.units} />}
-        <span className="text-sm font-medium text-stone">North is up ↑</span>
-      </div>
+      <MapBearings scale={scale} units={site.units} />
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import type { PlotSeasonStatus } from '@shared/schemas/seasons';
+import type { PlotSeasonState, PlotSeasonStatus } from '@shared/schemas/seasons';
 import { initials } from './map-math';
 
 // Fill and a word say a plot's season status, so it reads without colour too.
@@ -27,4 +27,9 @@ export function plotName(label: string, status: PlotSeasonStatus | null, who: st
   if (status === 'offered') return `Plot ${label} ${word}, to ${who ?? 'someone'}`;
   if (status === 'renewal_pending') return `Plot ${label} ${word}, waiting for ${who ?? 'the holder'} to keep or give it up`;
   return kind === 'shared_bed' ? `Plot ${label} ${word}, a shared bed` : `Plot ${label} ${word}`;
+}
+
+/** Who a plot's season status is about: the holder, else the person offered it, else the one asked to renew. */
+export function seasonPerson(state: Pick<PlotSeasonState, 'holder' | 'offer' | 'renewal'> | undefined): string | null {
+  return state?.holder?.name ?? state?.offer?.name ?? state?.renewal?.name ?? null;
 }
