@@ -15,6 +15,7 @@ import {
   countsSentence,
   evidenceLabel,
   kindLabels,
+  severityCount,
   severityLabels,
   severityOrder,
 } from '../lib/finding-words';
@@ -112,8 +113,8 @@ export function NeighbourCheckLegend() {
             <SeveritySymbol severity="clash" className="size-3.5" />2
           </span>
           <span>
-            The mark on a plot&apos;s corner counts its findings of each kind: here, two clashes. Select a mark, or Tab to it, to read them beside
-            the map.
+            The mark on a plot&apos;s corner counts its findings of each kind: here, two clashes. On a plot too narrow for every count, the mark
+            shows the worst kind and the total. Select a mark, or Tab to it, to read them beside the map.
           </span>
         </li>
       </ul>
@@ -173,11 +174,13 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
           const counts = countBySeverity(list);
           const fp = footprint(rect);
           const isChosen = chosenId === plot.id;
+          const present = severityOrder.filter((s) => counts[s] > 0);
+          // Each count takes about 28 px; on a plot drawn narrower than that, the worst severity and the total stand for them.
+          const roomy = (fp.maxX - fp.minX) * scale - 4 >= 8 + 28 * present.length;
           return [
             <button
               key={`finding-mark-${plot.id}`}
               type="button"
-              aria-label={`Neighbour check for plot ${plot.label}: ${countsSentence(counts)}`}
               aria-pressed={isChosen}
               aria-controls={panelId}
               data-finding-mark={plot.label}
@@ -193,14 +196,26 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
               // Inside the plot's north-east corner, so it never runs off the map's edge or over the resize grip (south-east).
               style={{ right: width - fp.maxX * scale + 2, top: fp.minY * scale + 2 }}
             >
-              {severityOrder
-                .filter((s) => counts[s] > 0)
-                .map((s) => (
+              {/* The name comes from the content, so the visible counts are part of it: "Neighbour check for plot A-1: 2 clashes, 1 to watch". */}
+              <span className="sr-only">Neighbour check for plot {plot.label}: </span>
+              {roomy ? (
+                present.map((s, i) => (
                   <span key={s} className="inline-flex items-center gap-0.5 tabular-nums">
                     <SeveritySymbol severity={s} className="size-3.5" />
                     {counts[s]}
+                    <span className="sr-only">
+                      {severityCount(s, counts[s]).slice(String(counts[s]).length)}
+                      {i < present.length - 1 ? ', ' : ''}
+                    </span>
                   </span>
-                ))}
+                ))
+              ) : (
+                <span className="inline-flex items-center gap-0.5 tabular-nums">
+                  <SeveritySymbol severity={present[0]} className="size-3.5" />
+                  {list.length}
+                  <span className="sr-only"> findings: {countsSentence(counts)}</span>
+                </span>
+              )}
             </button>,
           ];
         })
@@ -211,7 +226,7 @@ export function useNeighbourCheckOverlay({ siteId, seasonId, seasonYear, plotBoo
     const chosenList = chosenId !== null ? (byPlot.get(chosenId) ?? []) : [];
     const label = chosenList[0]?.plotLabel;
     panel = (
-      <Card className="space-y-3 p-4" id={panelId} aria-live="polite" aria-label="Neighbour check findings">
+      <Card className="space-y-3 p-4" id={panelId} role="region" aria-live="polite" aria-label="Neighbour check findings">
         {findings.isPending ? (
           <LoadingState label="Checking the plantings…" />
         ) : findings.isError ? (
