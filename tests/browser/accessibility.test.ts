@@ -47,6 +47,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       ['/messages', 'Messages'],
       ['/outgoing-mail', 'Outgoing mail'],
       ['/settings', 'Settings'],
+      ['/findings', 'Neighbour check'],
     ];
     for (const width of [1280, 390]) {
       const w = await signInAsCoordinator(suite.browser, suite.server.url, width);
@@ -73,6 +74,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
         [
           ['', 'Mossgate Community Garden Club'],
           [`/plots/${a1.id}`, 'Plot A-1'],
+          [`/plots/${a1.id}/book`, 'Plot book: A-1'],
           ['/crops', 'Crop notes'],
           ['/harvests', 'Harvests'],
           [`/crops/${radish.id}`, 'Radish'],
