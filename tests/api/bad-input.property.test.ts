@@ -179,7 +179,7 @@ const killer: fc.Arbitrary<unknown> = fc.oneof(
 );
 
 // Query names the routes read, tried more often than the body field names.
-const queryNames = ['page', 'pageSize', 'year', 'status', 'siteId', 'version', 'units', 'kind', 'token', 'needs'];
+const queryNames = ['page', 'pageSize', 'year', 'status', 'siteId', 'version', 'units', 'kind', 'token', 'needs', 'severity', 'seasonId', 'date', 'x', 'width'];
 const queryArb = fc.dictionary(
   fc.oneof({ weight: 3, arbitrary: fc.constantFrom(...queryNames) }, { weight: 1, arbitrary: fc.constantFrom(...fieldNames) }),
   fc.oneof(
@@ -219,6 +219,7 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
   'PUT /api/clubs/:clubId/crops/:cropId/overrides/:field': () => ({ value: { min: 30, max: 40, from: 'sowing' }, source: 'from-memory' }),
   // Crop 1 is a reference crop (loaded after every truncation); the part lies inside the fixture's plot.
   'POST /api/plots/:plotId/plantings': () => ({ cropId: 1, method: 'sown', plantedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
+  'POST /api/plots/:plotId/plantings/check': () => ({ cropId: 1, method: 'sown', plantedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
   'POST /api/plots/:plotId/observations': () => ({ pestSlug: 'clubroot', severity: 'light', observedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
 };
 const feeSchedule = {
