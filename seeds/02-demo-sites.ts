@@ -91,6 +91,9 @@ export async function seed(knex: Knex): Promise<void> {
         length_m: 22,
         last_spring_frost: '04-25',
         first_autumn_frost: '10-20',
+        // Soil at about 10 cm by month, January first: invented for the demo, near what a lowland
+        // site in north-west England sees (from memory), so the check can say when it is too cold to sow.
+        soil_temps_c: JSON.stringify([3, 3, 5, 8, 12, 15, 17, 16, 14, 10, 6, 4]),
         soil_notes: 'Clay loam; lime added to the B row in 2025.',
       },
       plots: metricPlots(),
@@ -110,6 +113,8 @@ export async function seed(knex: Knex): Promise<void> {
         length_m: feetToMetres(60),
         last_spring_frost: '05-10',
         first_autumn_frost: '10-05',
+        // Invented for the demo, near a high-plains site at 40° N (from memory), °C, January first.
+        soil_temps_c: JSON.stringify([0, 2, 5, 9, 14, 20, 23, 22, 18, 11, 5, 1]),
         soil_notes: 'Sandy; beds topped up with compost each spring.',
       },
       plots: usPlots(),

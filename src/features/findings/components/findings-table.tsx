@@ -65,19 +65,14 @@ function columnsFor(clubId: number): ColumnDef<Row>[] {
     {
       id: 'title',
       header: 'Finding',
-      accessorFn: (f) => f.title,
-      cell: ({ row }) => <span className="block font-medium break-words sm:min-w-40">{row.original.title}</span>,
-    },
-    {
-      id: 'message',
-      header: 'Why',
-      accessorFn: (f) => f.message,
-      enableSorting: false,
+      accessorFn: (f) => `${f.title} ${f.message}`,
+      sortingFn: (a, b) => a.original.title.localeCompare(b.original.title),
       cell: ({ row }) => {
         const caution = cautionFor(row.original.title, row.original.message);
         return (
-          <span className="block break-words sm:min-w-72">
-            {row.original.message}
+          <span className="block break-words sm:min-w-80">
+            <span className="block font-medium">{row.original.title}</span>
+            <span className="mt-0.5 block">{row.original.message}</span>
             {row.original.peers.length > 0 && (
               <span className="mt-1 block text-sm text-stone">
                 With {row.original.peers.map((p) => `${p.cropName} on ${p.plotLabel} (${p.seasonYear})`).join('; ')}.
@@ -95,7 +90,7 @@ function columnsFor(clubId: number): ColumnDef<Row>[] {
       cell: ({ row }) => {
         const { source } = row.original;
         return (
-          <span className="block break-words sm:min-w-40">
+          <span className="block break-words text-sm sm:min-w-48">
             {source.url ? (
               <a href={source.url} target="_blank" rel="noreferrer">
                 {source.title}

@@ -40,7 +40,7 @@ export function PlantingCheck({ plotId, draft, onClashChange }: PlantingCheckPro
         ) : null}
       </div>
       {findings && findings.length > 0 && (
-        <div className={check.checking ? 'opacity-60' : undefined}>
+        <div aria-busy={check.checking}>
           <FindingList findings={findings} label="What the check found for this planting" headingLevel={5} />
         </div>
       )}

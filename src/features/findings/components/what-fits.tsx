@@ -57,7 +57,7 @@ export function WhatFits({ plotId, plantingsStamp, renderPartPicker, showKeptRea
         ) : null}
       </div>
       {dateOk && items.length > 0 && (
-        <ol aria-label={`Crops ranked for ${part ? 'this part of the plot' : 'this plot'}`} className={`flex flex-col gap-3 ${fits.checking ? 'opacity-60' : ''}`}>
+        <ol aria-label={`Crops ranked for ${part ? 'this part of the plot' : 'this plot'}`} aria-busy={fits.checking} className="flex flex-col gap-3">
           {shown.map((item) => {
             const counts = findingCounts(item.findings);
             return (
