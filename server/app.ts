@@ -26,6 +26,7 @@ import { membersRouter } from './routes/members';
 import { myPlotRouter } from './routes/my-plot';
 import { passwordResetsRouter } from './routes/password-resets';
 import { findingsRouter } from './routes/findings';
+import { tasksRouter } from './routes/tasks';
 import { plotBookRouter } from './routes/plot-book';
 import { plotImportsRouter } from './routes/plot-imports';
 import { offersRouter } from './routes/offers';
@@ -151,6 +152,7 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api/me/fees', myFeesRouter(deps));
   // Plot books: /api/plots/:plotId/book, /api/plantings, /api/harvests, /api/observations, /api/observation-photos.
   app.use('/api', findingsRouter(deps));
+  app.use('/api', tasksRouter(deps));
   app.use('/api', plotBookRouter(deps));
   app.use('/api', apiNotFound);
 

@@ -1,3 +1,4 @@
+import { taskRunsIdle } from './services/task-runs';
 import type { Server } from 'node:http';
 import { configWarnings, type Config } from './config';
 import { createDb } from './db/knex';
@@ -37,6 +38,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
       server.closeAllConnections();
       await closed;
       await jobs.stop();
+      await taskRunsIdle(db);
       await built.close();
       await mailIdle(); // mail being sent after a commit finishes first
       mailer.close();

@@ -5,9 +5,12 @@ import type { Mailer } from '../mail/mailer';
 import { sendDueMail } from '../services/outbox';
 import { pruneIdempotencyKeys } from '../middleware/idempotency';
 import { sweepDeadlines } from './deadlines';
+import { queueNightlyTaskRuns, runQueuedTaskRuns } from '../services/task-runs';
 
 export const DEADLINE_QUEUE = 'deadline-sweep';
 export const MAIL_QUEUE = 'mail-send';
+export const TASK_RUN_QUEUE = 'task-runs';
+export const NIGHTLY_TASKS_QUEUE = 'tasks-nightly';
 
 export interface Jobs {
   stop(): Promise<void>;
@@ -40,6 +43,21 @@ export async function startJobs(databaseUrl: string, db: Knex, mailer: Mailer, l
     if (done.sent || done.retrying || done.failed) log.info(done, 'outbox mail sent');
   });
   await boss.send(MAIL_QUEUE, {});
+  // The season's tasks: every night a run per live site; every minute any run still queued (a
+  // coordinator's run starts at once in the process that queued it, this is the safety net).
+  await boss.createQueue(NIGHTLY_TASKS_QUEUE);
+  await boss.schedule(NIGHTLY_TASKS_QUEUE, '30 2 * * *');
+  await boss.work(NIGHTLY_TASKS_QUEUE, async () => {
+    const sites = await queueNightlyTaskRuns(db);
+    const runs = await runQueuedTaskRuns(db);
+    log.info({ sites, runs }, 'nightly task runs');
+  });
+  await boss.createQueue(TASK_RUN_QUEUE);
+  await boss.schedule(TASK_RUN_QUEUE, '* * * * *');
+  await boss.work(TASK_RUN_QUEUE, async () => {
+    const runs = await runQueuedTaskRuns(db);
+    if (runs) log.info({ runs }, 'task runs');
+  });
   return {
     async stop() {
       await boss.stop({ graceful: true, wait: true, timeout: 5000 });

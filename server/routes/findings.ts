@@ -1,20 +1,14 @@
-import { Router, type Request } from 'express';
-import { parseIdText } from '@shared/schemas/common';
+import { Router } from 'express';
 import { FindingListQuerySchema, WhatFitsQuerySchema } from '@shared/schemas/findings';
 import { PlantingCheckBodySchema } from '@shared/schemas/plot-book';
 import type { Deps } from '../deps';
 import { csvText } from '../services/csv-files';
 import { sendCsv } from '../csv-download';
-import { AppError, parseInput } from '../errors';
+import { parseInput } from '../errors';
 import { requireClubRole, requireRoleVia, requireUser } from '../middleware/auth';
 import { clubOfSite } from '../services/sites';
 import { checkPlantingDraft, findingsForCoordinator, whatFitsOnPlot } from '../services/findings-views';
-
-function idParam(req: Request, name: string): number {
-  const id = parseIdText(req.params[name]);
-  if (id === null) throw new AppError('validation_failed', 'Invalid id in the address.', { [name]: 'Must be a whole number from 1 to 2147483647' });
-  return id;
-}
+import { idParam } from './params';
 
 /**
  * The neighbour check, mounted at /api: a planting's dry run and "what fits here" for whoever may use

@@ -1,6 +1,5 @@
-import { Router, type Request, type RequestHandler, type Response, type NextFunction } from 'express';
+import { Router, type RequestHandler, type Response, type NextFunction } from 'express';
 import multer from 'multer';
-import { parseIdText } from '@shared/schemas/common';
 import {
   HarvestBodySchema,
   ObservationBodySchema,
@@ -15,13 +14,7 @@ import { createHarvest, deleteHarvest } from '../services/harvests';
 import { addObservationPhoto, assertCanAddPhoto, createObservation, deleteObservation, findObservationPhoto, MAX_PHOTO_BYTES } from '../services/observations';
 import { getPlotBook } from '../services/plot-book';
 import { createPlanting, deletePlanting, plantingById, updatePlanting } from '../services/plantings';
-
-/** A path id, or a 400 naming the parameter. */
-function idParam(req: Request, name: string): number {
-  const id = parseIdText(req.params[name]);
-  if (id === null) throw new AppError('validation_failed', 'Invalid id in the address.', { [name]: 'Must be a whole number from 1 to 2147483647' });
-  return id;
-}
+import { idParam } from './params';
 
 const multerMessages: Record<string, string> = {
   LIMIT_FILE_SIZE: 'The image is larger than 8 MB',

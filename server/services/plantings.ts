@@ -7,6 +7,7 @@ import type { Db } from '../db/knex';
 import { withClubOverrides } from './crops';
 import { assertPartInside, plotBookAccess } from './plot-book';
 import { clashKeys, recheckSite } from './findings';
+import { regenerateTasks, removeOpenTasksOfPlanting } from './tasks';
 
 export type { SiteClimate };
 
@@ -197,6 +198,7 @@ export async function createPlanting(db: Knex, opts: { plotId: number; userId: n
       .returning('id');
     await recheckSite(trx, access.plot.siteId, [access.plot.id]);
     await assertReasonForNewClash(trx, { plantingId: row.id, before: new Set(), reason: b.keepReason });
+    await regenerateTasks(trx, access.plot.siteId, { plantingIds: [row.id], now: opts.now });
     return row.id as number;
   });
   return plantingById(db, { plantingId: id, userId: opts.userId, now: opts.now });
@@ -250,6 +252,7 @@ export async function updatePlanting(db: Knex, opts: { plantingId: number; userI
     await recheckSite(trx, access.plot.siteId, [access.plot.id]);
     const kept = await trx('plantings').where({ id: row.id }).first('keep_reason');
     await assertReasonForNewClash(trx, { plantingId: row.id, before, reason: kept?.keep_reason ?? null });
+    await regenerateTasks(trx, access.plot.siteId, { plantingIds: [row.id], now: opts.now });
   });
   return plantingById(db, { plantingId: opts.plantingId, userId: opts.userId, now: opts.now });
 }
@@ -258,6 +261,7 @@ export async function updatePlanting(db: Knex, opts: { plantingId: number; userI
 export async function deletePlanting(db: Knex, opts: { plantingId: number; userId: number; now?: Date }): Promise<void> {
   await db.transaction(async (trx) => {
     const { row, access } = await lockPlantingForWrite(trx, opts);
+    await removeOpenTasksOfPlanting(trx, row.id);
     await trx('plantings').where({ id: row.id }).delete();
     await recheckSite(trx, access.plot.siteId, [access.plot.id]);
   });

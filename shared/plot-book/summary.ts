@@ -28,6 +28,34 @@ export interface SiteClimate {
 }
 
 /**
+ * A planting's dates as the plot book shows them: from the crop's values, the sowing month's soil
+ * temperature in the site's table and the site's frost dates; null where the crop lacks a value.
+ * The season's tasks are worked out from the same dates.
+ */
+export function plantingDatesFor(crop: Crop, p: Pick<PlantingShape, 'method' | 'plantedOn'>, climate: SiteClimate): { dates: PlantingDates | null; soilTempC: number | null } {
+  const year = p.plantedOn.slice(0, 4);
+  const month = Number(p.plantedOn.slice(5, 7));
+  const soil = climate.soilTempsC?.[month - 1];
+  const soilTempC = typeof soil === 'number' && Number.isFinite(soil) ? soil : null;
+  let dates: PlantingDates | null;
+  try {
+    dates = plantingDates({
+      crop,
+      method: p.method,
+      date: p.plantedOn,
+      soilC: soilTempC ?? undefined,
+      lastSpringFrost: climate.lastSpringFrost ? `${year}-${climate.lastSpringFrost}` : undefined,
+      firstAutumnFrost: climate.firstAutumnFrost ? `${year}-${climate.firstAutumnFrost}` : undefined,
+    });
+  } catch {
+    // A club's own crop may lack a value the dates need; the book still opens and says so.
+    dates = null;
+  }
+
+  return { dates, soilTempC };
+}
+
+/**
  * A planting's computed facts from the crop notes: area, plants that fit (at the wider end of each
  * spacing range, the spacing plants end at after thinning; the holder's own row count when given), the
  * dates from plantingDates with the site's frost dates and the soil temperature of the planting's month.
@@ -51,24 +79,7 @@ export function computePlanting(crop: Crop, p: PlantingShape, climate: SiteClima
     plantsThatFit = { plants: fit.plants, rows: fit.rows, perRow: fit.perRow, inRowCm: equalCm, betweenRowCm: equalCm };
   }
 
-  const year = p.plantedOn.slice(0, 4);
-  const month = Number(p.plantedOn.slice(5, 7));
-  const soil = climate.soilTempsC?.[month - 1];
-  const soilTempC = typeof soil === 'number' && Number.isFinite(soil) ? soil : null;
-  let dates: PlantingDates | null;
-  try {
-    dates = plantingDates({
-      crop,
-      method: p.method,
-      date: p.plantedOn,
-      soilC: soilTempC ?? undefined,
-      lastSpringFrost: climate.lastSpringFrost ? `${year}-${climate.lastSpringFrost}` : undefined,
-      firstAutumnFrost: climate.firstAutumnFrost ? `${year}-${climate.firstAutumnFrost}` : undefined,
-    });
-  } catch {
-    // A club's own crop may lack a value the dates need; the book still opens and says so.
-    dates = null;
-  }
+  const { dates, soilTempC } = plantingDatesFor(crop, p, climate);
 
   const warnings: PlantingComputed['warnings'] = dates
     ? [...dates.warnings]
