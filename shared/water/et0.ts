@@ -1,8 +1,13 @@
+import { roundTo } from '../geometry/units';
+
 // Reference evapotranspiration (ET0) of one day, pure code with no I/O.
 //
 // Every equation below is from FAO Irrigation and Drainage Paper 56, "Crop evapotranspiration —
 // Guidelines for computing crop water requirements" (Allen, Pereira, Raes, Smith, 1998), named by its
 // equation number. Units are FAO-56's: °C, kPa, m s⁻¹, MJ m⁻² d⁻¹, mm d⁻¹, metres above sea level.
+// The equations and their numbers are those of our check-value table, except the numbers of Eq. 9
+// (mean temperature), Eq. 20 (0.408 mm per MJ m⁻²) and Eq. 22 (degrees to radians) and the 273.16 K
+// offset of Eq. 39, which are from memory.
 //
 // Which method a day gets depends on what its weather log holds:
 // - FAO-56 Penman-Monteith (Eq. 6) when the day has Tmin, Tmax, humidity, wind and radiation;
@@ -285,9 +290,7 @@ export function hargreaves(tMinC: number, tMaxC: number, raMj: number): number {
 const present = (v: number | null | undefined): v is number => typeof v === 'number' && Number.isFinite(v);
 const percent = (v: number | null | undefined): v is number => present(v) && v >= 0 && v <= 100;
 
-function round(v: number, decimals: number): string {
-  return String(Math.round(v * 10 ** decimals) / 10 ** decimals);
-}
+const round = (v: number, decimals: number) => String(roundTo(v, decimals));
 
 function ruleOfThumb(why: string): Et0Result {
   return {

@@ -3,7 +3,7 @@ import type { Et0Method, Et0Result } from './et0';
 import { inchesFromMm, litresFor, usGallonsFromLitres } from './units';
 
 // A planting's water need: ET0 × Kc × the bed's factor, day by day, summed over a week and set
-// against the rain logged (FAO-56, Chapter 6: ETc = Kc ET0, Eq. 56).
+// against the rain logged (FAO-56, Chapter 6: ETc = Kc ET0; Eq. 56, the number from memory).
 
 /**
  * How much faster the soil dries in a raised bed or a container than in the ground, as a multiplier of
@@ -33,7 +33,7 @@ export interface NeedDay {
 }
 
 /**
- * One day's need: ETc = Kc × ET0 (FAO-56 Eq. 56) times the bed factor. The rule of thumb's 25/7 mm
+ * One day's need: ETc = Kc × ET0 (FAO-56 Eq. 56, number from memory) times the bed factor. The rule of thumb's 25/7 mm
  * stands in for ET0 like any other method, so Kc scales it too. Rain not logged (null) counts as none.
  */
 export function needDay(input: { date: string; et0: Et0Result; kc: number; factor?: number; rainMm: number | null | undefined }): NeedDay {
