@@ -1,0 +1,4 @@
+export * from './et0';
+export * from './kc';
+export * from './need';
+export * from './units';
