@@ -272,7 +272,8 @@ export function waterWeek(p: TaskPlantingInput, ctx: TaskContext, weekStart: str
   const methods: Record<string, number> = {};
   for (let on = from; on <= to; on = plusDays(on, 1)) {
     const et0 = et0Estimate(on, ctx);
-    const kc = p.crop.kc && p.crop.stages ? kcOnDay(p.crop.kc.value, p.crop.stages.value, daysBetween(p.plantedOn, on)).kc : 1;
+    // The rule of thumb is already a crop's need (about an inch a week), so Kc does not scale it.
+    const kc = et0.method !== 'rule_of_thumb' && p.crop.kc && p.crop.stages ? kcOnDay(p.crop.kc.value, p.crop.stages.value, daysBetween(p.plantedOn, on)).kc : 1;
     need += kc * et0.mm * factor;
     kcSum += kc;
     et0Sum += et0.mm;
