@@ -27,6 +27,7 @@ export interface SiteRow {
   first_autumn_frost: string | null;
   soil_notes: string;
   soil_temps_c?: unknown;
+  elevation_m?: number | null;
   background_file: string | null;
   background_mime: string | null;
   background_width_px: number | null;
@@ -78,6 +79,7 @@ export function toSite(r: SiteRow): Site {
     firstAutumnFrost: r.first_autumn_frost,
     soilNotes: r.soil_notes,
     soilTempsC: Array.isArray(r.soil_temps_c) && r.soil_temps_c.length === 12 ? (r.soil_temps_c as number[]) : null,
+    elevationM: r.elevation_m ?? null,
     background:
       r.background_file && r.background_width_px && r.background_height_px
         ? {
@@ -162,6 +164,7 @@ export function siteColumns(b: Record<string, unknown>) {
     lastSpringFrost: 'last_spring_frost',
     firstAutumnFrost: 'first_autumn_frost',
     soilNotes: 'soil_notes',
+    elevationM: 'elevation_m',
     backgroundMetresPerPixel: 'background_m_per_px',
   };
   const out: Record<string, unknown> = {};

@@ -92,8 +92,12 @@ async function lockSiteAt(trx: Knex.Transaction, siteId: number, version: number
   return site as { id: number; name: string; version: number; background_file: string | null };
 }
 
-/** Whether any plot ever drawn on the site (removed ones too) has allocations, offers, renewals, fees or payments on record. */
+/**
+ * Whether the site has a weather log, or any plot ever drawn on it (removed ones too) has allocations,
+ * offers, renewals, fees or payments on record.
+ */
 async function siteHasRecords(trx: Knex.Transaction, siteId: number): Promise<boolean> {
+  if (await trx('weather_days').where({ site_id: siteId }).first('id')) return true;
   const plotIds = trx('plots').where({ site_id: siteId }).select('id');
   for (const table of ['allocations', 'offers', 'renewals', 'fees']) {
     if (await trx(table).whereIn('plot_id', plotIds).first('id')) return true;
@@ -103,8 +107,8 @@ async function siteHasRecords(trx: Knex.Transaction, siteId: number): Promise<bo
 
 /**
  * Deletes a site for good, with its plots and their history, and then its background file. Refused
- * while any of its plots has allocations, offers, renewals, fees or payments on record: those sites
- * are archived instead, so the records keep pointing somewhere.
+ * while any of its plots has allocations, offers, renewals, fees or payments on record, or the site has
+ * weather days: those sites are archived instead, so the records keep pointing somewhere.
  */
 export async function deleteSite(db: Knex, opts: { siteId: number; version: number; uploadDir: string }): Promise<void> {
   const backgroundFile = await db.transaction(async (trx) => {
@@ -112,7 +116,7 @@ export async function deleteSite(db: Knex, opts: { siteId: number; version: numb
     if (await siteHasRecords(trx, opts.siteId)) {
       throw new AppError(
         'conflict',
-        `${site.name} has plots with allocations, fees or payments on record, so it cannot be deleted. Archive it instead: it leaves the lists and the map, and its records stay.`,
+        `${site.name} has plots with allocations, fees or payments, or a weather log, on record, so it cannot be deleted. Archive it instead: it leaves the lists and the map, and its records stay.`,
       );
     }
     await trx('sites').where({ id: opts.siteId }).delete();

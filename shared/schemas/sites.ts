@@ -35,6 +35,10 @@ const siteSide = () =>
 export const MIN_METRES_PER_PIXEL = 0.00001;
 export const MAX_METRES_PER_PIXEL = 100;
 
+/** The lowest and highest elevation a site may have, metres above sea level: the Dead Sea shore is about −430 m and no garden is near 9000 m (from memory). */
+export const MIN_ELEVATION_M = -500;
+export const MAX_ELEVATION_M = 9000;
+
 const siteFields = {
   name: textSchema({ min: 1, minMessage: 'Enter a name', max: 120 }),
   address: textSchema({ max: 500, multiline: true }),
@@ -54,6 +58,13 @@ const siteFields = {
     .array(z.number('A temperature in °C').finite().min(-30, 'At least −30 °C').max(50, 'At most 50 °C'), 'Twelve monthly temperatures')
     .length(12, 'Give all twelve months, or none')
     .nullable(),
+  /** Whole metres above sea level (the client converts feet); null until the club knows it. */
+  elevationM: z
+    .number('Whole metres above sea level')
+    .int('Whole metres above sea level')
+    .min(MIN_ELEVATION_M, `At least ${MIN_ELEVATION_M} m`)
+    .max(MAX_ELEVATION_M, `At most ${MAX_ELEVATION_M} m`)
+    .nullable(),
 };
 
 /** Fields a coordinator sets on a new site; lengths are metres (the client converts US units). */
@@ -67,6 +78,7 @@ export const SiteCreateBodySchema = z.strictObject({
   firstAutumnFrost: siteFields.firstAutumnFrost.default(null),
   soilNotes: siteFields.soilNotes.default(''),
   soilTempsC: siteFields.soilTempsC.default(null),
+  elevationM: siteFields.elevationM.default(null),
 });
 export type SiteCreateBody = z.infer<typeof SiteCreateBodySchema>;
 
@@ -106,6 +118,7 @@ export const SiteSchema = z.object({
   firstAutumnFrost: z.string().nullable(),
   soilNotes: z.string(),
   soilTempsC: z.array(z.number()).nullable(),
+  elevationM: z.number().int().nullable(),
   background: z
     .object({
       url: z.string(),
