@@ -295,6 +295,12 @@ function paramValue(name: string, x: Fixture): string | null {
     cropId: 1,
     field: 'daysToMaturity',
     relationId: 999999,
+    // Task records that do not exist: their routes answer 404.
+    taskId: 999999,
+    handoverId: 999999,
+    runId: 999999,
+    // A weather log day in the past.
+    day: '2026-06-01',
   };
   return name in known ? String(known[name]) : null;
 }
