@@ -52,6 +52,9 @@ export async function startJobs(databaseUrl: string, db: Knex, mailer: Mailer, l
     const runs = await runQueuedTaskRuns(db);
     log.info({ sites, runs }, 'nightly task runs');
   });
+  // A server that was down over night (or a first start) plans today's tasks now, not tomorrow night.
+  const recent = await db('task_runs').where('created_at', '>', db.raw("now() - interval '20 hours'")).first('id');
+  if (!recent) await boss.send(NIGHTLY_TASKS_QUEUE, {});
   await boss.createQueue(TASK_RUN_QUEUE);
   await boss.schedule(TASK_RUN_QUEUE, '* * * * *');
   await boss.work(TASK_RUN_QUEUE, async () => {

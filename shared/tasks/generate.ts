@@ -23,6 +23,8 @@ export const WATER_MIN_DEFICIT_MM = 5;
 /** The generator plans watering for the current week and the next one only: further ahead the weather is unknown. */
 export const WATER_WEEKS_AHEAD = 1;
 
+const ESTIMATED_NOTE = 'estimated from the past week’s log';
+
 export interface TaskPlantingInput {
   id: number;
   cropName: string;
@@ -251,7 +253,7 @@ export function et0Estimate(date: string, ctx: TaskContext): Et0Result & { estim
     const counts = new Map<Et0Result['method'], number>();
     for (const r of recent) counts.set(r.method, (counts.get(r.method) ?? 0) + 1);
     const method = [...counts].sort((a, b) => b[1] - a[1])[0][0];
-    return { mm, method, note: 'estimated from the past week’s log', estimated: true };
+    return { mm, method, note: ESTIMATED_NOTE, estimated: true };
   }
   return { ...et0ForDay(null, ctx.site), estimated: true };
 }
@@ -278,7 +280,7 @@ export function waterWeek(p: TaskPlantingInput, ctx: TaskContext, weekStart: str
     kcSum += kc;
     et0Sum += et0.mm;
     days++;
-    if (et0.estimated) estimatedDays++;
+    if (et0.estimated && et0.note === ESTIMATED_NOTE) estimatedDays++;
     methods[et0.method] = (methods[et0.method] ?? 0) + 1;
     if (on <= ctx.today) rain += ctx.weather.get(on)?.rainMm ?? 0;
   }
