@@ -11,6 +11,7 @@ import autocannon from 'autocannon';
 import type { Knex } from 'knex';
 import { recheckEverything, recheckSite } from '../../server/services/findings';
 import { loadReferenceCrops } from '../../server/services/reference-crops';
+import { generateSiteTasks } from '../../server/services/tasks';
 import { buildNetwork, progressBar } from './network';
 
 // `npm run bench`: speed targets live here, never in timed tests. Prints medians and checks
@@ -168,6 +169,7 @@ async function benchNeighbourCheck(cluster: ReturnType<typeof startCluster>) {
       const [{ n }] = await db('findings').count({ n: '*' });
       console.log(`${name}: ${net.plots} plots, ${net.plantings} plantings, ${n} findings stored by the full check`);
       if (name === 'net10k') targets.push({ name: 'full neighbour check, 10,000 plots, 5 seasons', ms: full, targetMs: 120_000 });
+      if (name === 'net10k') await benchTaskGeneration(db, net.clubId, YEAR);
       const crops = (await db('crops').whereNull('club_id').whereIn('slug', ['potato', 'radish', 'tomato', 'pea']).select('id')).map((c: { id: number }) => c.id);
       results[name] = await singleChange(db, net.probe, crops, 31);
       targets.push({ name: `single-change re-check, ${net.plots.toLocaleString('en')} plots`, ms: results[name], targetMs: 100 });
@@ -199,6 +201,43 @@ async function benchNeighbourCheck(cluster: ReturnType<typeof startCluster>) {
     }
   }
   targets.push({ name: 'single-change re-check, 10,000 plots ÷ 100 plots', ms: results.net10k / results.net100, targetMs: 1.5, unit: '×' });
+}
+
+/**
+ * Task generation over every site of the 10,000-plot network, as on a day in May of its newest season:
+ * a first run, then a run with nothing changed, which must write nothing (counted by the service and by
+ * a digest of every task row's xmin).
+ */
+async function benchTaskGeneration(db: Knex, clubId: number, year: number) {
+  const sites: number[] = (await db('sites').where({ club_id: clubId }).orderBy('id').select('id')).map((r: { id: number }) => r.id);
+  const now = new Date(`${year}-05-15T06:00:00Z`);
+  const runAll = async () => {
+    const t0 = performance.now();
+    const sum = { created: 0, updated: 0, removed: 0, total: 0 };
+    const bar = progressBar(`Generating tasks on ${sites.length} sites`);
+    for (const [i, id] of sites.entries()) {
+      const r = await generateSiteTasks(db, id, { now });
+      sum.created += r.created;
+      sum.updated += r.updated;
+      sum.removed += r.removed;
+      sum.total += r.total;
+      bar(i + 1, sites.length);
+    }
+    return { ms: performance.now() - t0, ...sum };
+  };
+  // Every row's id and physical version: any insert, update or delete changes the digest.
+  const digest = async () => (await db.raw("select count(*)::int as n, md5(coalesce(string_agg(id::text || ':' || xmin::text, ',' order by id), '')) as d from tasks")).rows[0];
+  const first = await runAll();
+  console.log(`task generation, first run: ${first.total} plantings, ${first.created} tasks in ${(first.ms / 1000).toFixed(1)} s`);
+  targets.push({ name: 'task generation, first run, 10,000 plots', ms: first.ms, targetMs: 120_000 });
+  const before = await digest();
+  const again = await runAll();
+  const after = await digest();
+  const written = again.created + again.updated + again.removed;
+  const same = before.n === after.n && before.d === after.d;
+  console.log(`task generation, no change: ${(again.ms / 1000).toFixed(1)} s, ${written} rows written by the service's count, rows ${same ? 'unchanged' : 'CHANGED'} by their xmin`);
+  targets.push({ name: 'task generation, no-change run, 10,000 plots', ms: again.ms, targetMs: 60_000 });
+  targets.push({ name: 'task generation, no-change run: rows written', ms: written + (same ? 0 : 1), targetMs: 0, unit: 'rows' });
 }
 
 let missed = 0;
