@@ -9,9 +9,17 @@ export const paths = {
   sites: (clubId: number) => `/clubs/${clubId}/sites`,
   siteEdit: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/edit`,
   sitePlots: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/plots`,
+  /** The coordinators' tasks for the club: opens the first site's tasks. */
+  tasks: (clubId: number) => `/clubs/${clubId}/tasks`,
+  /** A site's tasks table (coordinators); `query` carries its filters ("?kind=water"). */
+  siteTasks: (clubId: number, siteId: number, query = '') => `/clubs/${clubId}/sites/${siteId}/tasks${query}`,
+  /** A site's water need, rain and deficit (every member). */
+  siteWater: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/water`,
   plot: (clubId: number, plotId: number) => `/clubs/${clubId}/plots/${plotId}`,
   /** A plot's plot book; `year` picks an earlier season. */
   plotBook: (clubId: number, plotId: number, year?: number) => `/clubs/${clubId}/plots/${plotId}/book${year ? `?year=${year}` : ''}`,
+  /** This season's plot book, at its Tasks panel. */
+  plotBookTasks: (clubId: number, plotId: number) => `/clubs/${clubId}/plots/${plotId}/book#tasks`,
   crops: (clubId: number) => `/clubs/${clubId}/crops`,
   crop: (clubId: number, cropId: number) => `/clubs/${clubId}/crops/${cropId}`,
   /** The club's harvest figures per crop; `year` picks a season. */

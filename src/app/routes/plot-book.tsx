@@ -3,10 +3,11 @@ import { NeighbourCheck } from '@/features/findings/components/neighbour-check';
 import { PlantingCheck } from '@/features/findings/components/planting-check';
 import { WhatFits } from '@/features/findings/components/what-fits';
 import { PlotBookPage } from '@/features/plot-book/components/plot-book-page';
+import { TasksPanel } from '@/features/tasks/components/tasks-panel';
 import type { NeighbourCheckSlots } from '@/features/plot-book/components/neighbour-check-slots';
 import { useClubContext } from '../app-context';
 
-// The plot book shows the neighbour check's parts; features do not import each other, so they meet here.
+// The plot book shows the neighbour check's parts and the season's tasks; features do not import each other, so they meet here.
 const neighbourCheck: NeighbourCheckSlots = { PlantingCheck, NeighbourCheck, WhatFits };
 
 /** `/clubs/:clubId/plots/:plotId/book?year=`: a plot's plot book; the server decides who may read or write it. */
@@ -23,6 +24,7 @@ export function PlotBookRoute() {
       year={Number.isInteger(year) && year >= 2000 && year <= 2100 ? year : undefined}
       isCoordinator={club.roles.includes('coordinator')}
       neighbourCheck={neighbourCheck}
+      Tasks={TasksPanel}
     />
   );
 }

@@ -20,3 +20,9 @@ export interface NeighbourCheckSlots {
     showKeptReasons: boolean;
   }>;
 }
+
+/**
+ * The season's tasks for the plot (src/app hands it in from src/features/tasks); shown only in the current
+ * season's book, under a heading whose id is "tasks" so the home page can link straight to it.
+ */
+export type TasksSlot = ComponentType<{ clubId: number; plotId: number; plotLabel: string; siteId: number; siteName: string }>;

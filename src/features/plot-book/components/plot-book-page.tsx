@@ -14,7 +14,7 @@ import { paths } from '@/lib/paths';
 import { usePlotBook } from '../api/get-plot-book';
 import { areaText, calendarDate, partText, plantingName, statusWords } from '../lib/format';
 import { HarvestFigures } from './harvest-figures';
-import type { NeighbourCheckSlots } from './neighbour-check-slots';
+import type { NeighbourCheckSlots, TasksSlot } from './neighbour-check-slots';
 import { ObservationForm } from './observation-form';
 import { ObservationsList } from './observations-list';
 import { PartPicker } from './part-picker';
@@ -45,10 +45,12 @@ export interface PlotBookPageProps {
   isCoordinator: boolean;
   /** The neighbour check's parts (src/app hands them in from the findings feature). */
   neighbourCheck?: NeighbourCheckSlots;
+  /** The season's tasks (src/app hands them in from the tasks feature); shown for the current season only. */
+  Tasks?: TasksSlot;
 }
 
 /** A plot's plot book: the plot with this season's plantings drawn on it, their dates and harvests, pests and diseases, earlier seasons. */
-export function PlotBookPage({ clubId, plotId, year, isCoordinator, neighbourCheck }: PlotBookPageProps) {
+export function PlotBookPage({ clubId, plotId, year, isCoordinator, neighbourCheck, Tasks }: PlotBookPageProps) {
   const book = usePlotBook(plotId, year);
   const [adding, setAdding] = useState(false);
   const [observing, setObserving] = useState(false);
@@ -174,6 +176,12 @@ export function PlotBookPage({ clubId, plotId, year, isCoordinator, neighbourChe
               ))}
             </Section>
           </div>
+
+          {Tasks && b.season.isCurrent && (
+            <Section id="tasks" title="Tasks">
+              <Tasks clubId={clubId} plotId={plot.id} plotLabel={plot.label} siteId={plot.siteId} siteName={plot.siteName} />
+            </Section>
+          )}
 
           {neighbourCheck && (
             <Section id="neighbour-check" title="Neighbour check">

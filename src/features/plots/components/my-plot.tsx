@@ -1,4 +1,5 @@
 import { BookOpen, CalendarClock, Shovel } from 'lucide-react';
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { plotKindLabels } from '@shared/schemas/plots';
 import type { MyPlotHolding } from '@shared/schemas/my-plot';
@@ -25,8 +26,14 @@ function HoldingMap({ holding }: { holding: MyPlotHolding }) {
   return <PlotViewer site={holding.site} plots={plots.data.items} yourPlotId={holding.plotId} />;
 }
 
+export interface MyPlotProps {
+  clubId: number;
+  /** A line about the plot's week (src/app hands it in from the tasks feature); it draws nothing until it has something to say. */
+  thisWeek?: (plotId: number) => ReactNode;
+}
+
 /** A plot holder's own plot on the club home: label, site, size and season, a renewal to answer, and a map. */
-export function MyPlot({ clubId }: { clubId: number }) {
+export function MyPlot({ clubId, thisWeek }: MyPlotProps) {
   const mine = useMyPlot(clubId);
   return (
     <section aria-labelledby="my-plot" className="mb-10 space-y-4">
@@ -77,6 +84,7 @@ export function MyPlot({ clubId }: { clubId: number }) {
                   <dd>{mine.data.holding.seasonYear}</dd>
                 </dl>
               </div>
+              {thisWeek?.(mine.data.holding.plotId)}
               <Link to={paths.plotBook(clubId, mine.data.holding.plotId)} className={`${buttonClasses('primary')} w-full sm:w-auto`}>
                 <BookOpen className="size-5" aria-hidden="true" />
                 Open the plot book
