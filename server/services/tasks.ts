@@ -361,3 +361,15 @@ export async function generateSiteTasks(
   }
   return totals;
 }
+
+/**
+ * After the weather log changed on some days, in the same transaction: re-plan the site's tasks when
+ * a day falls in the weeks the watering is worked out from (the week before this one onwards).
+ */
+export async function replanAfterWeather(trx: Knex.Transaction, siteId: number, changedDays: string[], now?: Date): Promise<SyncCounts | null> {
+  const site = await trx('sites').where({ id: siteId }).first('time_zone');
+  if (!site) return null;
+  const from = addCalendarDays(weekStartOf(localToday(site.time_zone, now)), -7);
+  if (!changedDays.some((d) => d >= from)) return null;
+  return regenerateTasks(trx, siteId, { now });
+}

@@ -21,6 +21,7 @@ import {
 import type { Db } from '../db/knex';
 import { csvText, importRefusal, readCsvTable, sortProblems } from './csv-files';
 import { refuseWrite, WEATHER_LOCK, weatherAccess, weatherDaysForCsv, type WeatherAccess } from './weather';
+import { replanAfterWeather } from './tasks';
 
 // File rules, the same as every import (services/csv-files.ts): the header is line 1, names ignore
 // case with spaces and dashes read as underscores; comma, semicolon or tab separate cells; decimals use a
@@ -185,6 +186,7 @@ export async function importWeather(
         .merge([...columns, 'source', 'entered_by_user_id', 'updated_at']);
     }
     const changedDays = writes.map((r) => r.day).sort();
+    await replanAfterWeather(trx, access.site.id, changedDays);
     return { rows, errors: [], counts, committed: true, changedDays };
   });
 }

@@ -16,6 +16,7 @@ import { crossFieldProblems, isEmptyDay, weatherQuantities, weatherQuantity, wea
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { pickCurrentSeason } from './plot-book';
+import { replanAfterWeather } from './tasks';
 
 // The daily weather log of a site (see DEVELOPERS.md, 2026-12-03). Who may do what is decided here,
 // in `weatherAccess`, for every route: every member of the club reads the log; the club's coordinators
@@ -266,6 +267,7 @@ export async function putWeatherDay(
     if (stored) await trx('weather_days').where({ site_id: access.site.id, day: opts.day }).update(columns);
     else await trx('weather_days').insert({ site_id: access.site.id, day: opts.day, ...columns });
     const saved: WeatherRow = await daysQuery(trx, access.site.id, access.isCoordinator).where('w.day', opts.day).first();
+    await replanAfterWeather(trx, access.site.id, [opts.day], opts.now);
     return { day: toDay(saved, access.isCoordinator), created: !stored, changedDays: [opts.day] };
   });
 }
@@ -278,6 +280,7 @@ export async function deleteWeatherDay(db: Knex, opts: { siteId: number; userId:
     await lockLog(trx, access.site.id);
     const removed = await trx('weather_days').where({ site_id: access.site.id, day: opts.day }).delete();
     if (removed === 0) throw notFound(`The weather for ${opts.day}`);
+    await replanAfterWeather(trx, access.site.id, [opts.day], opts.now);
     return { changedDays: [opts.day] };
   });
 }

@@ -161,6 +161,21 @@ describe('tasks over HTTP', () => {
     expect(bad.body.error.fields).toHaveProperty('version');
   });
 
+  it('re-plans the watering in the same request when the holder logs rain from the gauge', async () => {
+    const s = await club();
+    const today = localToday('UTC');
+    await s.plant(s.a1, s.lettuce.id, plusDays(today, -30), 'transplanted');
+    await generateSiteTasks(t.db, s.siteId);
+    const key = `water:${weekStartOf(today)}`;
+    const dry = await t.db('tasks').where({ plot_id: s.a1, gen_key: key }).first();
+    expect(dry).toBeDefined();
+    const logged = await s.hana.put(`/api/sites/${s.siteId}/weather/${today}`, { rainMm: 6 });
+    expect(logged.status).toBeLessThan(300);
+    const wetter = await t.db('tasks').where({ plot_id: s.a1, gen_key: key }).first();
+    expect(Number(wetter.amount_mm)).toBeCloseTo(Number(dry.amount_mm) - 6, 0);
+    expect(wetter.details).toMatch(/rain logged 6 mm/);
+  });
+
   it('hands a holder’s watering to the volunteers while away, and a volunteer may then do it', async () => {
     const s = await club();
     const today = localToday('UTC');
