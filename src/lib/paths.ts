@@ -9,6 +9,10 @@ export const paths = {
   sites: (clubId: number) => `/clubs/${clubId}/sites`,
   siteEdit: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/edit`,
   sitePlots: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/plots`,
+  /** A site's daily weather log. */
+  weather: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/weather`,
+  /** The quick rain entry; `siteId` picks the site first shown. */
+  rainGauge: (clubId: number, siteId?: number) => `/clubs/${clubId}/rain-gauge${siteId ? `?site=${siteId}` : ''}`,
   plot: (clubId: number, plotId: number) => `/clubs/${clubId}/plots/${plotId}`,
   /** A plot's plot book; `year` picks an earlier season. */
   plotBook: (clubId: number, plotId: number, year?: number) => `/clubs/${clubId}/plots/${plotId}/book${year ? `?year=${year}` : ''}`,
