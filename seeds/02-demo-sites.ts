@@ -94,6 +94,8 @@ export async function seed(knex: Knex): Promise<void> {
         // Soil at about 10 cm by month, January first: invented for the demo, near what a lowland
         // site in north-west England sees (from memory), so the check can say when it is too cold to sow.
         soil_temps_c: JSON.stringify([3, 3, 5, 8, 12, 15, 17, 16, 14, 10, 6, 4]),
+        // Invented for the demo: a lowland site.
+        elevation_m: 60,
         soil_notes: 'Clay loam; lime added to the B row in 2025.',
       },
       plots: metricPlots(),
@@ -115,6 +117,8 @@ export async function seed(knex: Knex): Promise<void> {
         first_autumn_frost: '10-05',
         // Invented for the demo, near a high-plains site at 40° N (from memory), °C, January first.
         soil_temps_c: JSON.stringify([0, 2, 5, 9, 14, 20, 23, 22, 18, 11, 5, 1]),
+        // Invented for the demo: a high-plains site (about 5400 ft).
+        elevation_m: 1650,
         soil_notes: 'Sandy; beds topped up with compost each spring.',
       },
       plots: usPlots(),

@@ -191,9 +191,15 @@ export async function importWeather(
   });
 }
 
-/** How many decimals a value is written with in a CSV: the column's own in SI, one more after a US conversion, so a file imports back unchanged. */
+/**
+ * How many decimals a value is written with in a CSV: the column's own in SI; after a US conversion
+ * enough that the file imports back to the same stored value (half a last digit in °F, mph or ft is
+ * under half the column's step; rain needs five decimals of an inch, since 0.00005 in = 0.00127 mm).
+ */
 function csvDecimals(q: WeatherQuantity, units: UnitSystem): number {
-  return units === 'us' && (q.kind === 'temperature' || q.kind === 'rain' || q.kind === 'speed' || q.kind === 'height') ? q.decimals + 1 : q.decimals;
+  if (units === 'metric') return q.decimals;
+  if (q.kind === 'rain') return 5;
+  return q.kind === 'temperature' || q.kind === 'speed' || q.kind === 'height' ? q.decimals + 1 : q.decimals;
 }
 
 /** A stored value as written in a CSV of the given units. */

@@ -55,6 +55,9 @@ export const WeatherDayBodySchema = z
       return;
     }
     for (const [key, message] of Object.entries(crossFieldProblems(body))) ctx.addIssue({ code: 'custom', path: [key], message });
+  }, {
+    // Only a body that is otherwise right is checked as a whole, so an unknown or bad field is named alone.
+    when: ({ issues }) => issues.length === 0,
   });
 export type WeatherDayBody = z.infer<typeof WeatherDayBodySchema>;
 

@@ -51,7 +51,7 @@ export const weatherQuantities: readonly WeatherQuantity[] = [
   { key: 'rhMaxPct', column: 'rh_max_pct', csv: 'rh_max', kind: 'percent', min: 0, max: 100, decimals: 1, label: 'Highest humidity' },
   { key: 'rhMeanPct', column: 'rh_mean_pct', csv: 'rh_mean', kind: 'percent', min: 0, max: 100, decimals: 1, label: 'Mean humidity' },
   { key: 'windMs', column: 'wind_ms', csv: 'wind', kind: 'speed', min: 0, max: 100, decimals: 3, label: 'Wind speed' },
-  { key: 'windHeightM', column: 'wind_height_m', csv: 'wind_height', kind: 'height', min: 0.5, max: 100, decimals: 3, label: 'Wind measured at' },
+  { key: 'windHeightM', column: 'wind_height_m', csv: 'wind_height', kind: 'height', min: 0.5, max: 100, decimals: 3, label: 'Wind sensor height' },
   { key: 'sunshineH', column: 'sunshine_h', csv: 'sunshine_hours', kind: 'hours', min: 0, max: 24, decimals: 2, label: 'Sunshine' },
   { key: 'solarMjM2', column: 'solar_mj_m2', csv: 'solar_radiation', kind: 'solar', min: 0, max: 50, decimals: 2, label: 'Solar radiation' },
 ];

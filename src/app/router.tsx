@@ -70,6 +70,11 @@ export const router = createBrowserRouter([
                 path: 'sites/:siteId/plots',
                 lazy: () => import('./routes/site-plots').then((m) => ({ Component: m.SitePlotsRoute })),
               },
+              {
+                path: 'sites/:siteId/weather',
+                lazy: () => import('./routes/weather').then((m) => ({ Component: m.WeatherRoute })),
+              },
+              { path: 'rain-gauge', lazy: () => import('./routes/rain-gauge').then((m) => ({ Component: m.RainGaugeRoute })) },
               { path: 'plots/:plotId', lazy: () => import('./routes/plot').then((m) => ({ Component: m.PlotRoute })) },
               { path: 'plots/:plotId/book', lazy: () => import('./routes/plot-book').then((m) => ({ Component: m.PlotBookRoute })) },
               { path: 'crops', lazy: () => import('./routes/crops').then((m) => ({ Component: m.CropsRoute })) },

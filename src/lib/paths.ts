@@ -15,6 +15,10 @@ export const paths = {
   siteTasks: (clubId: number, siteId: number, query = '') => `/clubs/${clubId}/sites/${siteId}/tasks${query}`,
   /** A site's water need, rain and deficit (every member). */
   siteWater: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/water`,
+  /** A site's daily weather log. */
+  weather: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/weather`,
+  /** The quick rain entry; `siteId` picks the site first shown. */
+  rainGauge: (clubId: number, siteId?: number) => `/clubs/${clubId}/rain-gauge${siteId ? `?site=${siteId}` : ''}`,
   plot: (clubId: number, plotId: number) => `/clubs/${clubId}/plots/${plotId}`,
   /** A plot's plot book; `year` picks an earlier season. */
   plotBook: (clubId: number, plotId: number, year?: number) => `/clubs/${clubId}/plots/${plotId}/book${year ? `?year=${year}` : ''}`,

@@ -179,7 +179,7 @@ const killer: fc.Arbitrary<unknown> = fc.oneof(
 );
 
 // Query names the routes read, tried more often than the body field names.
-const queryNames = ['page', 'pageSize', 'year', 'status', 'siteId', 'version', 'units', 'kind', 'token', 'needs', 'severity', 'seasonId', 'date', 'x', 'width'];
+const queryNames = ['page', 'pageSize', 'year', 'status', 'siteId', 'version', 'units', 'kind', 'token', 'needs', 'severity', 'seasonId', 'date', 'x', 'width', 'from', 'to'];
 const queryArb = fc.dictionary(
   fc.oneof({ weight: 3, arbitrary: fc.constantFrom(...queryNames) }, { weight: 1, arbitrary: fc.constantFrom(...fieldNames) }),
   fc.oneof(
@@ -221,6 +221,9 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
   'POST /api/plots/:plotId/plantings': () => ({ cropId: 1, method: 'sown', plantedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
   'POST /api/plots/:plotId/plantings/check': () => ({ cropId: 1, method: 'sown', plantedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
   'POST /api/plots/:plotId/observations': () => ({ pestSlug: 'clubroot', severity: 'light', observedOn: '2026-11-20', part: { x: 0, y: 0, width: 1, length: 2 } }),
+  // The weather log: a gauge entry on a past day, and a file checked without saving.
+  'PUT /api/sites/:siteId/weather/:day': () => ({ rainMm: 4.5, tMinC: 3, tMaxC: 11, source: 'gauge' }),
+  'POST /api/sites/:siteId/weather-imports': () => ({ csv: 'date,t_min,t_max,rain\n2026-06-01,9,18,2.5\n', units: 'metric', duplicates: 'skip', commit: false }),
 };
 const feeSchedule = {
   basis: 'kind',
@@ -299,8 +302,8 @@ function paramValue(name: string, x: Fixture): string | null {
     taskId: 999999,
     handoverId: 999999,
     runId: 999999,
-    // A weather log day in the past.
-    day: '2026-06-01',
+    // A past day of the weather log (the site's zone is London; the fixed date is before any run of this test).
+    day: '2026-11-20',
   };
   return name in known ? String(known[name]) : null;
 }

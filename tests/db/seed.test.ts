@@ -66,4 +66,52 @@ describe('demo seed', () => {
     const clubroot = await db('observations as o').join('plots as p', 'p.id', 'o.plot_id').where('o.pest_slug', 'clubroot').select('p.label', 'o.is_soil_borne', 'o.observed_on');
     expect(clubroot).toEqual([{ label: 'B-2', is_soil_borne: true, observed_on: '2024-07-13' }]);
   });
+
+  it('gives both demo sites invented daily weather from 1 April 2026 to the seed’s fixed date, the same every run', async () => {
+    const snapshot = async () => {
+      await truncateAll(db);
+      await db.seed.run();
+      return db('weather_days as w').join('sites as s', 's.id', 'w.site_id').orderBy(['s.name', 'w.day']).select('s.name', 'w.*');
+    };
+    const strip = (rows: Array<Record<string, unknown>>) => rows.map(({ id: _i, site_id: _s, entered_by_user_id: _e, ...rest }) => rest);
+    const first = await snapshot();
+    expect(strip(await snapshot())).toEqual(strip(first));
+
+    const sites = await db('sites').orderBy('name').select('name', 'elevation_m');
+    expect(sites).toEqual([
+      { name: 'Mossgate Lane', elevation_m: 60 },
+      { name: 'Orchard Corner', elevation_m: 1650 },
+    ]);
+    const rows = await snapshot();
+    const of = (name: string) => rows.filter((r) => r.name === name);
+    const mossgate = of('Mossgate Lane');
+    const orchard = of('Orchard Corner');
+    // computed: 1 April to 20 November 2026 is 30 + 31 + 30 + 31 + 31 + 30 + 31 + 20 = 234 days
+    expect(mossgate).toHaveLength(234);
+    expect([mossgate[0].day, mossgate.at(-1).day]).toEqual(['2026-04-01', '2026-11-20']);
+    expect(orchard.length).toBeLessThan(234);
+    expect(orchard.length).toBeGreaterThan(200);
+
+    // Mossgate: most days hold everything FAO-56 Penman-Monteith needs (temperatures, humidity, wind with
+    // its height, sunshine); some hold only the rain gauge's reading.
+    const full = mossgate.filter((r) => [r.t_min_c, r.t_max_c, r.rh_min_pct, r.rh_max_pct, r.wind_ms, r.wind_height_m, r.sunshine_h].every((v) => v !== null));
+    const rainOnly = mossgate.filter((r) => r.rain_mm !== null && r.t_max_c === null && r.sunshine_h === null);
+    expect(full.length).toBeGreaterThan(mossgate.length * 0.8);
+    expect(rainOnly.length).toBeGreaterThan(3);
+    expect(rainOnly.every((r) => r.source === 'gauge')).toBe(true);
+    // Orchard Corner: temperatures and rain only (Hargreaves), never humidity, wind or sunshine.
+    expect(orchard.every((r) => r.t_min_c !== null && r.t_max_c !== null && r.rain_mm !== null)).toBe(true);
+    expect(orchard.every((r) => r.rh_min_pct === null && r.wind_ms === null && r.sunshine_h === null && r.solar_mj_m2 === null)).toBe(true);
+    // Within the log's own rules, and summer warmer than spring at both.
+    for (const r of rows) {
+      if (r.t_min_c !== null) expect(r.t_min_c, `${r.name} ${r.day}`).toBeLessThanOrEqual(r.t_max_c);
+      if (r.sunshine_h !== null) expect(r.sunshine_h).toBeLessThanOrEqual(24);
+    }
+    const meanMax = (list: typeof rows, month: string) => {
+      const inMonth = list.filter((r) => r.day.startsWith(month) && r.t_max_c !== null);
+      return inMonth.reduce((sum, r) => sum + r.t_max_c, 0) / inMonth.length;
+    };
+    expect(meanMax(mossgate, '2026-07')).toBeGreaterThan(meanMax(mossgate, '2026-04'));
+    expect(meanMax(orchard, '2026-07')).toBeGreaterThan(meanMax(orchard, '2026-04'));
+  });
 });

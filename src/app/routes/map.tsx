@@ -55,16 +55,21 @@ export function MapRoute() {
         title={`Map of ${site.name}`}
         description={`${site.plotCount} plots on ${site.units === 'us' ? 'a site measured in feet' : 'a site measured in metres'}.`}
         actions={
-          canEdit ? (
-            <div className="flex flex-wrap gap-3">
-              <Link to={paths.sitePlots(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
-                Plots table and CSV
-              </Link>
-              <Link to={paths.siteEdit(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
-                Site settings
-              </Link>
-            </div>
-          ) : undefined
+          <div className="flex flex-wrap gap-3">
+            <Link to={paths.weather(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
+              Weather log
+            </Link>
+            {canEdit && (
+              <>
+                <Link to={paths.sitePlots(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
+                  Plots table and CSV
+                </Link>
+                <Link to={paths.siteEdit(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
+                  Site settings
+                </Link>
+              </>
+            )}
+          </div>
         }
       />
       {items.length > 1 && (

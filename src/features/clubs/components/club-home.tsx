@@ -5,6 +5,7 @@ import {
   CalendarRange,
   ChartNoAxesColumn,
   Clock,
+  CloudRain,
   Coins,
   Droplets,
   HandHelping,
@@ -51,6 +52,7 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
     case 'plot_holder':
       return [
         { title: 'Plot book', body: 'Note what you sowed, planted and harvested, and see when to thin, feed and pick.', icon: BookOpen, href: paths.myPlot(clubId) },
+        { title: 'Rain gauge', body: 'Read the gauge at your site and log the rain in a few taps.', icon: CloudRain, href: paths.rainGauge(clubId) },
         { title: 'Ask for watering cover', body: 'Going away? Ask a volunteer to water while you are gone.', icon: Droplets },
       ];
     case 'volunteer':

@@ -1,4 +1,4 @@
-import { BookOpen, CalendarClock, Shovel } from 'lucide-react';
+import { BookOpen, CalendarClock, CloudRain, Shovel } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { plotKindLabels } from '@shared/schemas/plots';
@@ -85,10 +85,16 @@ export function MyPlot({ clubId, thisWeek }: MyPlotProps) {
                 </dl>
               </div>
               {thisWeek?.(mine.data.holding.plotId)}
-              <Link to={paths.plotBook(clubId, mine.data.holding.plotId)} className={`${buttonClasses('primary')} w-full sm:w-auto`}>
-                <BookOpen className="size-5" aria-hidden="true" />
-                Open the plot book
-              </Link>
+              <div className="flex flex-col gap-3 sm:flex-row">
+                <Link to={paths.plotBook(clubId, mine.data.holding.plotId)} className={`${buttonClasses('primary')} w-full sm:w-auto`}>
+                  <BookOpen className="size-5" aria-hidden="true" />
+                  Open the plot book
+                </Link>
+                <Link to={paths.rainGauge(clubId, mine.data.holding.site.id)} className={`${buttonClasses('secondary')} w-full sm:w-auto`}>
+                  <CloudRain className="size-5" aria-hidden="true" />
+                  Log the rain
+                </Link>
+              </div>
               <HoldingMap holding={mine.data.holding} />
             </Card>
           ) : (

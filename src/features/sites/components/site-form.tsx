@@ -12,6 +12,7 @@ import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useCreateSite } from '../api/create-site';
 import { isSiteConflict, useUpdateSite } from '../api/update-site';
 import {
+  convertElevationText,
   convertLengthText,
   convertTemperatureText,
   emptySiteForm,
@@ -119,6 +120,7 @@ export function SiteForm({ clubId, site, onSaved, onCancel }: SiteFormProps) {
     }
     // Soil temperatures follow the units too: °C on metric sites, °F on US ones.
     soilTempFieldNames.forEach((name) => setValue(name, convertTemperatureText(getValues(name), from, to), { shouldDirty: true }));
+    setValue('elevation', convertElevationText(getValues('elevation'), from, to), { shouldDirty: true });
   };
 
   const onError = (error: unknown) => {
@@ -204,6 +206,14 @@ export function SiteForm({ clubId, site, onSaved, onCancel }: SiteFormProps) {
           spellCheck={false}
           error={errors.timeZone?.message}
           {...register('timeZone')}
+        />
+        <TextField
+          label={`Elevation (${units === 'us' ? 'ft' : 'm'} above sea level)`}
+          hint={`Optional. Whole ${units === 'us' ? 'feet' : 'metres'}, e.g. ${units === 'us' ? '5400' : '60'}; kept to the metre.`}
+          inputMode="numeric"
+          autoComplete="off"
+          error={errors.elevation?.message}
+          {...register('elevation')}
         />
         <datalist id="site-form-time-zones">
           {timeZones.map((zone) => (

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
-import { Map as MapIcon, Pencil, Table2 } from 'lucide-react';
+import { CloudRain, Map as MapIcon, Pencil, Table2 } from 'lucide-react';
 import { formatLength } from '@shared/geometry';
 import type { Site } from '@shared/schemas/sites';
 import { DataTable } from '@/components/ui/data-table';
@@ -90,6 +90,10 @@ function columnsFor(clubId: number): ColumnDef<Site>[] {
             <Link to={paths.sitePlots(clubId, site.id)} className={linkClasses} aria-label={`Plots of ${site.name}`}>
               <Table2 className="size-4" aria-hidden="true" />
               Plots
+            </Link>
+            <Link to={paths.weather(clubId, site.id)} className={linkClasses} aria-label={`Weather at ${site.name}`}>
+              <CloudRain className="size-4" aria-hidden="true" />
+              Weather
             </Link>
             <Link to={paths.siteEdit(clubId, site.id)} className={linkClasses} aria-label={`Edit ${site.name}`}>
               <Pencil className="size-4" aria-hidden="true" />

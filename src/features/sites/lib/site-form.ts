@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { fromDisplayLength, roundTo, toDisplayLength, type UnitSystem } from '@shared/geometry';
-import { SiteCreateBodySchema, UnitsSchema, type Site, type SiteCreateBody, type SiteUpdateBody } from '@shared/schemas/sites';
+import { MAX_ELEVATION_M, MIN_ELEVATION_M, SiteCreateBodySchema, UnitsSchema, type Site, type SiteCreateBody, type SiteUpdateBody } from '@shared/schemas/sites';
 import {
   fromDisplayTemperature,
   MONTHS,
@@ -34,6 +34,8 @@ export interface SiteFormValues {
   firstAutumnFrost: string;
   soilNotes: string;
   soilTemps: string[];
+  /** Whole metres or feet above sea level by the chosen units; empty when not known. */
+  elevation: string;
 }
 
 export const siteFormFieldNames = [
@@ -48,6 +50,7 @@ export const siteFormFieldNames = [
   'firstAutumnFrost',
   'soilNotes',
   'soilTemps',
+  'elevation',
 ] as const satisfies readonly (keyof SiteFormValues)[];
 
 /** One input per month: `soilTemps.0` is January. */
@@ -61,6 +64,7 @@ export const SOIL_TEMPS_INCOMPLETE = 'Fill in all twelve months, or leave them a
  * `soilTempsC.3`; the form holds them as `soilTemps` in the site's units. Other names are the same.
  */
 export function formFieldOf(serverField: string): string {
+  if (serverField === 'elevationM') return 'elevation';
   const month = /^soilTempsC\.(\d+)$/.exec(serverField);
   if (month && Number(month[1]) < MONTHS) return `soilTemps.${Number(month[1])}`;
   if (serverField === 'soilTempsC' || serverField.startsWith('soilTempsC.')) return 'soilTemps';
@@ -101,6 +105,10 @@ export const SiteFormSchema = z
     firstAutumnFrost: monthDayText,
     soilNotes: z.string(),
     soilTemps: soilTempsTexts,
+    elevation: z
+      .string()
+      .trim()
+      .refine((v) => v === '' || /^[+-]?\d+(\.\d*)?$/.test(v), 'Enter a whole number, like 60 (or leave it empty)'),
   })
   .superRefine((v, ctx) => {
     const unit = temperatureUnitLabel(v.units);
@@ -117,6 +125,14 @@ export const SiteFormSchema = z
       if (value < min) ctx.addIssue({ code: 'custom', path: ['soilTemps', i], message: `At least ${min} ${unit}` });
       else if (value > max) ctx.addIssue({ code: 'custom', path: ['soilTemps', i], message: `At most ${max} ${unit}` });
     });
+    const elevation = elevationMetres(v.elevation, v.units);
+    if (elevation !== null && !Number.isNaN(elevation) && (elevation < MIN_ELEVATION_M || elevation > MAX_ELEVATION_M)) {
+      // Said in the units typed: −500 to 9000 m is −1640 to 29528 ft.
+      const lo = Math.round(toDisplayLength(MIN_ELEVATION_M, v.units));
+      const hi = Math.round(toDisplayLength(MAX_ELEVATION_M, v.units));
+      const u = v.units === 'us' ? 'ft' : 'm';
+      ctx.addIssue({ code: 'custom', path: ['elevation'], message: elevation < MIN_ELEVATION_M ? `At least ${lo} ${u}` : `At most ${hi} ${u}` });
+    }
     const filled = texts.filter((t) => t !== '').length;
     if (filled > 0 && filled < MONTHS) ctx.addIssue({ code: 'custom', path: ['soilTemps'], message: SOIL_TEMPS_INCOMPLETE });
   }, {
@@ -124,7 +140,7 @@ export const SiteFormSchema = z
     // the units and the twelve texts to be readable.
     when: ({ value }) => {
       const v = value as { units?: unknown; soilTemps?: unknown } | null;
-      return UnitsSchema.safeParse(v?.units).success && soilTempsTexts.safeParse(v?.soilTemps).success;
+      return UnitsSchema.safeParse(v?.units).success && soilTempsTexts.safeParse(v?.soilTemps).success && typeof (v as { elevation?: unknown } | null)?.elevation === 'string';
     },
   })
   .transform(
@@ -145,9 +161,29 @@ export const SiteFormSchema = z
       soilTempsC: v.soilTemps.every((t) => t.trim() === '')
         ? null
         : v.soilTemps.map((t) => fromDisplayTemperature(Number(t.trim()), v.units)),
+      elevationM: elevationMetres(v.elevation, v.units),
     }),
   )
   .pipe(SiteCreateBodySchema);
+
+/** A typed elevation (metres, or feet on a US site) as whole metres, as the site keeps it; null when empty. */
+export function elevationMetres(text: string, units: UnitSystem): number | null {
+  const value = text.trim();
+  if (value === '') return null;
+  return Math.round(fromDisplayLength(Number(value), units));
+}
+
+/** A stored elevation as the form shows it: whole metres, or whole feet on a US site. */
+export function elevationText(metres: number | null, units: UnitSystem): string {
+  return metres === null ? '' : String(Math.round(toDisplayLength(metres, units)));
+}
+
+/** Re-expresses a typed elevation in other units (60 m → 197 ft); text that is not a number is left alone. */
+export function convertElevationText(text: string, from: UnitSystem, to: UnitSystem): string {
+  const value = text.trim();
+  if (!NUMBER.test(value) || from === to) return text;
+  return String(Math.round(toDisplayLength(fromDisplayLength(Number(value), from), to)));
+}
 
 // Metres to the millimetre, as stored; feet to two places, which is finer than anyone measures a garden.
 const displayDecimals: Record<UnitSystem, number> = { metric: 3, us: 2 };
@@ -201,6 +237,7 @@ export function emptySiteForm(): SiteFormValues {
     firstAutumnFrost: '',
     soilNotes: '',
     soilTemps: soilTempsText(null, 'metric'),
+    elevation: '',
   };
 }
 
@@ -222,6 +259,7 @@ export function siteToForm(site: Site): SiteFormValues {
     firstAutumnFrost: site.firstAutumnFrost ?? '',
     soilNotes: site.soilNotes,
     soilTemps: soilTempsText(site.soilTempsC, units),
+    elevation: elevationText(site.elevationM, units),
   };
 }
 
@@ -247,6 +285,7 @@ export function siteChanges(site: Site, body: SiteCreateBody): SiteUpdateBody {
   if (body.firstAutumnFrost !== site.firstAutumnFrost) changes.firstAutumnFrost = body.firstAutumnFrost;
   if (body.soilNotes !== site.soilNotes) changes.soilNotes = body.soilNotes;
   if (!sameSoilTemps(body.soilTempsC, site.soilTempsC)) changes.soilTempsC = body.soilTempsC;
+  if ((body.elevationM ?? null) !== site.elevationM) changes.elevationM = body.elevationM ?? null;
   return changes;
 }
 

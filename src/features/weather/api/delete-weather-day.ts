@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiFetch } from '@/lib/api/client';
+import { weatherKeys } from './keys';
+
+/** DELETE /api/sites/:siteId/weather/:day: the whole day (coordinators). */
+export function deleteWeatherDay(siteId: number, day: string): Promise<undefined> {
+  return apiFetch(`/api/sites/${siteId}/weather/${day}`, { method: 'DELETE' });
+}
+
+/** Deletes one day of a site's log and refreshes the log. */
+export function useDeleteWeatherDay(siteId: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (day: string) => deleteWeatherDay(siteId, day),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: weatherKeys.site(siteId) }),
+  });
+}
