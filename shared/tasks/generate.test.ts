@@ -118,6 +118,9 @@ describe('watering', () => {
     const water = tasksForPlanting(p, ctx('2026-06-28', week([4, 0, 5]), 'us')).find((t) => t.genKey === 'water:2026-06-22')!;
     expect(water.title).toBe('Water the lettuce: 12.7 US gal');
     expect(water.details).toContain('0.63 in');
+    // computed: the rule of thumb's 25/7 mm a day = 3.571 mm ÷ 25.4 mm/in = 0.14 in/day
+    expect(water.details).toContain('ET0 0.14 in/day');
+    expect(water.details).not.toContain('mm/day');
   });
 
   it('asks for no watering in a week with enough rain logged', () => {

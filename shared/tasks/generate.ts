@@ -4,7 +4,7 @@ import { pestBySlug } from '../crops/pests';
 import { cropSourceById } from '../crops/sources';
 import { daysBetween, plusDays, type PlantingDates } from '../plot-book/dates';
 import type { TaskKind } from '../schemas/tasks';
-import { et0ForDay, kcOnDay, litresFor, usGallonsFromLitres, inchesFromMm, type Et0Result, type SiteClimate, type WeatherDay } from '../water';
+import { ET0_METHOD_WORDS, et0ForDay, kcOnDay, litresFor, needDay, usGallonsFromLitres, inchesFromMm, weeklyNeed, type Et0Method, type Et0Result, type NeedDay, type SiteClimate, type WeatherDay } from '../water';
 
 // The season's care for one planting, worked out from its dates (the plot book's), the crop notes and
 // the site's weather log. Pure: the server compares what this returns with the tasks it stored and
@@ -265,46 +265,32 @@ export function waterWeek(p: TaskPlantingInput, ctx: TaskContext, weekStart: str
   const to = minDate(plusDays(weekStart, 6), end);
   if (from > to) return null;
   const factor = bedFactor(p.plotKind, ctx.factors);
-  let need = 0;
-  let rain = 0;
-  let kcSum = 0;
-  let et0Sum = 0;
-  let days = 0;
+  const days: NeedDay[] = [];
   let estimatedDays = 0;
   const methods: Record<string, number> = {};
   for (let on = from; on <= to; on = plusDays(on, 1)) {
     const et0 = et0Estimate(on, ctx);
     // The rule of thumb is already a crop's need (about an inch a week), so Kc does not scale it.
     const kc = et0.method !== 'rule_of_thumb' && p.crop.kc && p.crop.stages ? kcOnDay(p.crop.kc.value, p.crop.stages.value, daysBetween(p.plantedOn, on)).kc : 1;
-    need += kc * et0.mm * factor;
-    kcSum += kc;
-    et0Sum += et0.mm;
-    days++;
+    // Rain only counts on days that have passed; a day to come has none logged yet.
+    days.push(needDay({ date: on, et0, kc, factor, rainMm: on <= ctx.today ? ctx.weather.get(on)?.rainMm : 0 }));
     if (et0.estimated && et0.note === ESTIMATED_NOTE) estimatedDays++;
     methods[et0.method] = (methods[et0.method] ?? 0) + 1;
-    if (on <= ctx.today) rain += ctx.weather.get(on)?.rainMm ?? 0;
   }
+  const sum = weeklyNeed(days);
   return {
     weekStart,
     from,
     to,
-    needMm: need,
-    rainMm: rain,
-    deficitMm: Math.max(0, need - rain),
-    meanKc: kcSum / days,
-    meanEt0: et0Sum / days,
-    days,
+    ...sum,
+    meanKc: days.reduce((a, d) => a + d.kc, 0) / days.length,
+    meanEt0: days.reduce((a, d) => a + d.et0.mm, 0) / days.length,
+    days: days.length,
     methods,
     estimatedDays,
     factor,
   };
 }
-
-const methodWords: Record<string, string> = {
-  penman_monteith: 'FAO-56 Penman-Monteith',
-  hargreaves: 'Hargreaves (FAO-56 Eq. 52)',
-  rule_of_thumb: 'the rule of thumb of about 25 mm a week',
-};
 
 /** How a week's water reads to a person: the amount first, then the sum that gave it. */
 export function explainWaterWeek(p: TaskPlantingInput, w: WaterWeek, units: 'metric' | 'us'): { title: string; details: string; amountL: number } {
@@ -314,14 +300,14 @@ export function explainWaterWeek(p: TaskPlantingInput, w: WaterWeek, units: 'met
   const area = units === 'us' ? `${round1(p.areaM2 / 0.09290304)} ft²` : `${round1(p.areaM2)} m²`;
   const bed = p.plotKind === 'raised_bed' ? 'raised bed' : p.plotKind === 'container' ? 'container' : 'bed';
   const how = Object.entries(w.methods)
-    .map(([m, n]) => `${methodWords[m] ?? m}${Object.keys(w.methods).length > 1 ? ` ${n} d` : ''}`)
+    .map(([m, n]) => `${ET0_METHOD_WORDS[m as Et0Method] ?? m}${Object.keys(w.methods).length > 1 ? ` ${n} d` : ''}`)
     .join(', ');
   const factor = w.factor !== 1 ? ` × ${w.factor} for a ${bed}` : '';
   const estimated = w.estimatedDays ? `; ${w.estimatedDays} of the days still to come, estimated from the past week’s log` : '';
   return {
     title: `Water the ${lower(p.cropName)}: ${amount}`,
     details:
-      `Water ${amount} over this ${area} ${bed}: need ${mm(w.needMm)} this week (${lower(p.cropName)}, Kc ${w.meanKc.toFixed(2)} × ET0 ${w.meanEt0.toFixed(1)} mm/day × ${w.days} days${factor}, ${how}${estimated}), ` +
+      `Water ${amount} over this ${area} ${bed}: need ${mm(w.needMm)} this week (${lower(p.cropName)}, Kc ${w.meanKc.toFixed(2)} × ET0 ${units === 'us' ? `${inchesFromMm(w.meanEt0).toFixed(2)} in/day` : `${w.meanEt0.toFixed(1)} mm/day`} × ${w.days} days${factor}, ${how}${estimated}), ` +
       `rain logged ${mm(w.rainMm)}, deficit ${mm(w.deficitMm)}.`,
     amountL: litres,
   };
