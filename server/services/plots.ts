@@ -8,6 +8,7 @@ import { lapseOverdue } from './offers';
 import { neighbourPlotIds, recheckSite, siteOfPlot } from './findings';
 import { listPlotEvents, recordPlotEvent } from './plot-events';
 import { seasonPlotStates } from './season-plots';
+import { regenerateTasks } from './tasks';
 import { physicalPlotEvents, seesPeople, type Viewer } from './visibility';
 
 const EPS = STORED_LENGTH_EPS;
@@ -119,6 +120,8 @@ export async function updatePlot(db: Knex, opts: { plotId: number; userId: numbe
       await recordPlotEvent(trx, { plotId: row.id, userId: opts.userId, kind, details: { changes: diff } });
       // Place, size, kind and soil all feed the neighbour check.
       await recheckSite(trx, row.site_id, [opts.plotId, ...oldNeighbours]);
+      // Size and kind set the litres to water (area, raised bed or container): re-plan its plantings' tasks.
+      if (SIZE.some((k) => k in diff) || 'kind' in diff) await regenerateTasks(trx, row.site_id, { plotIds: [row.id] });
     }
     return toPlot(row);
   });

@@ -120,7 +120,7 @@ interface PlantingTaskRow {
 export async function loadTaskPlantings(
   db: Db,
   setup: SiteTaskSetup,
-  opts: { plantingIds?: number[]; afterId?: number; limit?: number } = {},
+  opts: { plantingIds?: number[]; plotIds?: number[]; afterId?: number; limit?: number } = {},
 ): Promise<Array<TaskPlantingInput & { plotId: number }>> {
   if (setup.seasonId === null) return [];
   let q = db('plantings as pl')
@@ -146,6 +146,7 @@ export async function loadTaskPlantings(
     )
     .orderBy('pl.id');
   if (opts.plantingIds) q = q.whereIn('pl.id', opts.plantingIds);
+  if (opts.plotIds) q = q.whereIn('pl.plot_id', opts.plotIds);
   if (opts.afterId !== undefined) q = q.where('pl.id', '>', opts.afterId);
   if (opts.limit !== undefined) q = q.limit(opts.limit);
   const rows: PlantingTaskRow[] = await q;
@@ -310,11 +311,11 @@ export async function syncPlantingTasks(trx: Knex.Transaction, setup: SiteTaskSe
 }
 
 /** Re-plans some plantings of a site (a planting saved, the weather logged) in the caller's transaction. */
-export async function regenerateTasks(trx: Knex.Transaction, siteId: number, opts: { plantingIds?: number[]; now?: Date } = {}): Promise<SyncCounts> {
+export async function regenerateTasks(trx: Knex.Transaction, siteId: number, opts: { plantingIds?: number[]; plotIds?: number[]; now?: Date } = {}): Promise<SyncCounts> {
   const setup = await loadSiteTaskSetup(trx, siteId, opts.now);
   if (!setup) return { created: 0, updated: 0, removed: 0 };
   await trx.raw('select pg_advisory_xact_lock(?, ?)', [TASKS_LOCK, siteId]);
-  const plantings = await loadTaskPlantings(trx, setup, { plantingIds: opts.plantingIds });
+  const plantings = await loadTaskPlantings(trx, setup, { plantingIds: opts.plantingIds, plotIds: opts.plotIds });
   return syncPlantingTasks(trx, setup, plantings);
 }
 

@@ -134,6 +134,30 @@ describe('generating a site’s tasks', () => {
 });
 
 describe('tasks over HTTP', () => {
+  it('re-plans the litres when a coordinator resizes a plot or makes it a raised bed', async () => {
+    const s = await club();
+    const today = localToday('UTC');
+    const monday = weekStartOf(today);
+    const id = await s.plant(s.a1, s.lettuce.id, plusDays(today, -20), 'transplanted');
+    await generateSiteTasks(t.db, s.siteId);
+    // No weather logged: the rule of thumb (about 25 mm a week) over this week's days, well above the 5 mm floor.
+    const before = await t.db('tasks').where({ planting_id: id, gen_key: `water:${monday}` }).first();
+    expect(Number(before.amount_l)).toBeGreaterThan(0);
+    const plot = await t.db('plots').where({ id: s.a1 }).first('version');
+    const wider = await s.coordinator.patch(`/api/plots/${s.a1}`, { version: plot.version, length: 4 });
+    expect(wider.status).toBe(200);
+    const after = await t.db('tasks').where({ planting_id: id, gen_key: `water:${monday}` }).first();
+    // computed: 1 mm over 1 m² = 1 L, so the same depth over twice the area (3 m × 4 m against 3 m × 2 m) is twice the litres
+    expect(Number(after.amount_mm)).toBeCloseTo(Number(before.amount_mm), 6);
+    expect(Number(after.amount_l)).toBeCloseTo(Number(before.amount_l) * 2, 0);
+    expect(after.id).toBe(before.id);
+    const raised = await s.coordinator.patch(`/api/plots/${s.a1}`, { version: wider.body.version, kind: 'raised_bed' });
+    expect(raised.status).toBe(200);
+    const bed = await t.db('tasks').where({ planting_id: id, gen_key: `water:${monday}` }).first();
+    // The club's raised-bed factor (1.2 by default, our own figure) scales the need.
+    expect(Number(bed.amount_mm)).toBeCloseTo(Number(before.amount_mm) * 1.2, 0);
+  });
+
   it('shows a plot’s tasks to those who may read its plot book, and lets the holder mark one done (409 on a stale version)', async () => {
     const s = await club();
     const today = localToday('UTC');
