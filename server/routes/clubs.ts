@@ -18,7 +18,7 @@ export function clubsRouter({ db }: Deps): Router {
 
   router.patch('/', requireClubRole(db, 'coordinator'), async (req, res) => {
     const body = parseInput(ClubSettingsUpdateBodySchema, req.body);
-    res.json(await updateClubSettings(db, req.clubId!, body));
+    res.json(await updateClubSettings(db, req.clubId!, body, { userId: req.session.userId! }));
   });
 
   return router;

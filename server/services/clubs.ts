@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import { recheckClub } from './findings';
+import { kickTaskRuns, queueTaskRun } from './task-runs';
 import type { ClubSettings, ClubSettingsUpdateBody } from '@shared/schemas/clubs';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
@@ -19,6 +20,8 @@ interface ClubRow {
   typical_wait: string | null;
   rotation_gap_years: number;
   shares_plot_books: boolean;
+  raised_bed_water_factor: number | string;
+  container_water_factor: number | string;
 }
 
 function toClubSettings(r: ClubRow, currencyLocked: boolean): ClubSettings {
@@ -37,12 +40,14 @@ function toClubSettings(r: ClubRow, currencyLocked: boolean): ClubSettings {
     typicalWait: r.typical_wait,
     rotationGapYears: r.rotation_gap_years,
     sharesPlotBooks: r.shares_plot_books,
+    raisedBedWaterFactor: Number(r.raised_bed_water_factor),
+    containerWaterFactor: Number(r.container_water_factor),
     currencyLocked,
   };
 }
 
 const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers', 'time_zone',
-  'contact_email', 'fee_note', 'typical_wait', 'rotation_gap_years', 'shares_plot_books'];
+  'contact_email', 'fee_note', 'typical_wait', 'rotation_gap_years', 'shares_plot_books', 'raised_bed_water_factor', 'container_water_factor'];
 
 const hasFees = async (db: Db, clubId: number) => Boolean(await db('fees').where({ club_id: clubId }).first('id'));
 
@@ -63,8 +68,8 @@ export async function getClubSettings(db: Db, clubId: number): Promise<ClubSetti
  * Changes a club's name and rules. The currency is fixed once a fee is recorded, because fees keep the
  * currency they were charged in and the club's totals add them up as one currency.
  */
-export async function updateClubSettings(db: Knex, clubId: number, body: ClubSettingsUpdateBody): Promise<ClubSettings> {
-  return db.transaction(async (trx) => {
+export async function updateClubSettings(db: Knex, clubId: number, body: ClubSettingsUpdateBody, opts?: { userId?: number }): Promise<ClubSettings> {
+  const result = await db.transaction(async (trx) => {
     const current: ClubRow | undefined = await trx('clubs').where({ id: clubId }).forUpdate().first(columns);
     if (!current) throw notFound('The club');
     if (body.currency !== undefined && body.currency !== current.currency) {
@@ -88,12 +93,25 @@ export async function updateClubSettings(db: Knex, clubId: number, body: ClubSet
       typical_wait: body.typicalWait === undefined ? undefined : body.typicalWait || null,
       rotation_gap_years: body.rotationGapYears,
       shares_plot_books: body.sharesPlotBooks,
+      raised_bed_water_factor: body.raisedBedWaterFactor,
+      container_water_factor: body.containerWaterFactor,
     };
     const set = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined));
     if (Object.keys(set).length > 0) {
       await trx('clubs').where({ id: clubId }).update({ ...set, updated_at: trx.fn.now() });
     }
     if (body.rotationGapYears !== undefined && body.rotationGapYears !== current.rotation_gap_years) await recheckClub(trx, clubId);
-    return getClubSettings(trx, clubId);
+    const factorChanged =
+      (body.raisedBedWaterFactor !== undefined && body.raisedBedWaterFactor !== Number(current.raised_bed_water_factor)) ||
+      (body.containerWaterFactor !== undefined && body.containerWaterFactor !== Number(current.container_water_factor));
+    // New factors change the litres of every raised bed and container: each site's tasks are re-planned by a run.
+    if (factorChanged) {
+      for (const site of await trx('sites').where({ club_id: clubId }).whereNull('archived_at').select('id')) {
+        await queueTaskRun(trx, { clubId, siteId: site.id, userId: opts?.userId ?? null });
+      }
+    }
+    return { settings: await getClubSettings(trx, clubId), factorChanged };
   });
+  if (result.factorChanged) kickTaskRuns(db);
+  return result.settings;
 }

@@ -26,6 +26,12 @@ export const ClubSettingsSchema = z.object({
   rotationGapYears: z.number('Enter a whole number of years').int('A whole number of years').min(1, 'At least 1 year').max(10, 'At most 10 years'),
   /** True when plot holders may read each other's plot books (coordinators always can). */
   sharesPlotBooks: z.boolean('true or false'),
+  /**
+   * How much more water a raised bed and a container need than open ground, as multipliers of the
+   * need (our own defaults 1.2 and 1.5; common practice that they dry faster, the figures are the club's).
+   */
+  raisedBedWaterFactor: z.number('Enter a number like 1.2').min(1, 'At least 1 (the same as open ground)').max(3, 'At most 3'),
+  containerWaterFactor: z.number('Enter a number like 1.5').min(1, 'At least 1 (the same as open ground)').max(3, 'At most 3'),
   /** True once a fee is recorded: the currency can no longer change (read only). */
   currencyLocked: z.boolean(),
 });

@@ -42,6 +42,9 @@ describe('club settings', () => {
       // The crop notes migration's defaults: a 3-year gap (shared/crops/rotation.ts, after WVU), books private.
       rotationGapYears: 3,
       sharesPlotBooks: false,
+      // Our own starting factors (migrations/20261203000200_tasks.ts), not published figures.
+      raisedBedWaterFactor: 1.2,
+      containerWaterFactor: 1.5,
       currencyLocked: false,
     });
     const outsider = await signedIn(await buildMember(t.db, { roles: ['coordinator'] }));

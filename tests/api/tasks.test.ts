@@ -134,6 +134,29 @@ describe('generating a site’s tasks', () => {
 });
 
 describe('tasks over HTTP', () => {
+  it('re-plans every site when a coordinator changes the club’s raised-bed factor, and refuses a factor below 1', async () => {
+    const s = await club();
+    const today = localToday('UTC');
+    const monday = weekStartOf(today);
+    const id = await s.plant(s.b1, s.lettuce.id, plusDays(today, -20), 'transplanted');
+    await generateSiteTasks(t.db, s.siteId);
+    const before = await t.db('tasks').where({ planting_id: id, gen_key: `water:${monday}` }).first();
+    const low = await s.coordinator.patch(`/api/clubs/${s.club.id}`, { raisedBedWaterFactor: 0.5 });
+    expect(low.status).toBe(400);
+    expect(low.body.error.fields).toHaveProperty('raisedBedWaterFactor');
+    expect((await s.hana.patch(`/api/clubs/${s.club.id}`, { raisedBedWaterFactor: 2.4 })).status).toBe(403);
+    const res = await s.coordinator.patch(`/api/clubs/${s.club.id}`, { raisedBedWaterFactor: 2.4 });
+    expect(res.status).toBe(200);
+    expect(res.body.raisedBedWaterFactor).toBe(2.4);
+    expect(res.body.containerWaterFactor).toBe(1.5);
+    await runQueuedTaskRuns(t.db);
+    await taskRunsIdle(t.db);
+    const after = await t.db('tasks').where({ planting_id: id, gen_key: `water:${monday}` }).first();
+    // computed: from the default 1.2 to 2.4 doubles the need of the raised bed
+    expect(Number(after.amount_mm)).toBeCloseTo(Number(before.amount_mm) * 2, 0);
+    expect((await t.db('task_runs').where({ site_id: s.siteId }).first()).status).toBe('done');
+  });
+
   it('re-plans the litres when a coordinator resizes a plot or makes it a raised bed', async () => {
     const s = await club();
     const today = localToday('UTC');

@@ -48,11 +48,22 @@ interface SettingsFormValues {
   typicalWait: string;
   rotationGapYears: string;
   sharesPlotBooks: boolean;
+  raisedBedWaterFactor: string;
+  containerWaterFactor: string;
 }
 
 /** An empty box clears the value. */
 const orNull = (schema: z.ZodType<string, string>) =>
   z.string().transform((v) => v.trim()).pipe(z.union([z.literal('').transform(() => null), schema]));
+
+/** A multiplier typed as text: "1.2" or "1,2". */
+const factorText = (schema: z.ZodNumber) =>
+  z
+    .string()
+    .trim()
+    .regex(/^\d+([.,]\d+)?$/, 'Enter a number like 1.2')
+    .transform((v) => Number(v.replace(',', '.')))
+    .pipe(schema);
 
 const SettingsFormSchema = z.object({
   name: z.string().trim().min(1, 'Enter a name').max(160, 'At most 160 characters'),
@@ -67,9 +78,11 @@ const SettingsFormSchema = z.object({
   typicalWait: orNull(z.string().max(200, 'At most 200 characters')),
   rotationGapYears: z.string().trim().regex(/^\d+$/, 'Enter a whole number of years').transform(Number).pipe(shape.rotationGapYears),
   sharesPlotBooks: z.boolean(),
+  raisedBedWaterFactor: factorText(shape.raisedBedWaterFactor),
+  containerWaterFactor: factorText(shape.containerWaterFactor),
 });
 
-const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone', 'contactEmail', 'feeNote', 'typicalWait', 'rotationGapYears', 'sharesPlotBooks'] as const;
+const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone', 'contactEmail', 'feeNote', 'typicalWait', 'rotationGapYears', 'sharesPlotBooks', 'raisedBedWaterFactor', 'containerWaterFactor'] as const;
 
 function toForm(s: ClubSettings): SettingsFormValues {
   return {
@@ -85,6 +98,8 @@ function toForm(s: ClubSettings): SettingsFormValues {
     typicalWait: s.typicalWait ?? '',
     rotationGapYears: String(s.rotationGapYears),
     sharesPlotBooks: s.sharesPlotBooks,
+    raisedBedWaterFactor: String(s.raisedBedWaterFactor),
+    containerWaterFactor: String(s.containerWaterFactor),
   };
 }
 
@@ -205,6 +220,20 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
           inputMode="numeric"
           error={errors.rotationGapYears?.message}
           {...register('rotationGapYears')}
+        />
+        <TextField
+          label="Water for a raised bed, times open ground"
+          hint="Raised beds dry out faster than open ground. 1.2 asks for a fifth more water; it is our starting figure, not a published one. Changing it re-plans every site's watering."
+          inputMode="decimal"
+          error={errors.raisedBedWaterFactor?.message}
+          {...register('raisedBedWaterFactor')}
+        />
+        <TextField
+          label="Water for a container, times open ground"
+          hint="Pots and tubs dry out faster still. 1.5 is our starting figure, not a published one."
+          inputMode="decimal"
+          error={errors.containerWaterFactor?.message}
+          {...register('containerWaterFactor')}
         />
         <datalist id="club-settings-time-zones">
           {timeZones.map((zone) => (
