@@ -71,8 +71,8 @@ export interface DesiredTask {
 const lower = (s: string) => s.toLowerCase();
 const sourceTitle = (id: string) => cropSourceById(id)?.title ?? (id === 'common-practice' ? 'Common practice' : id);
 const round1 = (v: number) => Math.round(v * 10) / 10;
-const TOOL_CAUTION = 'Wear gloves and sturdy shoes, keep blades sharp and pointed away from feet, and lift with bent knees.';
-const HEAT_CAUTION = 'In hot weather water early or late, drink water yourself, and lift full cans with bent knees; fill them only as full as you can carry.';
+export const TOOL_CAUTION = 'Wear gloves and sturdy shoes, keep blades sharp and pointed away from feet, and lift with bent knees.';
+export const HEAT_CAUTION = 'In hot weather water early or late, drink water yourself, and lift full cans with bent knees; fill them only as full as you can carry.';
 
 /** Monday of the week holding a date (weeks run Monday to Sunday, ISO 8601). */
 export function weekStartOf(date: string): string {
