@@ -18,6 +18,10 @@ export const MessageSchema = z.object({
   receivedAt: z.iso.datetime(),
   messageId: z.string().nullable(),
   headers: z.record(z.string(), z.string()),
+  /** Files sent with the message; text files (a calendar's .ics) keep their text. Older stored messages have none. */
+  attachments: z
+    .array(z.object({ filename: z.string().nullable(), contentType: z.string(), size: z.number().int(), text: z.string().nullable() }))
+    .default([]),
 });
 export type Message = z.infer<typeof MessageSchema>;
 

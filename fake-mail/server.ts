@@ -103,6 +103,12 @@ async function receive(stream: SMTPServerDataStream, session: SMTPServerSession,
     receivedAt,
     messageId: parsed.messageId ?? null,
     headers: pickHeaders(parsed.headerLines),
+    attachments: parsed.attachments.map((a) => ({
+      filename: a.filename ?? null,
+      contentType: a.contentType,
+      size: a.size,
+      text: a.contentType.startsWith('text/') ? a.content.toString('utf8') : null,
+    })),
   };
   await store.add(message);
 }

@@ -37,6 +37,7 @@ import { clubSeasonsRouter, seasonsRouter } from './routes/seasons';
 import { siteBackgroundsRouter } from './routes/site-backgrounds';
 import { clubSitesRouter, sitesRouter } from './routes/sites';
 import { sessionRouter } from './routes/session';
+import { shiftsRouter } from './routes/shifts';
 import { weatherRouter } from './routes/weather';
 
 export interface BuiltApp {
@@ -157,6 +158,7 @@ export function createApp(deps: Deps): BuiltApp {
   app.use('/api', plotBookRouter(deps));
   // The weather log: /api/sites/:siteId/weather…, /api/sites/:siteId/weather-imports, /api/clubs/:clubId/weather-sites.
   app.use('/api', weatherRouter(deps));
+  app.use('/api', shiftsRouter(deps));
   app.use('/api', apiNotFound);
 
   const indexHtml = path.join(config.staticDir, 'index.html');

@@ -24,7 +24,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   await bringFindingsUpToDate(db, await loadReferenceCrops(db));
   const mailer = createMailer(config.smtpUrl, config.mailFrom);
   const built = createApp({ db, mailer, config });
-  const jobs = await startJobs(config.databaseUrl, db, mailer, log);
+  const jobs = await startJobs(config.databaseUrl, db, mailer, log, { publicUrl: config.publicUrl });
   const server: Server = await new Promise((resolve, reject) => {
     const s = built.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', reject);

@@ -6,11 +6,13 @@ import { sendDueMail } from '../services/outbox';
 import { pruneIdempotencyKeys } from '../middleware/idempotency';
 import { sweepDeadlines } from './deadlines';
 import { queueNightlyTaskRuns, runQueuedTaskRuns } from '../services/task-runs';
+import { markMissedShifts, sendShiftDigests, sendShiftReminders } from '../services/shift-claims';
 
 export const DEADLINE_QUEUE = 'deadline-sweep';
 export const MAIL_QUEUE = 'mail-send';
 export const TASK_RUN_QUEUE = 'task-runs';
 export const NIGHTLY_TASKS_QUEUE = 'tasks-nightly';
+export const SHIFT_QUEUE = 'shift-mail';
 
 export interface Jobs {
   stop(): Promise<void>;
@@ -23,7 +25,13 @@ export interface Jobs {
  * goes for the mail sender: every minute it sends what is due in the outbox (retries included);
  * mail written by a request is also sent straight after its commit (`kickMail`).
  */
-export async function startJobs(databaseUrl: string, db: Knex, mailer: Mailer, log: Pick<Logger, 'info' | 'error'>): Promise<Jobs> {
+export async function startJobs(
+  databaseUrl: string,
+  db: Knex,
+  mailer: Mailer,
+  log: Pick<Logger, 'info' | 'error'>,
+  opts: { publicUrl?: string } = {},
+): Promise<Jobs> {
   const boss = new PgBoss({ connectionString: databaseUrl, max: 3 });
   boss.on('error', (err) => log.error({ err }, 'job queue error'));
   await boss.start();
@@ -60,6 +68,19 @@ export async function startJobs(databaseUrl: string, db: Knex, mailer: Mailer, l
   await boss.work(TASK_RUN_QUEUE, async () => {
     const runs = await runQueuedTaskRuns(db);
     if (runs) log.info({ runs }, 'task runs');
+  });
+  // Shifts, every five minutes: places of ended shifts not marked done become missed, reminders go
+  // from a day before, and each volunteer's weekly e-mail of open shifts on their day (once a week:
+  // the shift_digests row is the proof, whichever server gets there first).
+  const publicUrl = opts.publicUrl ?? 'http://127.0.0.1:3000';
+  await boss.createQueue(SHIFT_QUEUE);
+  await boss.schedule(SHIFT_QUEUE, '*/5 * * * *');
+  await boss.work(SHIFT_QUEUE, async () => {
+    const now = new Date();
+    const missed = await markMissedShifts(db, { now });
+    const reminders = await sendShiftReminders(db, mailer, { publicUrl, now });
+    const digests = await sendShiftDigests(db, mailer, { publicUrl, now });
+    if (missed || reminders || digests) log.info({ missed, reminders, digests }, 'shift mail');
   });
   return {
     async stop() {

@@ -9,6 +9,14 @@ export interface OutgoingMail {
   headers?: Record<string, string>;
   /** The sender's display name (the address stays the configured one), e.g. a coordinator's name and club. */
   fromName?: string | null;
+  /** Files sent with it, e.g. a shift's calendar entry (text/calendar). */
+  attachments?: MailAttachment[] | null;
+}
+
+export interface MailAttachment {
+  filename: string;
+  contentType: string;
+  content: string;
 }
 
 export interface Mailer {
@@ -32,10 +40,10 @@ export function createMailer(smtpUrl: string, from: string): Mailer {
     socketTimeout: 60_000,
   });
   return {
-    async send({ fromName, ...mail }) {
+    async send({ fromName, attachments, ...mail }) {
       // Only the display name changes: the address stays ours, so the mail still passes the domain's checks.
       const address = /<([^>]+)>\s*$/.exec(from)?.[1] ?? from;
-      await transport.sendMail({ from: fromName ? { name: fromName, address } : from, ...mail });
+      await transport.sendMail({ from: fromName ? { name: fromName, address } : from, ...mail, ...(attachments?.length ? { attachments } : {}) });
     },
     close() {
       transport.close();

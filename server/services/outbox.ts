@@ -47,6 +47,7 @@ export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMa
       html: message.html,
       text: message.text,
       headers: JSON.stringify(headers),
+      attachments: message.attachments?.length ? JSON.stringify(message.attachments) : null,
       from_name: cause.fromName ?? message.fromName ?? club?.name ?? null,
       // The server's clock, like the sender's `now`, so a kick right after the commit finds it due.
       next_attempt_at: new Date(),
@@ -81,7 +82,7 @@ export async function sendDueMail(db: Knex, mailer: Mailer, now: Date, limit = 5
       if (!row) return null;
       const attempts = row.attempts + 1;
       try {
-        await mailer.send({ to: row.to_address, subject: row.subject, text: row.text, html: row.html, headers: row.headers, fromName: row.from_name });
+        await mailer.send({ to: row.to_address, subject: row.subject, text: row.text, html: row.html, headers: row.headers, fromName: row.from_name, attachments: row.attachments });
       } catch (err) {
         const failed = attempts >= MAX_ATTEMPTS;
         await trx('mail_outbox')

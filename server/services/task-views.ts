@@ -12,7 +12,7 @@ import { loadSiteTaskSetup, loadTaskPlantings, weatherBetween } from './tasks';
 // list for coordinators, marking done, handing a plot's tasks to the volunteers while away, tasks
 // coordinators add, and the site's water summary.
 
-interface TaskRow {
+export interface TaskRow {
   id: number;
   site_id: number;
   plot_id: number | null;
@@ -60,7 +60,7 @@ export const toTaskView = (r: TaskRow): TaskView => ({
   version: r.version,
 });
 
-const taskRows = (db: Db) => db('tasks as t').leftJoin('plots as p', 'p.id', 't.plot_id').select('t.*', 'p.label as plot_label');
+export const taskRows = (db: Db) => db('tasks as t').leftJoin('plots as p', 'p.id', 't.plot_id').select('t.*', 'p.label as plot_label');
 
 /** A plot's tasks for its plot book: open ones by when they are due (this week is Monday to Sunday), and the last done. */
 export async function plotTasks(db: Db, opts: { plotId: number; userId: number; now?: Date }): Promise<PlotTasks> {

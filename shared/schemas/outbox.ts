@@ -20,6 +20,12 @@ export const mailKinds = [
   'renewal',
   'payment_receipt',
   'club_news',
+  'shift_taken',
+  'shift_reminder',
+  'shift_released',
+  'shift_called_off',
+  'shift_digest',
+  'shift_help',
 ] as const;
 export type MailKind = (typeof mailKinds)[number];
 
@@ -32,6 +38,12 @@ export const mailKindLabels: Record<MailKind, string> = {
   renewal: 'Renewal',
   payment_receipt: 'Payment receipt',
   club_news: 'Club message',
+  shift_taken: 'Shift taken',
+  shift_reminder: 'Shift reminder',
+  shift_released: 'Place given back',
+  shift_called_off: 'Shift called off',
+  shift_digest: 'Weekly open shifts',
+  shift_help: 'Help asked for a shift',
 };
 
 export const OutboxQuerySchema = z.strictObject({
