@@ -224,6 +224,20 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
   // The weather log: a gauge entry on a past day, and a file checked without saving.
   'PUT /api/sites/:siteId/weather/:day': () => ({ rainMm: 4.5, tMinC: 3, tMaxC: 11, source: 'gauge' }),
   'POST /api/sites/:siteId/weather-imports': () => ({ csv: 'date,t_min,t_max,rain\n2026-06-01,9,18,2.5\n', units: 'metric', duplicates: 'skip', commit: false }),
+  // A shift five days from now at the fixture's site, with no tasks; a volunteer's e-mail choices.
+  'POST /api/clubs/:clubId/shifts': (x) => ({
+    siteId: x.siteId,
+    title: 'Fuzz watering',
+    kind: 'water',
+    date: new Date(Date.now() + 5 * 86_400_000).toISOString().slice(0, 10),
+    startTime: '18:00',
+    endTime: '19:00',
+    capacity: 2,
+    estHours: 1,
+    instructions: '',
+    taskIds: [],
+  }),
+  'PUT /api/clubs/:clubId/volunteer-settings': () => ({ digestDay: 2, helpMail: false }),
 };
 const feeSchedule = {
   basis: 'kind',
@@ -302,6 +316,10 @@ function paramValue(name: string, x: Fixture): string | null {
     taskId: 999999,
     handoverId: 999999,
     runId: 999999,
+    // Shifts and places that do not exist (404), and a calendar address that is not one of ours (404).
+    shiftId: 999999,
+    claimId: 999999,
+    file: 'not-a-feed.ics',
     // A past day of the weather log (the site's zone is London; the fixed date is before any run of this test).
     day: '2026-11-20',
   };
