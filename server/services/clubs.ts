@@ -22,6 +22,7 @@ interface ClubRow {
   shares_plot_books: boolean;
   raised_bed_water_factor: number | string;
   container_water_factor: number | string;
+  volunteer_hours_required: number | string | null;
 }
 
 function toClubSettings(r: ClubRow, currencyLocked: boolean): ClubSettings {
@@ -42,12 +43,13 @@ function toClubSettings(r: ClubRow, currencyLocked: boolean): ClubSettings {
     sharesPlotBooks: r.shares_plot_books,
     raisedBedWaterFactor: Number(r.raised_bed_water_factor),
     containerWaterFactor: Number(r.container_water_factor),
+    volunteerHoursRequired: r.volunteer_hours_required === null ? null : Number(r.volunteer_hours_required),
     currencyLocked,
   };
 }
 
 const columns = ['id', 'name', 'slug', 'currency', 'offer_days', 'renewal_days', 'declined_offer_policy', 'allow_multiple_offers', 'time_zone',
-  'contact_email', 'fee_note', 'typical_wait', 'rotation_gap_years', 'shares_plot_books', 'raised_bed_water_factor', 'container_water_factor'];
+  'contact_email', 'fee_note', 'typical_wait', 'rotation_gap_years', 'shares_plot_books', 'raised_bed_water_factor', 'container_water_factor', 'volunteer_hours_required'];
 
 const hasFees = async (db: Db, clubId: number) => Boolean(await db('fees').where({ club_id: clubId }).first('id'));
 
@@ -95,6 +97,7 @@ export async function updateClubSettings(db: Knex, clubId: number, body: ClubSet
       shares_plot_books: body.sharesPlotBooks,
       raised_bed_water_factor: body.raisedBedWaterFactor,
       container_water_factor: body.containerWaterFactor,
+      volunteer_hours_required: body.volunteerHoursRequired,
     };
     const set = Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined));
     if (Object.keys(set).length > 0) {

@@ -32,6 +32,8 @@ export const ClubSettingsSchema = z.object({
    */
   raisedBedWaterFactor: z.number('Enter a number like 1.2').min(1, 'At least 1 (the same as open ground)').max(3, 'At most 3'),
   containerWaterFactor: z.number('Enter a number like 1.5').min(1, 'At least 1 (the same as open ground)').max(3, 'At most 3'),
+  /** Hours each volunteer is asked to give per season; null when the club asks for none. */
+  volunteerHoursRequired: z.number('Hours, like 10').min(0, 'At least 0 hours').max(500, 'At most 500 hours').nullable(),
   /** True once a fee is recorded: the currency can no longer change (read only). */
   currencyLocked: z.boolean(),
 });

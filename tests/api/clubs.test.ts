@@ -45,6 +45,7 @@ describe('club settings', () => {
       // Our own starting factors (migrations/20261203000200_tasks.ts), not published figures.
       raisedBedWaterFactor: 1.2,
       containerWaterFactor: 1.5,
+      volunteerHoursRequired: null,
       currencyLocked: false,
     });
     const outsider = await signedIn(await buildMember(t.db, { roles: ['coordinator'] }));
