@@ -37,7 +37,8 @@ describe('demo seed', () => {
       }
     }
     const [{ count }] = await db('users').count({ count: '*' });
-    expect(count).toBe(9);
+    // Nine people with passwords (seeds/01) and Wren, who volunteers without one (seeds/07).
+    expect(count).toBe(10);
   });
 
   it('gives the demo holders three past seasons and this one of plantings, harvests and observations, clubroot on B-2', async () => {
@@ -113,5 +114,25 @@ describe('demo seed', () => {
     };
     expect(meanMax(mossgate, '2026-07')).toBeGreaterThan(meanMax(mossgate, '2026-04'));
     expect(meanMax(orchard, '2026-07')).toBeGreaterThan(meanMax(orchard, '2026-04'));
+  });
+
+  it('gives the demo club past shifts done by its volunteers and the coming weeks’ shifts built from its open tasks', async () => {
+    await truncateAll(db);
+    await db.seed.run();
+    const shifts = await db('shifts as sh').leftJoin('shift_tasks as st', 'st.shift_id', 'sh.id').groupBy('sh.id').orderBy('sh.starts_at').select('sh.id', 'sh.title', 'sh.starts_at', 'sh.kind', db.raw('count(st.task_id)::int as tasks'));
+    const now = Date.now();
+    const past = shifts.filter((s: { starts_at: Date }) => new Date(s.starts_at).getTime() < now);
+    const coming = shifts.filter((s: { starts_at: Date }) => new Date(s.starts_at).getTime() > now);
+    expect(past.length).toBe(5);
+    expect(past.every((s: { tasks: number }) => s.tasks === 0)).toBe(true);
+    // Coming: compost four Saturdays, troughs three Wednesdays, leaf mould once, grouped by day and kind (seeds/07).
+    expect(coming.length).toBe(8);
+    expect(coming.every((s: { tasks: number }) => s.tasks === 1)).toBe(true);
+    expect(coming.some((s: { title: string }) => /^Saturday morning mulching, the shared beds$/.test(s.title))).toBe(true);
+    // Hours: only done places count; Lucía did three 2026 shifts (1.5 + 2 + 2.5 h).
+    const lucia = await db('shift_claims as c').join('users as u', 'u.id', 'c.user_id').where({ 'u.email': 'lucia@example.org', 'c.status': 'done' }).sum({ h: 'c.hours' }).first();
+    expect(Number(lucia!.h)).toBe(6);
+    const wren = await db('users').where({ email: 'wren@example.org' }).first('password_hash');
+    expect(wren.password_hash).toBeNull();
   });
 });
