@@ -12,6 +12,7 @@ import type { Knex } from 'knex';
 import { recheckEverything, recheckSite } from '../../server/services/findings';
 import { loadReferenceCrops } from '../../server/services/reference-crops';
 import { generateSiteTasks } from '../../server/services/tasks';
+import { newToken } from '../../server/services/tokens';
 import { buildNetwork, progressBar } from './network';
 
 // `npm run bench`: speed targets live here, never in timed tests. Prints medians and checks
@@ -105,6 +106,7 @@ try {
     if (r.status !== 200) throw new Error(`status ${r.status}`);
     await r.arrayBuffer();
   });
+  await benchClaimStorm(db, server.url, club.id, site.id);
   await db.destroy();
   await server.stop();
 
@@ -238,6 +240,52 @@ async function benchTaskGeneration(db: Knex, clubId: number, year: number) {
   console.log(`task generation, no change: ${(again.ms / 1000).toFixed(1)} s, ${written} rows written by the service's count, rows ${same ? 'unchanged' : 'CHANGED'} by their xmin`);
   targets.push({ name: 'task generation, no-change run, 10,000 plots', ms: again.ms, targetMs: 60_000 });
   targets.push({ name: 'task generation, no-change run: rows written', ms: written + (same ? 0 : 1), targetMs: 0, unit: 'rows' });
+}
+
+/**
+ * A claim storm: 200 volunteers confirm their e-mailed links at once over HTTP, 20 on each of 10
+ * shifts of 3 places. Exactly 3 places per shift may be taken, and nothing may answer 5xx.
+ */
+async function benchClaimStorm(db: Knex, url: string, clubId: number, siteId: number) {
+  const startsAt = new Date(Date.now() + 2 * 86_400_000);
+  const day = startsAt.toISOString().slice(0, 10);
+  const shifts: number[] = [];
+  for (let i = 0; i < 10; i++) {
+    const [row] = await db('shifts')
+      .insert({ club_id: clubId, site_id: siteId, title: `Storm ${i + 1}`, kind: 'water', on_date: day, start_time: '18:00', end_time: '19:00', starts_at: startsAt, ends_at: new Date(startsAt.getTime() + 3_600_000), capacity: 3, est_hours: 1 })
+      .returning('id');
+    shifts.push(row.id);
+  }
+  const people = await db('users')
+    .insert(Array.from({ length: 200 }, (_, i) => ({ email: `storm${i}@example.org`, name: `Storm ${i}` })))
+    .returning('id');
+  await db('memberships').insert(people.map((p: { id: number }) => ({ club_id: clubId, user_id: p.id, role: 'volunteer' })));
+  const tokens = people.map((p: { id: number }, i: number) => ({ shiftId: shifts[i % 10], userId: p.id, ...newToken() }));
+  await db('shift_links').insert(tokens.map((t) => ({ shift_id: t.shiftId, user_id: t.userId, purpose: 'claim', token_hash: t.hash, expires_at: startsAt })));
+  const s0 = await fetch(`${url}/api/session`);
+  const cookie = s0.headers.get('set-cookie')!.split(';')[0];
+  const { csrfToken } = await s0.json();
+  const latencies: number[] = [];
+  const statuses = await Promise.all(
+    tokens.map(async (t) => {
+      const t0 = performance.now();
+      const r = await fetch(`${url}/api/shift-links/claim`, { method: 'POST', headers: { cookie, 'x-csrf-token': csrfToken, 'content-type': 'application/json' }, body: JSON.stringify({ token: t.token }) });
+      await r.arrayBuffer();
+      latencies.push(performance.now() - t0);
+      return r.status;
+    }),
+  );
+  latencies.sort((a, b) => a - b);
+  const p99 = latencies[Math.ceil(latencies.length * 0.99) - 1];
+  const count = (pred: (s: number) => boolean) => statuses.filter(pred).length;
+  const perShift = await db('shift_claims').whereIn('shift_id', shifts).where({ status: 'taken' }).groupBy('shift_id').select('shift_id', db.raw('count(*)::int as n'));
+  const exact = perShift.length === 10 && perShift.every((r: { n: number }) => r.n === 3);
+  console.log(
+    `claim storm: 200 claims at once on 10 shifts of 3 places: ${count((s) => s === 200)} taken, ${count((s) => s === 409)} told "already covered", ${count((s) => s >= 500)} 5xx; ` +
+      `${exact ? 'exactly 3 per shift' : `per shift ${JSON.stringify(perShift)}`}; p50 ${latencies[99].toFixed(0)} ms, p99 ${p99.toFixed(0)} ms`,
+  );
+  targets.push({ name: 'claim storm: 5xx answers', ms: count((s) => s >= 500), targetMs: 0, unit: 'answers' });
+  targets.push({ name: 'claim storm: shifts not at exactly 3 places', ms: exact ? 0 : 10 - perShift.filter((r: { n: number }) => r.n === 3).length, targetMs: 0, unit: 'shifts' });
 }
 
 let missed = 0;
