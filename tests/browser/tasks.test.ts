@@ -1,3 +1,4 @@
+import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Locator, Page } from 'playwright-core';
 import Papa from 'papaparse';
@@ -11,6 +12,7 @@ import { taskWindowWords } from '../../src/features/tasks/lib/dates';
 import { formatVolume } from '../../src/features/tasks/lib/units';
 import { testConfig } from '../helpers/app';
 import { axeViolations } from '../helpers/axe';
+import { SCREENSHOT_DIR } from '../helpers/browser';
 import { mainNav, seededServerAndBrowser, signInAs, signInAsCoordinator } from '../helpers/session';
 
 const suite = seededServerAndBrowser();
@@ -143,6 +145,8 @@ describe('tasks and water', () => {
     await shrunk.scrollIntoViewIfNeeded();
     expect(await pageWidth(w.page)).toBeLessThanOrEqual(390);
     await w.shot('tasks-plot-book-after-rain-phone');
+    // The task itself, as the phone shows it (the full-page shot is long).
+    await shrunk.screenshot({ path: path.join(SCREENSHOT_DIR, 'tasks-plot-book-task-after-rain-phone.png') });
     expect({ violations: await axeViolations(w.page) }).toEqual({ violations: [] });
     expect(w.errors).toEqual([]);
   }, 120_000);

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { Fragment, useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import { Download, Droplets, ListChecks, Plus, Trash2, TriangleAlert, X } from 'lucide-react';
@@ -59,17 +59,37 @@ function columnsFor(opts: {
       cell: ({ row }) => {
         const t = row.original;
         return (
-          <span className="block whitespace-nowrap">
-            <span className="block font-semibold">{taskDate(t.dueOn, today)}</span>
+          <span className="block sm:min-w-28">
+            <span className="block font-semibold whitespace-nowrap">{taskDate(t.dueOn, today)}</span>
             <span className="block text-sm text-stone">
               <span className="sr-only">Window: {taskWindowWords(t.windowFrom, t.windowTo, today)}</span>
-              <span aria-hidden="true">{taskWindow(t.windowFrom, t.windowTo, today)}</span>
+              <span aria-hidden="true">
+                {/* Each end of the window stays on one line; a narrow column breaks at the dash. */}
+                {taskWindow(t.windowFrom, t.windowTo, today)
+                  .split(' – ')
+                  .map((end, i) => (
+                    <Fragment key={end}>
+                      {i > 0 && ' – '}
+                      <span className="whitespace-nowrap">{end}</span>
+                    </Fragment>
+                  ))}
+              </span>
             </span>
           </span>
         );
       },
     },
-    { id: 'kind', header: 'Kind', accessorFn: (t) => kindWords[t.kind], cell: ({ row }) => <KindTag kind={row.original.kind} /> },
+    {
+      id: 'kind',
+      header: 'Kind',
+      accessorFn: (t) => kindWords[t.kind],
+      // A block around the tag, so a phone's card layout does not stretch it across the row.
+      cell: ({ row }) => (
+        <span className="block">
+          <KindTag kind={row.original.kind} />
+        </span>
+      ),
+    },
     {
       id: 'plot',
       header: 'Plot',
@@ -93,7 +113,7 @@ function columnsFor(opts: {
         const t = row.original;
         const amount = t.kind === 'water' ? formatWaterAmount(t.amountMm, t.amountL, units) : null;
         return (
-          <span className="block break-words sm:min-w-72">
+          <span className="block break-words sm:min-w-64">
             <span className="block font-medium">{t.title}</span>
             {amount && (
               <span className="mt-0.5 flex items-center gap-1.5 text-sm font-medium">
@@ -293,8 +313,8 @@ export function SiteTasksPage({ clubId, site, plots, sites }: SiteTasksPageProps
         </section>
 
         <form aria-label="Filters" className="flex flex-col gap-3" onSubmit={(e) => e.preventDefault()}>
-          <div className="grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-5 lg:items-start">
-            <Select label="Kind" value={filters.kind ?? ''} onChange={(e) => setFilter('kind', e.target.value)}>
+          <div className="grid grid-cols-2 gap-3 lg:grid-cols-5 lg:items-start">
+            <Select className="max-sm:col-span-2" label="Kind" value={filters.kind ?? ''} onChange={(e) => setFilter('kind', e.target.value)}>
               <option value="">Every kind</option>
               {taskKinds.map((k) => (
                 <option key={k} value={k}>
@@ -302,15 +322,15 @@ export function SiteTasksPage({ clubId, site, plots, sites }: SiteTasksPageProps
                 </option>
               ))}
             </Select>
-            <Select label="Plot" value={String(filters.plotId ?? '')} onChange={(e) => setFilter('plotId', e.target.value)}>
-              <option value="">Every plot and the site</option>
+            <Select className="max-sm:col-span-2" label="Plot" value={String(filters.plotId ?? '')} onChange={(e) => setFilter('plotId', e.target.value)}>
+              <option value="">Every plot</option>
               {sortedPlots.map((p) => (
                 <option key={p.id} value={p.id}>
                   {p.label}
                 </option>
               ))}
             </Select>
-            <Select label="Status" value={filters.status ?? ''} onChange={(e) => setFilter('status', e.target.value)}>
+            <Select className="max-sm:col-span-2" label="Status" value={filters.status ?? ''} onChange={(e) => setFilter('status', e.target.value)}>
               <option value="">Every status</option>
               {taskStatuses.map((s) => (
                 <option key={s} value={s}>

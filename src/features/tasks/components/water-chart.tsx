@@ -51,7 +51,7 @@ export function WaterChart({ weeks, units, today }: { weeks: WaterSummary['weeks
           height={frame.height}
           className="block h-auto max-w-full text-soil"
         >
-          <text x={4} y={frame.top - 2} className="fill-stone text-[11px]">
+          <text x={frame.left - 6} y={11} textAnchor="end" className="fill-stone text-[11px]">
             {units === 'us' ? 'in' : 'mm'}
           </text>
           {layout.ticks.map((t) => (
@@ -90,7 +90,7 @@ export function WaterChart({ weeks, units, today }: { weeks: WaterSummary['weeks
         </li>
       </ul>
       <div className="overflow-x-auto rounded-xl border border-paper-200 bg-white" role="region" aria-label="The weeks as a table" tabIndex={0}>
-        <table className="w-full min-w-[34rem] border-collapse text-left text-sm">
+        <table className="w-full min-w-[40rem] border-collapse text-left text-sm">
           <caption className="sr-only">Water need and rain logged per week</caption>
           <thead className="bg-paper-100">
             <tr>
@@ -122,11 +122,11 @@ export function WaterChart({ weeks, units, today }: { weeks: WaterSummary['weeks
                   <th scope="row" className="px-3 py-2 font-medium whitespace-nowrap">
                     {taskDate(w.weekStart, today)}
                   </th>
-                  <td className="px-3 py-2 tabular-nums">{chartDepth(w.need, units)}</td>
-                  <td className="px-3 py-2 tabular-nums">{chartDepth(w.rain, units)}</td>
-                  <td className="px-3 py-2 tabular-nums">{raw ? formatDepth(Math.max(0, raw.deficitMm), units) : '–'}</td>
-                  <td className="px-3 py-2 tabular-nums">{raw ? formatVolume(raw.litres, units) : '–'}</td>
-                  <td className="px-3 py-2">{w.methods}</td>
+                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{chartDepth(w.need, units)}</td>
+                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{chartDepth(w.rain, units)}</td>
+                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{raw ? formatDepth(Math.max(0, raw.deficitMm), units) : '–'}</td>
+                  <td className="px-3 py-2 whitespace-nowrap tabular-nums">{raw ? formatVolume(raw.litres, units) : '–'}</td>
+                  <td className="min-w-56 px-3 py-2">{w.methods}</td>
                 </tr>
               );
             })}

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
-import { CloudRain, Droplets, ListChecks, Sprout, TriangleAlert } from 'lucide-react';
+import { CloudRain, Droplets, ListChecks, Sprout } from 'lucide-react';
 import { formatArea, type UnitSystem } from '@shared/geometry';
 import type { WaterSummary } from '@shared/schemas/tasks';
 import { Alert } from '@/components/ui/alert';
@@ -33,16 +33,17 @@ function plotColumns(units: UnitSystem): ColumnDef<PlotRow>[] {
       sortingFn: (a, b) => a.original.plotLabel.localeCompare(b.original.plotLabel, 'en', { numeric: true }),
       cell: ({ getValue }) => <span className="font-semibold whitespace-nowrap">{getValue<string>()}</span>,
     },
-    { id: 'crops', header: 'In the ground', accessorFn: (p) => joinWords(p.crops), cell: ({ getValue }) => <span className="block sm:min-w-40">{getValue<string>()}</span> },
+    { id: 'crops', header: 'In the ground', enableSorting: false, accessorFn: (p) => joinWords(p.crops), cell: ({ getValue }) => <span className="block sm:min-w-40">{getValue<string>()}</span> },
     {
       id: 'area',
       header: 'Area planted',
       accessorFn: (p) => p.areaM2,
+      enableSorting: false,
       enableGlobalFilter: false,
       cell: ({ row }) => <span className="whitespace-nowrap tabular-nums">{formatArea(row.original.areaM2, units, 1)}</span>,
     },
-    { id: 'need', header: 'Need', accessorFn: (p) => p.needMm, enableGlobalFilter: false, cell: ({ row }) => <span className="tabular-nums">{formatDepth(row.original.needMm, units)}</span> },
-    { id: 'rain', header: 'Rain logged', accessorFn: (p) => p.rainMm, enableGlobalFilter: false, cell: ({ row }) => <span className="tabular-nums">{formatDepth(row.original.rainMm, units)}</span> },
+    { id: 'need', header: 'Need', accessorFn: (p) => p.needMm, enableSorting: false, enableGlobalFilter: false, cell: ({ row }) => <span className="tabular-nums">{formatDepth(row.original.needMm, units)}</span> },
+    { id: 'rain', header: 'Rain logged', accessorFn: (p) => p.rainMm, enableSorting: false, enableGlobalFilter: false, cell: ({ row }) => <span className="tabular-nums">{formatDepth(row.original.rainMm, units)}</span> },
     {
       id: 'deficit',
       header: 'Deficit',
@@ -176,10 +177,10 @@ export function WaterPage({ clubId, site, isCoordinator }: WaterPageProps) {
           {week ? (
             <div className="flex flex-col gap-4">
               <dl className="grid grid-cols-2 gap-3 lg:grid-cols-4">
-                <Figure label="Need" value={formatDepth(week.needMm, units)} note="over the area planted" />
+                <Figure label="Need" value={formatDepth(week.needMm, units)} note="on average over the area planted" />
                 <Figure label="Rain logged" value={formatDepth(week.rainMm, units)} note="so far this week" />
                 <Figure label="Deficit" value={formatDepth(Math.max(0, week.deficitMm), units)} note="need less rain" />
-                <Figure label="To water" value={formatVolume(week.litres, units)} note={`in all, in ${volumeUnitWords(units)}`} />
+                <Figure label="To water" value={formatVolume(week.litres, units)} note={`in ${volumeUnitWords(units)}, for the whole area planted`} />
               </dl>
               <p className="text-stone">
                 <span className="font-medium text-soil">ET0 worked out by:</span> {methodWords(week.methods)} so far this week.
@@ -221,13 +222,8 @@ export function WaterPage({ clubId, site, isCoordinator }: WaterPageProps) {
           <Card className="flex flex-col gap-4">
             <WaterHelp units={units} />
             <Alert tone="warning" announce={false} title="Take care when watering">
-              <span className="flex items-start gap-2">
-                <TriangleAlert className="mt-0.5 size-4 shrink-0" aria-hidden="true" />
-                <span>
-                  In hot weather water early or late and drink water yourself. A full can is heavy ({units === 'us' ? 'about 8 lb a US gallon' : 'about 1 kg a litre'}):
-                  fill it only as full as you can carry and lift with bent knees. Follow any local watering rules or hosepipe bans.
-                </span>
-              </span>
+              In hot weather water early or late and drink water yourself. A full can is heavy ({units === 'us' ? 'about 8 lb a US gallon' : 'about 1 kg a litre'}):
+              fill it only as full as you can carry and lift with bent knees. Follow any local watering rules or hosepipe bans.
             </Alert>
             <p className="flex items-start gap-2 text-sm text-stone">
               <Droplets className="mt-0.5 size-4 shrink-0 text-water-700" aria-hidden="true" />

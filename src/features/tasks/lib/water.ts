@@ -106,7 +106,7 @@ export interface ChartFrame {
 }
 
 /** The water chart's default frame: room on the left for the axis numbers, below for the weeks. */
-export const WATER_CHART_FRAME: ChartFrame = { width: 640, height: 260, left: 44, right: 8, top: 12, bottom: 36 };
+export const WATER_CHART_FRAME: ChartFrame = { width: 640, height: 260, left: 44, right: 8, top: 24, bottom: 36 };
 
 export interface ChartBar {
   weekStart: string;
