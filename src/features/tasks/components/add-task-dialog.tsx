@@ -1,8 +1,7 @@
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { z } from 'zod';
-import { TaskCreateBodySchema, taskKinds, type TaskCreateBody } from '@shared/schemas/tasks';
+import type { TaskCreateBody } from '@shared/schemas/tasks';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Checkbox } from '@/components/ui/checkbox';
@@ -11,6 +10,7 @@ import { TextAreaField, TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useCreateSiteTask } from '../api/create-site-task';
+import { TaskFormSchema, taskFormDefaults, type TaskFormInput } from '../lib/task-form';
 import { kindOrder, kindWords } from '../lib/words';
 
 /** A plot the task can be for, from the site's plots (the map's list). */
@@ -20,49 +20,6 @@ export interface TaskPlotOption {
   kind: string;
 }
 
-const wholeNumber = (text: string) => (text.trim() === '' ? null : Number(text.trim()));
-
-// The boxes hold text; the shared body schema then checks the values as the server will, and its messages land on the same boxes.
-const FormSchema = z
-  .object({
-    plotId: z.string(),
-    kind: z.enum(taskKinds),
-    title: z.string(),
-    details: z.string(),
-    dueOn: z.string(),
-    windowDays: z.string(),
-    repeat: z.boolean(),
-    repeatEveryDays: z.string(),
-    repeatUntil: z.string(),
-  })
-  .transform((v, ctx): TaskCreateBody => {
-    // Text that is not a whole number gets the server's words for it, not a parser's.
-    const counts = [['windowDays', v.windowDays], ...(v.repeat ? [['repeatEveryDays', v.repeatEveryDays]] : [])] as const;
-    const bad = counts.filter(([, text]) => text.trim() !== '' && !/^\d+$/.test(text.trim()));
-    for (const [field] of bad) ctx.addIssue({ code: 'custom', path: [field], message: 'A whole number of days' });
-    // A repeat needs both how often and until when; each empty box says what it is missing.
-    const missing: Array<[string, string]> = [];
-    if (v.repeat && v.repeatEveryDays.trim() === '') missing.push(['repeatEveryDays', 'Say how many days apart']);
-    if (v.repeat && v.repeatUntil.trim() === '') missing.push(['repeatUntil', 'Give the last date it may fall on']);
-    for (const [field, message] of missing) ctx.addIssue({ code: 'custom', path: [field], message });
-    if (bad.length > 0 || missing.length > 0) return z.NEVER;
-    const body = TaskCreateBodySchema.safeParse({
-      plotId: v.plotId ? Number(v.plotId) : null,
-      kind: v.kind,
-      title: v.title,
-      details: v.details,
-      dueOn: v.dueOn,
-      windowDays: wholeNumber(v.windowDays) ?? undefined,
-      repeatEveryDays: v.repeat ? wholeNumber(v.repeatEveryDays) : null,
-      repeatUntil: v.repeat ? v.repeatUntil || null : null,
-    });
-    if (body.success) return body.data;
-    for (const issue of body.error.issues) {
-      ctx.addIssue({ code: 'custom', path: [String(issue.path[0] ?? 'title')], message: issue.message });
-    }
-    return z.NEVER;
-  });
-type FormInput = z.input<typeof FormSchema>;
 const fieldNames = ['plotId', 'kind', 'title', 'details', 'dueOn', 'windowDays', 'repeatEveryDays', 'repeatUntil'] as const;
 
 function AddTaskForm({
@@ -86,9 +43,9 @@ function AddTaskForm({
     control,
     setError,
     formState: { errors },
-  } = useForm<FormInput, unknown, TaskCreateBody>({
-    resolver: zodResolver(FormSchema),
-    defaultValues: { plotId: '', kind: 'other', title: '', details: '', dueOn: today, windowDays: '7', repeat: false, repeatEveryDays: '7', repeatUntil: '' },
+  } = useForm<TaskFormInput, unknown, TaskCreateBody>({
+    resolver: zodResolver(TaskFormSchema),
+    defaultValues: taskFormDefaults(today),
   });
   const repeat = useWatch({ control, name: 'repeat' });
   const shared = plots.filter((p) => p.kind === 'shared_bed');
