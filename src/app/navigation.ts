@@ -4,6 +4,7 @@ import {
   HandHelping,
   House,
   LandPlot,
+  ListChecks,
   ListOrdered,
   Mail,
   MailClock,
@@ -27,6 +28,7 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
     items.push(
       { to: paths.map(id), label: 'Map', icon: MapIcon },
       { to: paths.sites(id), label: 'Sites', icon: LandPlot },
+      { to: paths.tasks(id), label: 'Tasks', icon: ListChecks },
       { to: paths.springRound(id), label: 'Spring round', icon: CalendarRange },
       { to: paths.findings(id), label: 'Neighbour check', icon: ScanSearch },
       { to: paths.waitlist(id), label: 'Waiting list', icon: ListOrdered },

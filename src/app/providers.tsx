@@ -1,6 +1,7 @@
-import { QueryCache, QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { MutationCache, QueryCache, QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { RouterProvider } from 'react-router-dom';
 import { markSignedOut } from '@/features/auth/api/get-session';
+import { invalidateAfterReplan } from '@/features/tasks/api/invalidate';
 import { isApiError } from '@/lib/api/client';
 import { paths } from '@/lib/paths';
 import { router } from './router';
@@ -21,6 +22,14 @@ export const queryClient: QueryClient = new QueryClient({
       if (!isApiError(error, 401)) return;
       void markSignedOut(queryClient);
       if (!openPaths.has(router.state.location.pathname)) void router.navigate(paths.signIn(), { replace: true });
+    },
+  }),
+  // Weather and planting writes re-plan the site's tasks on the server in the same transaction; the features that
+  // make them mark them `meta.replansTasks` (they do not know the tasks feature), and the task lists are read again here.
+  mutationCache: new MutationCache({
+    onSuccess: (_data, _variables, _result, mutation) => {
+      // Not awaited: the write's own success shows at once; the lists refresh behind it.
+      if (mutation.meta?.replansTasks) void invalidateAfterReplan(queryClient);
     },
   }),
   defaultOptions: {

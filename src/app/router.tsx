@@ -74,6 +74,15 @@ export const router = createBrowserRouter([
                 path: 'sites/:siteId/weather',
                 lazy: () => import('./routes/weather').then((m) => ({ Component: m.WeatherRoute })),
               },
+              {
+                path: 'sites/:siteId/tasks',
+                lazy: () => import('./routes/site-tasks').then((m) => ({ Component: m.SiteTasksRoute })),
+              },
+              {
+                path: 'sites/:siteId/water',
+                lazy: () => import('./routes/site-water').then((m) => ({ Component: m.SiteWaterRoute })),
+              },
+              { path: 'tasks', lazy: () => import('./routes/tasks').then((m) => ({ Component: m.TasksRoute })) },
               { path: 'rain-gauge', lazy: () => import('./routes/rain-gauge').then((m) => ({ Component: m.RainGaugeRoute })) },
               { path: 'plots/:plotId', lazy: () => import('./routes/plot').then((m) => ({ Component: m.PlotRoute })) },
               { path: 'plots/:plotId/book', lazy: () => import('./routes/plot-book').then((m) => ({ Component: m.PlotBookRoute })) },

@@ -10,6 +10,8 @@ const reasons = {
   members: "Only the club's coordinators can see the member list and send invites. If something here needs changing, ask one of them.",
   findings:
     "The neighbour check of every plot in the club is for the club's coordinators. What it finds on your own plot is in your plot book.",
+  tasks:
+    "The table of every task on a site is for the club's coordinators. Your own plot's tasks are in your plot book, and every member can see a site's water.",
   'spring-round':
     "The spring round (renewals, the waiting list and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail.",
 } as const;

@@ -35,6 +35,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
   it("finds no violations on the coordinator's pages, at desktop and phone width", async () => {
     const db = createDb(testConfig().databaseUrl);
     const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
+    const lane = await db('sites').where({ club_id: club.id, name: 'Mossgate Lane' }).first('id');
     await db.destroy();
     const pages: Array<[string, string]> = [
       ['', 'Mossgate Community Garden Club'],
@@ -48,6 +49,9 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       ['/outgoing-mail', 'Outgoing mail'],
       ['/settings', 'Settings'],
       ['/findings', 'Neighbour check'],
+      ['/tasks', 'Tasks'],
+      [`/sites/${lane.id}/tasks`, 'Tasks at Mossgate Lane'],
+      [`/sites/${lane.id}/water`, 'Water at Mossgate Lane'],
     ];
     for (const width of [1280, 390]) {
       const w = await signInAsCoordinator(suite.browser, suite.server.url, width);
@@ -60,13 +64,14 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       expect(w.errors).toEqual([]);
       await w.page.context().close();
     }
-  }, 120_000); // eight pages at two widths, each with an axe run
+  }, 120_000); // fourteen pages at two widths, each with an axe run
 
   it("finds no violations on a plot holder's and a volunteer's pages, the home with its map included", async () => {
     const db = createDb(testConfig().databaseUrl);
     const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
     const a1 = await db('plots as p').join('sites as s', 's.id', 'p.site_id').where({ 's.club_id': club.id, 'p.label': 'A-1' }).first('p.id');
     const radish = await db('crops').whereNull('club_id').where({ slug: 'radish' }).first('id');
+    const lane = await db('sites').where({ club_id: club.id, name: 'Mossgate Lane' }).first('id');
     await db.destroy();
     const people: Array<[string, Array<[string, string]>]> = [
       [
@@ -79,6 +84,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
           ['/harvests', 'Harvests'],
           [`/crops/${radish.id}`, 'Radish'],
           ['/email-choices', 'E-mail choices'],
+          [`/sites/${lane.id}/water`, 'Water at Mossgate Lane'],
         ],
       ],
       ['lucia@example.org', [['', 'Mossgate Community Garden Club'], ['/email-choices', 'E-mail choices']]],

@@ -32,7 +32,7 @@ async function memberOn(email: string, width: number): Promise<WatchedPage> {
 }
 
 /** API paths only a coordinator may read; a page shown to anyone else should not even ask for them. */
-const COORDINATOR_API = /\/api\/(clubs\/\d+\/(members|invites|waitlist|fees|outbox|mailings)|seasons\/\d+\/left-out)/;
+const COORDINATOR_API = /\/api\/(clubs\/\d+\/(members|invites|waitlist|fees|outbox|mailings)|seasons\/\d+\/left-out|sites\/\d+\/(tasks|task-runs))/;
 function coordinatorRequests(page: Page): string[] {
   const seen: string[] = [];
   page.on('request', (r) => {
@@ -52,12 +52,19 @@ const coordinatorPages = (): Array<[path: string, control: (p: Page) => ReturnTy
   ['/messages', (p) => p.getByRole('heading', { name: 'Write a message' })],
   ['/outgoing-mail', (p) => p.getByRole('heading', { name: 'Outgoing mail', exact: true })],
   ['/settings', (p) => p.getByRole('heading', { name: 'Settings', exact: true })],
+  ['/tasks', (p) => p.getByRole('link', { name: 'Tasks at Mossgate Lane' })],
+  [`/sites/${siteId}/tasks`, (p) => p.getByRole('button', { name: 'Make tasks now' })],
 ];
 
 /** Pages every member opens, with the heading that says the page has loaded and the coordinator's controls on it. */
 const sharedPages = (): Array<[path: string, heading: string, controls: Array<(p: Page) => ReturnType<Page['getByRole']>>]> => [
   ['', DEMO_CLUB, [(p) => p.getByRole('link', { name: /^Spring round/ }), (p) => p.getByRole('link', { name: /^Members/ })]],
-  ['/map', 'Map of Mossgate Lane', [(p) => p.getByRole('button', { name: 'Add plot' }), (p) => p.getByRole('link', { name: 'Site settings' })]],
+  [
+    '/map',
+    'Map of Mossgate Lane',
+    [(p) => p.getByRole('button', { name: 'Add plot' }), (p) => p.getByRole('link', { name: 'Site settings' }), (p) => p.getByRole('main').getByRole('link', { name: 'Tasks', exact: true })],
+  ],
+  [`/sites/${siteId}/water`, 'Water at Mossgate Lane', [(p) => p.getByRole('link', { name: 'Watering tasks' })]],
   [`/sites/${siteId}/plots`, 'Plots', [(p) => p.getByRole('heading', { name: 'Import plots from a CSV file' }), (p) => p.getByRole('link', { name: 'Edit site' })]],
   [`/plots/${plotId}`, 'Plot A-1', [(p) => p.getByRole('link', { name: 'Edit on the map' })]],
 ];

@@ -59,8 +59,14 @@ export function MapRoute() {
             <Link to={paths.weather(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
               Weather log
             </Link>
+            <Link to={paths.siteWater(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
+              Water
+            </Link>
             {canEdit && (
               <>
+                <Link to={paths.siteTasks(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
+                  Tasks
+                </Link>
                 <Link to={paths.sitePlots(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
                   Plots table and CSV
                 </Link>

@@ -15,6 +15,8 @@ export function createPlanting(plotId: number, body: PlantingInput) {
 export function useCreatePlanting(plotId: number) {
   const queryClient = useQueryClient();
   return useMutation({
+    // The server re-plans the site's tasks with this write; the app reads its task lists again (src/app/providers.tsx).
+    meta: { replansTasks: true },
     mutationFn: (body: PlantingInput) => createPlanting(plotId, body),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: plotBookKeys.plot(plotId) }),
   });

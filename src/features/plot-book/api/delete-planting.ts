@@ -11,6 +11,8 @@ export function deletePlanting(plantingId: number): Promise<undefined> {
 export function useDeletePlanting(plotId: number) {
   const queryClient = useQueryClient();
   return useMutation({
+    // The server re-plans the site's tasks with this write; the app reads its task lists again (src/app/providers.tsx).
+    meta: { replansTasks: true },
     mutationFn: (plantingId: number) => deletePlanting(plantingId),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: plotBookKeys.plot(plotId) }),
   });

@@ -12,6 +12,8 @@ export function updatePlanting(plantingId: number, body: PlantingUpdateBody) {
 export function useUpdatePlanting(plotId: number) {
   const queryClient = useQueryClient();
   return useMutation({
+    // The server re-plans the site's tasks with this write; the app reads its task lists again (src/app/providers.tsx).
+    meta: { replansTasks: true },
     mutationFn: ({ plantingId, body }: { plantingId: number; body: PlantingUpdateBody }) => updatePlanting(plantingId, body),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: plotBookKeys.plot(plotId) }),
   });

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
-import { CloudRain, Map as MapIcon, Pencil, Table2 } from 'lucide-react';
+import { CloudRain, Droplets, ListChecks, Map as MapIcon, Pencil, Table2 } from 'lucide-react';
 import { formatLength } from '@shared/geometry';
 import type { Site } from '@shared/schemas/sites';
 import { DataTable } from '@/components/ui/data-table';
@@ -82,7 +82,7 @@ function columnsFor(clubId: number): ColumnDef<Site>[] {
       cell: ({ row }) => {
         const site = row.original;
         return (
-          <div className="-mx-2 -my-2 flex gap-x-1">
+          <div className="-mx-2 -my-2 flex flex-wrap gap-x-1">
             <Link to={`${paths.map(clubId)}?site=${site.id}`} className={linkClasses} aria-label={`Map of ${site.name}`}>
               <MapIcon className="size-4" aria-hidden="true" />
               Map
@@ -94,6 +94,14 @@ function columnsFor(clubId: number): ColumnDef<Site>[] {
             <Link to={paths.weather(clubId, site.id)} className={linkClasses} aria-label={`Weather at ${site.name}`}>
               <CloudRain className="size-4" aria-hidden="true" />
               Weather
+            </Link>
+            <Link to={paths.siteTasks(clubId, site.id)} className={linkClasses} aria-label={`Tasks at ${site.name}`}>
+              <ListChecks className="size-4" aria-hidden="true" />
+              Tasks
+            </Link>
+            <Link to={paths.siteWater(clubId, site.id)} className={linkClasses} aria-label={`Water at ${site.name}`}>
+              <Droplets className="size-4" aria-hidden="true" />
+              Water
             </Link>
             <Link to={paths.siteEdit(clubId, site.id)} className={linkClasses} aria-label={`Edit ${site.name}`}>
               <Pencil className="size-4" aria-hidden="true" />

@@ -19,7 +19,7 @@ export function siteTasksQueryOptions(siteId: number, filters: SiteTaskFilters) 
   return queryOptions({ queryKey: tasksKeys.siteList(siteId, filters), queryFn: ({ signal }) => getSiteTasks(siteId, filters, signal) });
 }
 
-/** A site's tasks; while other filters load, the last answer stays on screen. */
-export function useSiteTasks(siteId: number, filters: SiteTaskFilters) {
-  return useQuery({ ...siteTasksQueryOptions(siteId, filters), placeholderData: keepPreviousData });
+/** A site's tasks; while other filters load, the last answer stays on screen. `enabled: false` asks nothing (filters the server would refuse). */
+export function useSiteTasks(siteId: number, filters: SiteTaskFilters, { enabled = true }: { enabled?: boolean } = {}) {
+  return useQuery({ ...siteTasksQueryOptions(siteId, filters), placeholderData: keepPreviousData, enabled });
 }

@@ -8,3 +8,8 @@ export function invalidateTaskLists(queryClient: QueryClient) {
     queryClient.invalidateQueries({ queryKey: tasksKeys.sites() }),
   ]);
 }
+
+/** After a write the server re-plans tasks with (weather, plantings): every task list and the water summaries are read again. */
+export function invalidateAfterReplan(queryClient: QueryClient) {
+  return Promise.all([invalidateTaskLists(queryClient), queryClient.invalidateQueries({ queryKey: [...tasksKeys.all, 'water'] })]);
+}

@@ -20,6 +20,8 @@ describe('task run wording', () => {
     expect(runProgressText(run({}))).toBe('312 of 480 plantings');
     expect(runProgressText(run({ total: 1, done: 0 }))).toBe('0 of 1 planting');
     expect(runProgressText(run({ status: 'queued', total: 0, done: 0 }))).toBe('Waiting to start');
+    expect(runProgressText(run({ status: 'done', total: 0, done: 0 }))).toBe('No plantings to read');
+    expect(runProgressText(run({ status: 'done', total: 12, done: 12 }))).toBe('12 of 12 plantings');
   });
   it('gives the share done as a whole percentage', () => {
     // computed: 312 ÷ 480 = 0.65 → 65
@@ -30,7 +32,9 @@ describe('task run wording', () => {
     expect(runPercent(run({ status: 'queued', total: 0, done: 0 }))).toBe(0);
   });
   it('sums up a finished run from its counts', () => {
-    expect(runSummary(run({ status: 'done', created: 20, updated: 5, removed: 2 }))).toBe('Done: 20 new, 5 moved, 2 removed');
+    expect(runSummary(run({ status: 'done', created: 20, updated: 5, removed: 2 }))).toBe('Done: 20 tasks added, 5 moved, 2 removed');
+    expect(runSummary(run({ status: 'done', created: 1, updated: 0, removed: 3 }))).toBe('Done: 1 task added, 0 moved, 3 removed');
+    expect(runSummary(run({ status: 'done', created: 0, updated: 0, removed: 0 }))).toBe('Done: nothing needed changing');
   });
   it('keeps asking only while queued or running', () => {
     expect(runIsActive(run({ status: 'queued' }))).toBe(true);

@@ -5,9 +5,13 @@ export function runIsActive(run: Pick<TaskRun, 'status'>): boolean {
   return run.status === 'queued' || run.status === 'running';
 }
 
-/** "312 of 480 plantings" ("1 of 1 planting"); "Waiting to start" before the run knows its total. */
+/**
+ * "312 of 480 plantings" ("1 of 1 planting"); "Waiting to start" before the run knows its total; "No plantings to
+ * read" for a finished run on a site with none.
+ */
 export function runProgressText(run: Pick<TaskRun, 'status' | 'done' | 'total'>): string {
   if (run.status === 'queued' && run.total === 0) return 'Waiting to start';
+  if (run.status === 'done' && run.total === 0) return 'No plantings to read';
   return `${run.done} of ${run.total} ${run.total === 1 ? 'planting' : 'plantings'}`;
 }
 
@@ -17,7 +21,11 @@ export function runPercent(run: Pick<TaskRun, 'status' | 'done' | 'total'>): num
   return Math.min(100, Math.max(0, Math.floor((run.done / run.total) * 100)));
 }
 
-/** "Done: 20 new, 5 moved, 2 removed" from a finished run's counts. */
+/**
+ * What a finished run changed, from its counts: "Done: 20 tasks added, 5 moved, 2 removed" ("1 task added");
+ * "Done: nothing needed changing" when every count is 0.
+ */
 export function runSummary(run: Pick<TaskRun, 'created' | 'updated' | 'removed'>): string {
-  return `Done: ${run.created} new, ${run.updated} moved, ${run.removed} removed`;
+  if (run.created === 0 && run.updated === 0 && run.removed === 0) return 'Done: nothing needed changing';
+  return `Done: ${run.created} ${run.created === 1 ? 'task' : 'tasks'} added, ${run.updated} moved, ${run.removed} removed`;
 }

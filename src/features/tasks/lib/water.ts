@@ -94,3 +94,86 @@ export function chartWeeks(weeks: readonly WaterWeek[], units: UnitSystem): { we
   const max = Math.max(0, ...rows.map((r) => Math.max(r.need, r.rain)));
   return { weeks: rows, ...niceScale(max) };
 }
+
+/** The chart's drawing area inside its viewBox, in SVG units. */
+export interface ChartFrame {
+  width: number;
+  height: number;
+  left: number;
+  right: number;
+  top: number;
+  bottom: number;
+}
+
+/** The water chart's default frame: room on the left for the axis numbers, below for the weeks. */
+export const WATER_CHART_FRAME: ChartFrame = { width: 640, height: 260, left: 44, right: 8, top: 24, bottom: 36 };
+
+export interface ChartBar {
+  weekStart: string;
+  /** Centre of the week's group, for its label. */
+  centre: number;
+  need: { x: number; y: number; width: number; height: number };
+  rain: { x: number; y: number; width: number; height: number };
+}
+
+export interface ChartLayout {
+  frame: ChartFrame;
+  /** Baseline (value 0) and top of the plot area, in SVG units. */
+  baseY: number;
+  topY: number;
+  ticks: Array<{ value: number; y: number }>;
+  bars: ChartBar[];
+}
+
+const r2 = (v: number) => Math.round(v * 100) / 100;
+
+/**
+ * Where each week's two bars (need, then rain) go: one slot per week across the plot area, the pair taking
+ * 70 % of its slot; heights on a linear scale from 0 at the baseline to `top` at the top. Numbers are rounded to
+ * 0.01 so the SVG stays small.
+ */
+export function chartLayout(data: { weeks: readonly ChartWeek[]; top: number; step: number }, frame: ChartFrame = WATER_CHART_FRAME): ChartLayout {
+  const baseY = frame.height - frame.bottom;
+  const topY = frame.top;
+  const plotW = frame.width - frame.left - frame.right;
+  const scale = (v: number) => (data.top > 0 ? (Math.max(0, Math.min(v, data.top)) / data.top) * (baseY - topY) : 0);
+  const ticks: ChartLayout['ticks'] = [];
+  for (let i = 0; i * data.step <= data.top + 1e-9; i++) {
+    const value = Number((i * data.step).toPrecision(12));
+    ticks.push({ value, y: r2(baseY - scale(value)) });
+  }
+  const slot = data.weeks.length ? plotW / data.weeks.length : 0;
+  const barW = (slot * 0.7) / 2;
+  const bars = data.weeks.map((w, i) => {
+    const start = frame.left + i * slot + slot * 0.15;
+    const needH = scale(w.need);
+    const rainH = scale(w.rain);
+    return {
+      weekStart: w.weekStart,
+      centre: r2(frame.left + (i + 0.5) * slot),
+      need: { x: r2(start), y: r2(baseY - needH), width: r2(barW), height: r2(needH) },
+      rain: { x: r2(start + barW), y: r2(baseY - rainH), width: r2(barW), height: r2(rainH) },
+    };
+  });
+  return { frame, baseY, topY, ticks, bars };
+}
+
+/** A depth on the chart's axis or in its summary, in the site's unit: "12 mm", "0.5 in". */
+export function chartDepth(value: number, units: UnitSystem): string {
+  return units === 'us' ? `${Number(value.toFixed(2))} in` : `${Number(value.toFixed(value >= 10 ? 0 : 1))} mm`;
+}
+
+/**
+ * The chart in one sentence, for its aria-label: how many weeks, from when to when, and the weeks of the most need
+ * and the most rain. Ties go to the earlier week.
+ */
+export function chartSummary(weeks: readonly ChartWeek[], units: UnitSystem, weekLabel: (iso: string) => string): string {
+  if (weeks.length === 0) return 'Water need and rain logged per week: no weeks to show.';
+  const most = (pick: (w: ChartWeek) => number) => weeks.reduce((best, w) => (pick(w) > pick(best) ? w : best), weeks[0]);
+  const need = most((w) => w.need);
+  const rain = most((w) => w.rain);
+  const span = weeks.length === 1 ? `the week of ${weekLabel(weeks[0].weekStart)}` : `${weeks.length} weeks from ${weekLabel(weeks[0].weekStart)} to the week of ${weekLabel(weeks[weeks.length - 1].weekStart)}`;
+  const needText = need.need > 0 ? `the most need was ${chartDepth(need.need, units)} in the week of ${weekLabel(need.weekStart)}` : 'no water was needed';
+  const rainText = rain.rain > 0 ? `the most rain ${chartDepth(rain.rain, units)} in the week of ${weekLabel(rain.weekStart)}` : 'no rain was logged';
+  return `Water need and rain logged per week, ${span}: ${needText}; ${rainText}.`;
+}

@@ -11,6 +11,8 @@ export function deleteWeatherDay(siteId: number, day: string): Promise<undefined
 export function useDeleteWeatherDay(siteId: number) {
   const queryClient = useQueryClient();
   return useMutation({
+    // The server re-plans the site's tasks with this write; the app reads its task lists again (src/app/providers.tsx).
+    meta: { replansTasks: true },
     mutationFn: (day: string) => deleteWeatherDay(siteId, day),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: weatherKeys.site(siteId) }),
   });

@@ -12,6 +12,8 @@ export function importWeather(siteId: number, body: WeatherImportBody) {
 export function useImportWeather(siteId: number) {
   const queryClient = useQueryClient();
   return useMutation({
+    // The server re-plans the site's tasks with this write; the app reads its task lists again (src/app/providers.tsx).
+    meta: { replansTasks: true },
     mutationFn: (body: WeatherImportBody) => importWeather(siteId, body),
     onSuccess: async (result) => {
       if (result.committed) await queryClient.invalidateQueries({ queryKey: weatherKeys.site(siteId) });

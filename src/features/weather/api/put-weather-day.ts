@@ -16,6 +16,8 @@ export function putWeatherDay(siteId: number, day: string, body: WeatherDayInput
 export function usePutWeatherDay(siteId: number) {
   const queryClient = useQueryClient();
   return useMutation({
+    // The server re-plans the site's tasks with this write; the app reads its task lists again (src/app/providers.tsx).
+    meta: { replansTasks: true },
     mutationFn: ({ day, body }: { day: string; body: WeatherDayInput }) => putWeatherDay(siteId, day, body),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: weatherKeys.site(siteId) }),
   });
