@@ -32,6 +32,8 @@ export const ClubSettingsSchema = z.object({
    */
   raisedBedWaterFactor: z.number('Enter a number like 1.2').min(1, 'At least 1 (the same as open ground)').max(3, 'At most 3'),
   containerWaterFactor: z.number('Enter a number like 1.5').min(1, 'At least 1 (the same as open ground)').max(3, 'At most 3'),
+  /** Hours each volunteer is asked to give per season (null: the club asks for no set number). */
+  volunteerHoursRequired: z.number('Hours, like 10').min(0).max(500).nullable(),
   /** True once a fee is recorded: the currency can no longer change (read only). */
   currencyLocked: z.boolean(),
 });
