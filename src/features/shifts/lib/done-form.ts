@@ -45,12 +45,12 @@ export function doneFormDefaults(estHours: number): DoneFormValues {
 
 /**
  * The request body for "done": JSON when there is no photo; multipart with `note`, `hours` (left out
- * when null) and `photo` when there is one. `extra` adds fields such as the e-mailed link's `token`.
+ * when null) and `photo` when there is one. `extra` adds the e-mailed link's `token`, first.
  */
-export function doneRequestBody(body: ShiftDoneBody, photo: File | null, extra: Record<string, string> = {}): FormData | (ShiftDoneBody & Record<string, string>) {
+export function doneRequestBody(body: ShiftDoneBody, photo: File | null, extra: { token?: string } = {}): FormData | (ShiftDoneBody & { token?: string }) {
   if (!photo) return { ...extra, ...body };
   const form = new FormData();
-  for (const [k, v] of Object.entries(extra)) form.append(k, v);
+  if (extra.token !== undefined) form.append('token', extra.token);
   form.append('note', body.note);
   if (body.hours !== null) form.append('hours', String(body.hours));
   form.append('photo', photo);
