@@ -34,7 +34,7 @@ export interface DoneFormValues {
 
 /** The form checked: what the server is sent besides the photo. */
 export const DoneFormSchema = z.object({
-  note: ShiftDoneBodySchema.shape.note,
+  note: z.string().pipe(ShiftDoneBodySchema.shape.note.unwrap()),
   hours: hoursTextSchema,
 });
 
