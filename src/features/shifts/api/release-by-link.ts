@@ -8,12 +8,14 @@ export function releaseByLink(token: string) {
   return apiFetch('/api/shift-links/release', { method: 'POST', body: { token }, schema: ShiftLinkPreviewSchema });
 }
 
-/** Gives the place back from the e-mail; a 409 reads the preview again to show where the link stands. */
+/**
+ * Gives the place back from the e-mail; the answer stays with the mutation (the page keeps its thanks),
+ * and a 409 reads the preview again to show where the link stands.
+ */
 export function useReleaseByLink(token: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => releaseByLink(token),
-    onSuccess: (preview) => queryClient.setQueryData(shiftsKeys.link(token), preview),
     onError: (error) => {
       if (isApiError(error, 409)) return queryClient.invalidateQueries({ queryKey: shiftsKeys.link(token) });
     },
