@@ -91,7 +91,7 @@ export function HoursPage({ clubId, clubName, timeZone }: HoursPageProps) {
       <PageSection id="hours-table" title={`Hours in ${shownYear}`}>
         <p className="mb-3 text-stone" role="status">
           {rows.length === 1 ? '1 volunteer' : `${rows.length} volunteers`} gave {hoursText(total)}
-          {table.data.required !== null ? `; the club asks ${hoursText(table.data.required)} of each.` : '; the club asks for no set number.'}
+          {table.data.required !== null ? `; the club asks each volunteer for ${hoursText(table.data.required)}.` : '; the club asks for no set number.'}
         </p>
         <DataTable
           data={rows}

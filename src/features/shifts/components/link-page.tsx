@@ -76,13 +76,10 @@ function OtherShifts({ shifts }: { shifts: Shift[] }) {
           </li>
         ))}
       </ul>
-      <p className="text-stone">
-        To take one, use the link in its own e-mail (look in your inbox), or{' '}
-        <Link to={paths.signIn()} className="inline-flex min-h-11 items-center">
-          sign in
-        </Link>{' '}
-        and take a place on the shift board.
-      </p>
+      <p className="text-stone">To take one, use the link in its own e-mail (look in your inbox), or sign in and take a place on the shift board.</p>
+      <Link to={paths.signIn()} className={buttonClasses('secondary', 'self-start')}>
+        Sign in
+      </Link>
     </section>
   );
 }

@@ -41,7 +41,9 @@ function PastList({ clubId, shifts }: { clubId: number; shifts: Shift[] }) {
               {s.myClaim ? ` · You: ${claimWords[s.myClaim.status].toLowerCase()}` : ''}
             </p>
           </div>
-          <StateTag state={s.state} />
+          <div className="shrink-0">
+            <StateTag state={s.state} />
+          </div>
         </li>
       ))}
     </ul>

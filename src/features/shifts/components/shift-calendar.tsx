@@ -1,14 +1,15 @@
 import { useMemo, type KeyboardEvent, type SyntheticEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
-import { Calendar, dateFnsLocalizer, type EventProps, type Formats, type Messages, type View } from 'react-big-calendar';
+import { Calendar, dateFnsLocalizer, type AgendaTimeProps, type EventProps, type Formats, type Messages, type View } from 'react-big-calendar';
 import { format, getDay, parse, startOfWeek } from 'date-fns';
 import { enGB } from 'date-fns/locale';
 import { ChevronLeft, ChevronRight } from 'lucide-react';
+import { zoneName } from '@shared/dates';
 import type { Shift } from '@shared/schemas/shifts';
 import { Button } from '@/components/ui/button';
 import { paths } from '@/lib/paths';
 import { AGENDA_DAYS, calendarRange, calendarViews, eventClassName, floatingDate, isoOfLocal, localMidnight, stepAnchor, toCalendarEvent, type CalendarView, type ShiftEvent } from '../lib/calendar';
-import { rangeLabel } from '../lib/dates';
+import { rangeLabel, shiftTimes } from '../lib/dates';
 import './shift-calendar.css';
 
 // date-fns's own startOfWeek, with the en-GB locale so weeks start on Monday like the list's.
@@ -60,6 +61,11 @@ function EventLink({ event }: EventProps<BoardEvent>) {
   );
 }
 
+/** The agenda's time cell: the shift's hours on its site's clock, with the zone's name. */
+function AgendaTime({ event }: AgendaTimeProps) {
+  return <>{shiftTimes((event as BoardEvent).shift)}</>;
+}
+
 const viewWords: Record<CalendarView, string> = { month: 'Month', week: 'Week', agenda: 'Agenda' };
 
 export interface ShiftCalendarProps {
@@ -86,7 +92,16 @@ function label(view: CalendarView, date: string): string {
  */
 export function ShiftCalendar({ shifts, view, date, today, timeZone, clubId, onChange }: ShiftCalendarProps) {
   const navigate = useNavigate();
-  const events = useMemo<BoardEvent[]>(() => shifts.map((s) => ({ ...toCalendarEvent(s), href: paths.shift(clubId, s.id) })), [shifts, clubId]);
+  const events = useMemo<BoardEvent[]>(
+    () =>
+      shifts.map((s) => {
+        const e = toCalendarEvent(s);
+        // A site in another zone than the club's says whose clock its times are on.
+        const other = s.timeZone !== timeZone ? ` (times in ${zoneName(s.timeZone, new Date(s.startsAt))})` : '';
+        return { ...e, title: `${e.title}${other}`, href: paths.shift(clubId, s.id) };
+      }),
+    [shifts, clubId, timeZone],
+  );
 
   // An event's own link (month and agenda) opens the shift; the week's events are buttons and open it here.
   const open = (event: BoardEvent, e: SyntheticEvent) => {
@@ -140,7 +155,7 @@ export function ShiftCalendar({ shifts, view, date, today, timeZone, clubId, onC
             if (key === 'Enter' || key === ' ') open(event, e);
           }}
           eventPropGetter={(event) => ({ className: eventClassName(event.shift.state) })}
-          components={{ month: { event: EventLink }, agenda: { event: EventLink } }}
+          components={{ month: { event: EventLink }, agenda: { event: EventLink, time: AgendaTime } }}
           formats={formats}
           messages={messages}
           scrollToTime={new Date(1970, 0, 1, 7, 0)}

@@ -14,6 +14,7 @@ import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { paths } from '@/lib/paths';
 import { useShift } from '../api/get-shift';
+import { coordinatorActions } from '../lib/actions';
 import { shiftWhen } from '../lib/dates';
 import { waterText } from '../lib/units';
 import { claimWords, estimateText, hoursText, kindWords, placesLeftText, placesText, plotsText, stateExplained } from '../lib/words';
@@ -131,9 +132,10 @@ export function ShiftPage({ clubId, clubName, shiftId, canClaim, isCoordinator }
   }
 
   const s = shift.data;
-  const plots = plotsText(s.plotLabels);
+  const plots = plotsText(s.plotLabels, { all: true });
   const water = waterText(s.amountL, s.units);
   const live = s.state === 'needs_people' || s.state === 'covered';
+  const can = coordinatorActions(s);
   const close = () => setDialog(null);
 
   return (
@@ -150,22 +152,24 @@ export function ShiftPage({ clubId, clubName, shiftId, canClaim, isCoordinator }
         title={<span className={s.state === 'called_off' ? 'line-through decoration-2' : ''}>{s.title}</span>}
         description={shiftWhen(s)}
         actions={
-          isCoordinator && live ? (
+          isCoordinator && can.edit ? (
             <>
               <Button variant="secondary" onClick={() => setDialog('edit')}>
                 <Pencil className="size-5" aria-hidden="true" />
                 Edit
               </Button>
-              {s.state === 'needs_people' && (
+              {can.askForHelp && (
                 <Button variant="secondary" onClick={() => setDialog('ask')}>
                   <Mail className="size-5" aria-hidden="true" />
                   Ask for help by e-mail
                 </Button>
               )}
-              <Button variant="danger" onClick={() => setDialog('call-off')}>
-                <Ban className="size-5" aria-hidden="true" />
-                Call off
-              </Button>
+              {can.callOff && (
+                <Button variant="danger" onClick={() => setDialog('call-off')}>
+                  <Ban className="size-5" aria-hidden="true" />
+                  Call off
+                </Button>
+              )}
             </>
           ) : undefined
         }

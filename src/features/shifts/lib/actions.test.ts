@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { shiftActions, type ActionShift } from './actions';
+import { coordinatorActions, shiftActions, type ActionShift } from './actions';
 
 // A London shift on Tuesday 14 July 2026 from 18:00 to 20:00 BST (17:00–19:00 UTC).
 const base: ActionShift = {
@@ -32,6 +32,8 @@ describe('which buttons a shift shows', () => {
   it('says so when every place is taken or the shift is called off', () => {
     expect(shiftActions({ ...base, state: 'covered', taken: 3 }, { canClaim: true, now: dayBefore })).toMatchObject({ claim: false, note: 'Every place is taken.' });
     expect(shiftActions({ ...base, state: 'called_off' }, { canClaim: true, now: dayBefore })).toMatchObject({ claim: false, note: 'This shift is called off.' });
+    // Someone marked it done before its end: no place to take, and the note says why.
+    expect(shiftActions({ ...base, state: 'done', taken: 3 }, { canClaim: true, now: during })).toMatchObject({ claim: false, note: 'This shift is done.' });
   });
 
   it('lets the person give their place back until the shift starts, and mark it done from its day', () => {
@@ -53,5 +55,19 @@ describe('which buttons a shift shows', () => {
   it('offers the place again after giving it back, and nothing more once done', () => {
     expect(shiftActions({ ...base, myClaim: { id: 1, status: 'released' } }, { canClaim: true, now: dayBefore }).claim).toBe(true);
     expect(shiftActions({ ...base, myClaim: { id: 1, status: 'done' } }, { canClaim: true, now: after })).toEqual({ claim: false, release: false, done: false, note: null });
+  });
+});
+
+describe('what a coordinator may do to a shift', () => {
+  it('asks for help only while places are left and the shift is to come; calls off until it ends', () => {
+    expect(coordinatorActions(base, dayBefore)).toEqual({ edit: true, askForHelp: true, callOff: true });
+    expect(coordinatorActions({ ...base, state: 'covered' }, dayBefore)).toEqual({ edit: true, askForHelp: false, callOff: true });
+    expect(coordinatorActions(base, after)).toEqual({ edit: true, askForHelp: false, callOff: false });
+  });
+
+  it('leaves finished and called-off shifts alone', () => {
+    for (const state of ['done', 'not_done', 'called_off'] as const) {
+      expect(coordinatorActions({ ...base, state }, dayBefore)).toEqual({ edit: false, askForHelp: false, callOff: false });
+    }
   });
 });

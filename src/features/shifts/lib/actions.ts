@@ -42,8 +42,26 @@ export function shiftActions(shift: ActionShift, { canClaim, now = new Date() }:
   let note: string | null = null;
   if (canClaim && !mine && shift.myClaim?.status !== 'done') {
     if (calledOff) note = 'This shift is called off.';
-    else if (ended) note = 'This shift is over.';
+    else if (ended || shift.state === 'not_done') note = 'This shift is over.';
+    else if (shift.state === 'done') note = 'This shift is done.';
     else if (full || shift.state === 'covered') note = 'Every place is taken.';
   }
   return { claim, release, done, note };
+}
+
+export interface CoordinatorActions {
+  edit: boolean;
+  askForHelp: boolean;
+  callOff: boolean;
+}
+
+/**
+ * What a coordinator may do to a shift: edit it while it still stands (needs people or covered, a past
+ * one too, to correct it); ask for help by e-mail while it needs people and has not ended; call it off
+ * until it ends.
+ */
+export function coordinatorActions(shift: Pick<ActionShift, 'state' | 'endsAt'>, now: Date = new Date()): CoordinatorActions {
+  const stands = shift.state === 'needs_people' || shift.state === 'covered';
+  const ahead = stands && now.getTime() < Date.parse(shift.endsAt);
+  return { edit: stands, askForHelp: ahead && shift.state === 'needs_people', callOff: ahead };
 }

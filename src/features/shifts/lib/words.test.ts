@@ -36,5 +36,6 @@ describe('shift words', () => {
     expect(plotsText(['A-1', 'A-1', 'B-2'])).toBe('Plots A-1 and B-2');
     expect(plotsText(['A-1', 'A-2', 'A-3', 'B-1'])).toBe('Plots A-1, A-2, A-3 and B-1');
     expect(plotsText(['A-1', 'A-2', 'A-3', 'B-1', 'B-2', 'B-3'])).toBe('Plots A-1, A-2, A-3 and 3 more');
+    expect(plotsText(['A-1', 'A-2', 'A-3', 'B-1', 'B-2', 'B-3'], { all: true })).toBe('Plots A-1, A-2, A-3, B-1, B-2 and B-3');
   });
 });

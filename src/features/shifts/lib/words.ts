@@ -80,11 +80,14 @@ export function estimateText(hours: number): string {
 /** The days of the week by the number the server uses for the weekly e-mail (0 Sunday … 6 Saturday). */
 export const weekdayNames = ['Sunday', 'Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday'] as const;
 
-/** "Plots A-1, A-3 and B-2"; "Plot A-1"; null when the shift names no plot (a work day for the site). */
-export function plotsText(labels: readonly string[]): string | null {
+/**
+ * "Plots A-1, A-3 and B-2"; "Plot A-1"; null when the shift names no plot (a work day for the site).
+ * Past four plots a card names three and counts the rest; `all` names every one (the shift's own page).
+ */
+export function plotsText(labels: readonly string[], { all = false }: { all?: boolean } = {}): string | null {
   const unique = [...new Set(labels)];
   if (unique.length === 0) return null;
   if (unique.length === 1) return `Plot ${unique[0]}`;
-  if (unique.length <= 4) return `Plots ${unique.slice(0, -1).join(', ')} and ${unique[unique.length - 1]}`;
+  if (all || unique.length <= 4) return `Plots ${unique.slice(0, -1).join(', ')} and ${unique[unique.length - 1]}`;
   return `Plots ${unique.slice(0, 3).join(', ')} and ${unique.length - 3} more`;
 }
