@@ -60,8 +60,8 @@ export function DoneForm({ estHours, onSubmit, submitLabel = 'Mark the shift don
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {formError && <Alert tone="error">{formError}</Alert>}
       <TextAreaField
-        label="How did it go? (optional)"
-        hint="For the coordinator: what you did, anything that needs a look."
+        label="A note for the coordinator (optional)"
+        hint="What you did, and anything that needs a look."
         rows={3}
         maxLength={1000}
         error={errors.note?.message}
