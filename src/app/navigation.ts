@@ -13,6 +13,7 @@ import {
   Settings,
   Shovel,
   Sprout,
+  Timer,
   Users,
   Wheat,
 } from 'lucide-react';
@@ -41,8 +42,13 @@ export function navItemsFor(club: ClubMembership): NavItem[] {
   if (club.roles.includes('plot_holder')) {
     items.push({ to: paths.myPlot(id), label: 'My plot book', icon: Shovel });
   }
+  // Every member sees the shift board; volunteers have their own shifts and hours too.
+  items.push({ to: paths.shifts(id), label: 'Shifts', icon: HandHelping });
   if (club.roles.includes('volunteer')) {
-    items.push({ to: paths.shifts(id), label: 'Shifts', icon: HandHelping, comingSoon: true });
+    items.push({ to: paths.myShifts(id), label: 'My shifts', icon: ListChecks });
+  }
+  if (club.roles.includes('coordinator')) {
+    items.push({ to: paths.volunteerHours(id), label: 'Volunteer hours', icon: Timer });
   }
   items.push({ to: paths.crops(id), label: 'Crop notes', icon: Sprout });
   items.push({ to: paths.harvests(id), label: 'Harvests', icon: Wheat });

@@ -7,7 +7,7 @@ import { paths } from '@/lib/paths';
 import { router } from './router';
 
 // Pages that are fine to show a signed-out person; a 401 there must not bounce anywhere.
-const openPaths = new Set(['/sign-in', '/forgot-password', '/reset-password', '/invite']);
+const openPaths = new Set(['/sign-in', '/forgot-password', '/reset-password', '/invite', '/shift-link']);
 
 function shouldRetry(failureCount: number, error: unknown): boolean {
   // A 4xx answer will not change by asking again; network trouble and 5xx might.

@@ -4,7 +4,6 @@ import { AppShell } from './routes/app-shell';
 import { AuthShell, SignedOutOnly } from './routes/auth-shell';
 import { ClubHomeRoute } from './routes/club-home';
 import { ClubScope } from './routes/club-scope';
-import { ComingSoonRoute } from './routes/coming-soon';
 import { HomeRedirect } from './routes/home-redirect';
 import { NotFoundRoute } from './routes/not-found';
 import { RouteError } from './routes/route-error';
@@ -49,6 +48,8 @@ export const router = createBrowserRouter([
             path: 'respond/renewal',
             lazy: () => import('./routes/respond').then((m) => ({ Component: m.RenewalResponseRoute })),
           },
+          // A shift e-mail's link (take a place, give it back, say it is done): no sign-in, opening it changes nothing.
+          { path: 'shift-link', lazy: () => import('./routes/shift-link').then((m) => ({ Component: m.ShiftLinkRoute })) },
         ],
       },
       {
@@ -114,10 +115,11 @@ export const router = createBrowserRouter([
                 lazy: () => import('./routes/spring-round').then((m) => ({ Component: m.SpringRoundRoute })),
               },
               { path: 'my-plot', lazy: () => import('./routes/my-plot').then((m) => ({ Component: m.MyPlotRoute })) },
-              {
-                path: 'shifts',
-                element: <ComingSoonRoute title="Shifts" description="Watering and weeding shifts you can claim." />,
-              },
+              { path: 'shifts', lazy: () => import('./routes/shifts').then((m) => ({ Component: m.ShiftsRoute })) },
+              { path: 'shifts/plan', lazy: () => import('./routes/shift-plan').then((m) => ({ Component: m.ShiftPlanRoute })) },
+              { path: 'shifts/:shiftId', lazy: () => import('./routes/shift').then((m) => ({ Component: m.ShiftRoute })) },
+              { path: 'my-shifts', lazy: () => import('./routes/my-shifts').then((m) => ({ Component: m.MyShiftsRoute })) },
+              { path: 'hours', lazy: () => import('./routes/hours').then((m) => ({ Component: m.HoursRoute })) },
             ],
           },
         ],

@@ -12,6 +12,8 @@ const reasons = {
     "The neighbour check of every plot in the club is for the club's coordinators. What it finds on your own plot is in your plot book.",
   tasks:
     "The table of every task on a site is for the club's coordinators. Your own plot's tasks are in your plot book, and every member can see a site's water.",
+  'shift-plan': "Only the club's coordinators build shifts from the open tasks. The shifts that need people are on the shift board.",
+  hours: "Everyone's volunteer hours are for the club's coordinators. Your own hours are on My shifts.",
   'spring-round':
     "The spring round (renewals, the waiting list and offers) is run by the club's coordinators. A renewal or offer for you comes by e-mail.",
 } as const;

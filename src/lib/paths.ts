@@ -42,5 +42,15 @@ export const paths = {
   myPlot: (clubId: number) => `/clubs/${clubId}/my-plot`,
   /** The page a renewal e-mail opens, for the signed-in holder by the renewal's id instead of the e-mailed token. */
   renewalAnswer: (renewalId: number) => `/respond/renewal?renewal=${renewalId}`,
-  shifts: (clubId: number) => `/clubs/${clubId}/shifts`,
+  /** The shift board (every member); `query` carries its choices ("?date=2026-07-06&site=3"). */
+  shifts: (clubId: number, query = '') => `/clubs/${clubId}/shifts${query}`,
+  shift: (clubId: number, shiftId: number) => `/clubs/${clubId}/shifts/${shiftId}`,
+  /** The coordinators' "Build shifts" from the suggestions. */
+  shiftPlan: (clubId: number) => `/clubs/${clubId}/shifts/plan`,
+  /** A volunteer's own shifts, hours and shift e-mail choices. */
+  myShifts: (clubId: number) => `/clubs/${clubId}/my-shifts`,
+  /** The coordinators' table of volunteers' hours; `year` picks a season. */
+  volunteerHours: (clubId: number, year?: number) => `/clubs/${clubId}/hours${year ? `?year=${year}` : ''}`,
+  /** The page a shift e-mail's link opens (claim, give back or done), no sign-in needed. */
+  shiftLink: (token: string) => `/shift-link?token=${encodeURIComponent(token)}`,
 };

@@ -50,6 +50,7 @@ interface SettingsFormValues {
   sharesPlotBooks: boolean;
   raisedBedWaterFactor: string;
   containerWaterFactor: string;
+  volunteerHoursRequired: string;
 }
 
 /** An empty box clears the value. */
@@ -64,6 +65,15 @@ const factorText = (schema: z.ZodNumber) =>
     .regex(/^\d+([.,]\d+)?$/, 'Enter a number like 1.2')
     .transform((v) => Number(v.replace(',', '.')))
     .pipe(schema);
+
+/** Hours typed as text ("10", "7.5" or "7,5"); an empty box means the club asks for no set number. */
+const optionalHoursText = z
+  .string()
+  .trim()
+  .refine((v) => v === '' || /^\d+([.,]\d+)?$/.test(v), 'Enter a number of hours like 10, or leave it empty')
+  .transform((v) => (v === '' ? null : Number(v.replace(',', '.'))))
+  .pipe(z.number().max(500, 'At most 500 hours').nullable())
+  .pipe(shape.volunteerHoursRequired);
 
 const SettingsFormSchema = z.object({
   name: z.string().trim().min(1, 'Enter a name').max(160, 'At most 160 characters'),
@@ -80,9 +90,10 @@ const SettingsFormSchema = z.object({
   sharesPlotBooks: z.boolean(),
   raisedBedWaterFactor: factorText(shape.raisedBedWaterFactor),
   containerWaterFactor: factorText(shape.containerWaterFactor),
+  volunteerHoursRequired: optionalHoursText,
 });
 
-const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone', 'contactEmail', 'feeNote', 'typicalWait', 'rotationGapYears', 'sharesPlotBooks', 'raisedBedWaterFactor', 'containerWaterFactor'] as const;
+const fieldNames = ['name', 'currency', 'offerDays', 'renewalDays', 'declinedOfferPolicy', 'allowMultipleOffers', 'timeZone', 'contactEmail', 'feeNote', 'typicalWait', 'rotationGapYears', 'sharesPlotBooks', 'raisedBedWaterFactor', 'containerWaterFactor', 'volunteerHoursRequired'] as const;
 
 function toForm(s: ClubSettings): SettingsFormValues {
   return {
@@ -100,6 +111,7 @@ function toForm(s: ClubSettings): SettingsFormValues {
     sharesPlotBooks: s.sharesPlotBooks,
     raisedBedWaterFactor: String(s.raisedBedWaterFactor),
     containerWaterFactor: String(s.containerWaterFactor),
+    volunteerHoursRequired: s.volunteerHoursRequired === null ? '' : String(s.volunteerHoursRequired),
   };
 }
 
@@ -234,6 +246,13 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
           inputMode="decimal"
           error={errors.containerWaterFactor?.message}
           {...register('containerWaterFactor')}
+        />
+        <TextField
+          label="Volunteer hours asked for each season"
+          hint="What each volunteer is asked to give in a season, e.g. 10. Volunteers see their hours against it on My shifts. Leave it empty to ask for no set number."
+          inputMode="decimal"
+          error={errors.volunteerHoursRequired?.message}
+          {...register('volunteerHoursRequired')}
         />
         <datalist id="club-settings-time-zones">
           {timeZones.map((zone) => (

@@ -57,8 +57,8 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
       ];
     case 'volunteer':
       return [
-        { title: 'Open shifts', body: 'Watering and weeding shifts that still need a pair of hands.', icon: HandHelping },
-        { title: 'My hours', body: 'The shifts you have done and the hours you have given.', icon: Clock },
+        { title: 'Open shifts', body: 'Watering and weeding shifts that still need a pair of hands.', icon: HandHelping, href: paths.shifts(clubId, '?open=true') },
+        { title: 'My hours', body: 'The shifts you have done and the hours you have given.', icon: Clock, href: paths.myShifts(clubId) },
       ];
   }
 }
