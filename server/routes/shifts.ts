@@ -16,6 +16,7 @@ import type { Deps } from '../deps';
 import { sendCsv } from '../csv-download';
 import { AppError, notFound, parseInput } from '../errors';
 import { requireClubRole, requireRoleVia } from '../middleware/auth';
+import { idempotent } from '../middleware/idempotency';
 import { authRateLimit } from '../middleware/rate-limit';
 import { feedByToken, feedStatus, resetFeed, shiftCalendar } from '../services/calendar-feeds';
 import { csvText } from '../services/csv-files';
@@ -89,7 +90,7 @@ export function shiftsRouter({ db, mailer, config }: Deps): Router {
     const q = parseInput(ShiftQuerySchema, { ...req.query });
     res.json(await shiftSuggestions(db, { clubId: req.clubId!, siteId: q.siteId, from: q.from, to: q.to }));
   });
-  router.post('/clubs/:clubId/shifts', coordinator, async (req, res) => {
+  router.post('/clubs/:clubId/shifts', coordinator, idempotent(db), async (req, res) => {
     const body = parseInput(ShiftCreateBodySchema, req.body);
     res.status(201).json(await createShift(db, { clubId: req.clubId!, userId: req.session.userId!, viewer: viewer(req), body }));
   });
@@ -143,7 +144,7 @@ export function shiftsRouter({ db, mailer, config }: Deps): Router {
     const body = doneBody(req.body);
     res.json(await doneShift(ctx(), { shiftId: idParam(req, 'shiftId'), viewer: viewer(req), body, photo: req.file?.buffer }));
   });
-  router.post('/shifts/:shiftId/ask-for-help', shiftCoordinator, async (req, res) => {
+  router.post('/shifts/:shiftId/ask-for-help', shiftCoordinator, idempotent(db), async (req, res) => {
     const { note } = parseInput(AskForHelpBodySchema, req.body ?? {});
     res.json(await askForHelp(ctx(), { shiftId: idParam(req, 'shiftId'), viewer: viewer(req), note }));
   });

@@ -15,7 +15,7 @@ import { placesLeftText } from '../lib/words';
 /** What came of asking: how many e-mails went, and how many volunteers were left out. */
 export function askResultText(r: AskForHelpResult): string {
   const sent = r.sent === 0 ? 'No e-mail was sent' : r.sent === 1 ? 'Sent to 1 volunteer' : `Sent to ${r.sent} volunteers`;
-  const skipped = r.skipped === 0 ? '' : ` ${r.skipped === 1 ? '1 volunteer was' : `${r.skipped} volunteers were`} left out (they turned these e-mails off, or already have a place).`;
+  const skipped = r.skipped === 0 ? '' : ` ${r.skipped === 1 ? '1 volunteer was' : `${r.skipped} volunteers were`} left out: they turned calls for help off.`;
   return `${sent}.${skipped}`;
 }
 

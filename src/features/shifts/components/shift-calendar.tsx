@@ -1,4 +1,4 @@
-import { useMemo, type KeyboardEvent, type SyntheticEvent } from 'react';
+import { useEffect, useMemo, useRef, type KeyboardEvent, type SyntheticEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { Calendar, dateFnsLocalizer, type AgendaTimeProps, type EventProps, type Formats, type Messages, type View } from 'react-big-calendar';
 import { format, getDay, parse, startOfWeek } from 'date-fns';
@@ -14,6 +14,33 @@ import './shift-calendar.css';
 
 // date-fns's own startOfWeek, with the en-GB locale so weeks start on Monday like the list's.
 const localizer = dateFnsLocalizer({ format, parse, startOfWeek, getDay, locales: { 'en-GB': enGB } });
+
+/**
+ * react-big-calendar 1.20 marks its month grid up as an ARIA table whose rows also hold the event
+ * buttons, which axe rightly reports (aria-required-children). The month grid is a picture of the
+ * month here (the list view and the agenda carry the same shifts as text), so its table roles are
+ * taken away and the events stay buttons and links inside a labelled group.
+ */
+function useFlatMonthGrid() {
+  const ref = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const root = ref.current;
+    if (!root) return;
+    const flatten = () => {
+      for (const month of root.querySelectorAll<HTMLElement>('.rbc-month-view[role="table"]')) month.setAttribute('role', 'group');
+      for (const el of root.querySelectorAll<HTMLElement>('.rbc-month-view [role="row"], .rbc-month-view [role="rowgroup"], .rbc-month-view [role="cell"], .rbc-month-view [role="columnheader"]')) {
+        el.setAttribute('role', 'presentation');
+      }
+      // Its weekday headings carry aria-sort, which only a column header may have.
+      for (const el of root.querySelectorAll<HTMLElement>('.rbc-month-view [aria-sort]')) el.removeAttribute('aria-sort');
+    };
+    flatten();
+    const observer = new MutationObserver(flatten);
+    observer.observe(root, { subtree: true, childList: true, attributes: true, attributeFilter: ['role', 'aria-sort'] });
+    return () => observer.disconnect();
+  }, []);
+  return ref;
+}
 
 const clock = (d: Date) => format(d, 'HH:mm');
 const span = ({ start, end }: { start: Date; end: Date }) => `${clock(start)}–${clock(end)}`;
@@ -92,6 +119,7 @@ function label(view: CalendarView, date: string): string {
  */
 export function ShiftCalendar({ shifts, view, date, today, timeZone, clubId, onChange }: ShiftCalendarProps) {
   const navigate = useNavigate();
+  const gridRef = useFlatMonthGrid();
   const events = useMemo<BoardEvent[]>(
     () =>
       shifts.map((s) => {
@@ -133,7 +161,7 @@ export function ShiftCalendar({ shifts, view, date, today, timeZone, clubId, onC
           ))}
         </div>
       </div>
-      <div className={`shift-calendar ${view === 'agenda' ? '' : 'h-[36rem] sm:h-[44rem]'}`}>
+      <div ref={gridRef} className={`shift-calendar ${view === 'agenda' ? '' : 'h-[36rem] sm:h-[44rem]'}`}>
         <Calendar<BoardEvent>
           localizer={localizer}
           culture="en-GB"

@@ -74,7 +74,7 @@ function Tasks({ shift }: { shift: ShiftDetail }) {
   );
 }
 
-function People({ people }: { people: ShiftPerson[] }) {
+function People({ people, shiftId }: { people: ShiftPerson[]; shiftId: number }) {
   if (people.length === 0) return <p className="text-stone">Nobody has taken a place yet.</p>;
   return (
     <ul className="flex flex-col divide-y divide-paper-200">
@@ -87,10 +87,15 @@ function People({ people }: { people: ShiftPerson[] }) {
           </p>
           {p.note && <p className="whitespace-pre-line">“{p.note}”</p>}
           {p.hasPhoto && (
-            <p className="inline-flex items-center gap-1.5 text-sm text-stone">
+            <a
+              href={`/api/shifts/${shiftId}/claims/${p.claimId}/photo`}
+              target="_blank"
+              rel="noreferrer"
+              className="inline-flex min-h-11 items-center gap-1.5 self-start text-sm font-medium underline"
+            >
               <Image className="size-4" aria-hidden="true" />
-              Sent a photo
-            </p>
+              See {p.name}’s photo
+            </a>
           )}
         </li>
       ))}
@@ -206,7 +211,7 @@ export function ShiftPage({ clubId, clubName, shiftId, canClaim, isCoordinator }
         {isCoordinator && (
           <div className="flex min-w-0 flex-col gap-6">
             <CardSection id="shift-people" title="People">
-              {s.people ? <People people={s.people} /> : <Alert tone="info">The names of the people on a shift are shown to coordinators only.</Alert>}
+              {s.people ? <People people={s.people} shiftId={s.id} /> : <Alert tone="info">The names of the people on a shift are shown to coordinators only.</Alert>}
             </CardSection>
           </div>
         )}
