@@ -36,6 +36,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
     const db = createDb(testConfig().databaseUrl);
     const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
     const lane = await db('sites').where({ club_id: club.id, name: 'Mossgate Lane' }).first('id');
+    const shift = await db('shifts').where({ club_id: club.id }).where('starts_at', '>', new Date()).orderBy('starts_at').first('id', 'title');
     await db.destroy();
     const pages: Array<[string, string]> = [
       ['', 'Mossgate Community Garden Club'],
@@ -52,6 +53,13 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       ['/tasks', 'Tasks'],
       [`/sites/${lane.id}/tasks`, 'Tasks at Mossgate Lane'],
       [`/sites/${lane.id}/water`, 'Water at Mossgate Lane'],
+      ['/shifts', 'Shifts'],
+      ['/shifts?view=calendar', 'Shifts'],
+      ['/shifts?view=calendar&cal=week', 'Shifts'],
+      ['/shifts?view=calendar&cal=agenda', 'Shifts'],
+      ['/shifts/plan', 'Build shifts'],
+      [`/shifts/${shift.id}`, shift.title],
+      ['/hours', 'Volunteer hours'],
     ];
     for (const width of [1280, 390]) {
       const w = await signInAsCoordinator(suite.browser, suite.server.url, width);
@@ -64,7 +72,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       expect(w.errors).toEqual([]);
       await w.page.context().close();
     }
-  }, 120_000); // fourteen pages at two widths, each with an axe run
+  }, 240_000); // twenty-one pages at two widths, each with an axe run
 
   it("finds no violations on a plot holder's and a volunteer's pages, the home with its map included", async () => {
     const db = createDb(testConfig().databaseUrl);
@@ -87,7 +95,15 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
           [`/sites/${lane.id}/water`, 'Water at Mossgate Lane'],
         ],
       ],
-      ['lucia@example.org', [['', 'Mossgate Community Garden Club'], ['/email-choices', 'E-mail choices']]],
+      [
+        'lucia@example.org',
+        [
+          ['', 'Mossgate Community Garden Club'],
+          ['/email-choices', 'E-mail choices'],
+          ['/shifts', 'Shifts'],
+          ['/my-shifts', 'My shifts'],
+        ],
+      ],
     ];
     for (const width of [1280, 390]) {
       for (const [email, pages] of people) {

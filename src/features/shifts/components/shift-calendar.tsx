@@ -16,23 +16,25 @@ import './shift-calendar.css';
 const localizer = dateFnsLocalizer({ format, parse, startOfWeek, getDay, locales: { 'en-GB': enGB } });
 
 /**
- * react-big-calendar 1.20 marks its month grid up as an ARIA table whose rows also hold the event
- * buttons, which axe rightly reports (aria-required-children). The month grid is a picture of the
- * month here (the list view and the agenda carry the same shifts as text), so its table roles are
- * taken away and the events stay buttons and links inside a labelled group.
+ * react-big-calendar 1.20 marks its month and week grids up as ARIA tables whose rows also hold the
+ * event buttons, which axe rightly reports (aria-required-children and -parent). The grids are a
+ * picture of the dates here (the list view and the agenda carry the same shifts as text), so their
+ * table roles are taken away and the events stay buttons and links inside a labelled group.
  */
-function useFlatMonthGrid() {
+function useFlatCalendarGrid() {
   const ref = useRef<HTMLDivElement>(null);
   useEffect(() => {
     const root = ref.current;
     if (!root) return;
     const flatten = () => {
-      for (const month of root.querySelectorAll<HTMLElement>('.rbc-month-view[role="table"]')) month.setAttribute('role', 'group');
-      for (const el of root.querySelectorAll<HTMLElement>('.rbc-month-view [role="row"], .rbc-month-view [role="rowgroup"], .rbc-month-view [role="cell"], .rbc-month-view [role="columnheader"]')) {
+      for (const grid of root.querySelectorAll<HTMLElement>(':is(.rbc-month-view, .rbc-time-view)[role="table"]')) grid.setAttribute('role', 'group');
+      for (const el of root.querySelectorAll<HTMLElement>(
+        ':is(.rbc-month-view, .rbc-time-view) :is([role="table"], [role="row"], [role="rowgroup"], [role="cell"], [role="columnheader"], [role="gridcell"])',
+      )) {
         el.setAttribute('role', 'presentation');
       }
       // Its weekday headings carry aria-sort, which only a column header may have.
-      for (const el of root.querySelectorAll<HTMLElement>('.rbc-month-view [aria-sort]')) el.removeAttribute('aria-sort');
+      for (const el of root.querySelectorAll<HTMLElement>(':is(.rbc-month-view, .rbc-time-view) [aria-sort]')) el.removeAttribute('aria-sort');
     };
     flatten();
     const observer = new MutationObserver(flatten);
@@ -119,7 +121,7 @@ function label(view: CalendarView, date: string): string {
  */
 export function ShiftCalendar({ shifts, view, date, today, timeZone, clubId, onChange }: ShiftCalendarProps) {
   const navigate = useNavigate();
-  const gridRef = useFlatMonthGrid();
+  const gridRef = useFlatCalendarGrid();
   const events = useMemo<BoardEvent[]>(
     () =>
       shifts.map((s) => {
