@@ -92,7 +92,7 @@ describe('fees', () => {
     // 18 × 310 = 5580 (computed), half of it 2790.
     await w.page.getByText('A 3 × 6 m plot (18 m²): £55.80, concession £27.90, deposit £15.00').waitFor();
     await w.page.getByLabel('Charge plots').selectOption({ label: 'By kind of plot' });
-    await w.page.getByLabel('Raised bed').fill('25');
+    await w.page.getByLabel('Raised bed', { exact: true }).fill('25');
     await w.page.getByLabel('Charge plots').selectOption({ label: 'By area' });
     await w.shot('settings-1280');
     await w.page.getByRole('button', { name: 'Save fee schedule' }).click();
