@@ -1,15 +1,14 @@
-import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import connectPgSimple from 'connect-pg-simple';
 import express from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import pg from 'pg';
 import { pino } from 'pino';
-import { pinoHttp } from 'pino-http';
 import type { Deps } from './deps';
 import { requireCsrf } from './middleware/csrf';
+import { requestLog } from './middleware/request-log';
+import { createSessionStore } from './middleware/session-store';
 import { LOG_REDACT_PATHS, refreshSession } from './middleware/session';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { applicationsRouter, applyRouter, clubWaitlistRouter } from './routes/applications';
@@ -61,22 +60,7 @@ export function createApp(deps: Deps): BuiltApp {
     },
     deps.logDestination ?? pino.destination(1),
   );
-  app.use(
-    pinoHttp({
-      logger,
-      genReqId: (req, res) => {
-        const incoming = req.headers['x-request-id'];
-        const id = typeof incoming === 'string' && /^[\w-]{1,64}$/.test(incoming) ? incoming : crypto.randomUUID();
-        res.setHeader('X-Request-Id', id);
-        return id;
-      },
-      // Keep cookies, tokens and headers out of the logs: a request is its id, method and path, a response its status.
-      serializers: {
-        req: (req) => ({ id: req.id, method: req.method, url: String(req.url).replace(/token=[^&]+/g, 'token=…') }),
-        res: (res) => ({ statusCode: res.statusCode }),
-      },
-    }),
-  );
+  app.use(requestLog(logger));
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -90,20 +74,15 @@ export function createApp(deps: Deps): BuiltApp {
   );
   app.use(express.json({ limit: '3mb' })); // plot CSV imports come as JSON, up to 2 MB of text
 
-  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
+  const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 10 });
   // An idle client whose server went away emits 'error' on the pool; unheard, it ends the
   // process. The pool drops that client and connects afresh on the next request.
   sessionPool.on('error', (err) => logger.warn({ reason: err.message }, 'session store lost its database connection'));
-  const PgStore = connectPgSimple(session);
   app.use(
     session({
       name: 'tillwell.sid',
-      // No touch on every request: a signed-in session is refreshed at most once a day (refreshSession).
-      store: new PgStore({
+      store: createSessionStore({
         pool: sessionPool,
-        tableName: 'session',
-        pruneSessionInterval: 15 * 60,
-        disableTouch: true,
         errorLog: (...args: unknown[]) => logger.warn({ reason: String(args[0]) }, 'session store error'),
       }),
       secret: config.sessionSecret,

@@ -1,4 +1,5 @@
 import 'express-session';
+import type { Logger } from 'pino';
 import type { Role } from '@shared/schemas/auth';
 
 declare module 'express-session' {
@@ -15,6 +16,14 @@ declare global {
     interface Request {
       clubId?: number;
       clubRoles?: Role[];
+      /** The signed-in person's roles per club id, read with the session (see session-store.ts). */
+      memberships?: Record<string, Role[]>;
+      /** The columns requireRoleVia's lookup selected for the record (its club_id, a cache stamp). */
+      via?: Record<string, unknown>;
+      /** The request's id (X-Request-Id), set by requestLog. */
+      id?: string;
+      /** A logger carrying the request id, made on first use. */
+      log: Logger;
     }
   }
 }

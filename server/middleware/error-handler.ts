@@ -3,6 +3,7 @@ import { ZodError } from 'zod';
 import type { ErrorCode } from '@shared/errors';
 import { isDatabaseUnavailable } from '../db/unavailable';
 import { AppError, fieldsFromZod } from '../errors';
+import { requestFields } from './request-log';
 
 interface PgError {
   code?: string;
@@ -75,7 +76,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return;
   }
   if (isDatabaseUnavailable(err)) {
-    req.log?.warn({ requestId, reason: (err as Error)?.message }, 'database unavailable');
+    req.log?.warn({ requestId, req: requestFields(req), reason: (err as Error)?.message }, 'database unavailable');
     res.setHeader('Retry-After', '5');
     res.status(503).json({
       error: {
@@ -86,7 +87,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     });
     return;
   }
-  req.log?.error({ err, requestId }, 'unhandled error');
+  req.log?.error({ err, requestId, req: requestFields(req) }, 'unhandled error');
   res.status(500).json({
     error: { code: 'internal', message: 'Something went wrong on our side. Please try again.', requestId },
   });

@@ -95,7 +95,7 @@ export function idempotent(db: Db): RequestHandler {
       save.then(
         () => end(...args),
         (err: unknown) => {
-          req.log?.error({ err }, 'could not store the idempotent response');
+          req.log?.error({ err, requestId: req.id }, 'could not store the idempotent response');
           end(...args);
         },
       );

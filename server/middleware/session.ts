@@ -5,6 +5,8 @@ export function signIn(req: Request, userId: number): Promise<void> {
   return new Promise((resolve, reject) => {
     req.session.regenerate((err) => {
       if (err) return reject(err);
+      // The roles read with the old session are not this person's: the role checks query afresh.
+      req.memberships = undefined;
       req.session.userId = userId;
       req.session.refreshedAt = Date.now();
       req.session.save((err2) => (err2 ? reject(err2) : resolve()));
@@ -14,6 +16,7 @@ export function signIn(req: Request, userId: number): Promise<void> {
 
 /** Destroys the session in the store. */
 export function signOut(req: Request): Promise<void> {
+  req.memberships = undefined;
   return new Promise((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
 }
 

@@ -14,7 +14,7 @@ export function passwordResetsRouter({ db, mailer, config }: Deps): Router {
     const { email } = parseInput(PasswordResetRequestBodySchema, req.body);
     // Sent in the background so the reply takes as long whether or not the address has an account.
     requestPasswordReset(db, mailer, { email, publicUrl: config.publicUrl }).catch((err) =>
-      req.log.error({ err }, 'password reset e-mail failed'),
+      req.log.error({ err, requestId: req.id }, 'password reset e-mail failed'),
     );
     res.status(202).json({ message: 'If that address has an account, a reset link is on its way.' });
   });

@@ -13,6 +13,7 @@ import type { Mailer } from '../mail/mailer';
 import { lapseOverdueOffersOfClub } from './offers';
 import { enqueueMail, kickMail } from './outbox';
 import { alreadyOnWaitlistMail, applicationReceivedMail } from '../mail/waitlist-templates';
+import { clubIdVia, type ClubLookup } from './memberships';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 // Gaps used when someone is moved to either end of the queue, and the least gap kept when the
@@ -62,10 +63,7 @@ function toEntry(r: EntryRow, now: Date): WaitlistEntry {
 }
 
 /** The club a waiting list application belongs to, or null. */
-export async function clubOfApplication(db: Db, applicationId: number): Promise<number | null> {
-  const row = await db('applications').where({ id: applicationId }).first('club_id');
-  return row ? row.club_id : null;
-}
+export const clubOfApplication: ClubLookup = (db, applicationId) => db('applications').where({ id: applicationId }).select('club_id');
 
 async function clubBySlug(db: Db, slug: string) {
   const club: { id: number; name: string; offer_days: number; fee_note: string | null; typical_wait: string | null } | undefined = await db('clubs')
@@ -219,7 +217,7 @@ export async function listWaitlist(db: Knex, clubId: number, query: WaitlistQuer
 
 /** One application as the waiting list shows it. */
 export async function getWaitlistEntry(db: Db, applicationId: number, now = new Date()): Promise<WaitlistEntry> {
-  const clubId = await clubOfApplication(db, applicationId);
+  const clubId = await clubIdVia(db, clubOfApplication, applicationId);
   if (!clubId) throw notFound('The application');
   const row: EntryRow = await entries(db, clubId).where('a.id', applicationId).first();
   return toEntry(row, now);

@@ -2,12 +2,10 @@ import { feeBalance } from '@shared/fees/compute';
 import type { Fee, FeesList, FeesQuery, MyFee, Payment } from '@shared/schemas/fees';
 import { notFound } from '../errors';
 import type { Db } from '../db/knex';
+import type { ClubLookup } from './memberships';
 
 /** The club a fee belongs to, or null. */
-export async function clubOfFee(db: Db, feeId: number): Promise<number | null> {
-  const row = await db('fees').where({ id: feeId }).first('club_id');
-  return row ? row.club_id : null;
-}
+export const clubOfFee: ClubLookup = (db, feeId) => db('fees').where({ id: feeId }).select('club_id');
 
 interface FeeRow {
   id: number;

@@ -5,6 +5,49 @@ import type { Db } from '../db/knex';
 import { recordPlotEvent } from './plot-events';
 import { repriceUnpaidFees } from './fee-charges';
 
+/**
+ * How a record names its club: a query over the record (by its id) selecting one `club_id`,
+ * for an archived or removed record none. requireRoleVia folds it into its role check; any other
+ * column the lookup selects (a cache stamp) is left on req.via.
+ */
+export type ClubLookup = (db: Db, id: number) => Knex.QueryBuilder;
+
+/** The record's club id, or null when the lookup finds nothing. */
+export async function clubIdVia(db: Db, lookup: ClubLookup, id: number): Promise<number | null> {
+  const row = await lookup(db, id).first();
+  return row ? (row.club_id as number) : null;
+}
+
+/**
+ * The record's club and the person's roles there in one query (the role check runs on every
+ * request, so it costs one round trip); null when the record is not found.
+ */
+/** Like clubAndRolesVia, with the person's roles already known (read with the session). */
+export async function clubVia(
+  db: Db,
+  lookup: ClubLookup,
+  id: number,
+  memberships: Record<string, Role[]>,
+): Promise<{ clubId: number; roles: Role[]; row: Record<string, unknown> } | null> {
+  const row = await lookup(db, id).first();
+  return row ? { clubId: row.club_id as number, roles: memberships[row.club_id] ?? [], row } : null;
+}
+
+export async function clubAndRolesVia(
+  db: Db,
+  lookup: ClubLookup,
+  id: number,
+  userId: number,
+): Promise<{ clubId: number; roles: Role[]; row: Record<string, unknown> } | null> {
+  const row = await db
+    .from(lookup(db, id).limit(1).as('x'))
+    .first(
+      'x.*',
+      db.raw("coalesce((select array_agg(m.role::text) from memberships m where m.club_id = x.club_id and m.user_id = ?), '{}') as roles", [userId]),
+    );
+  return row ? { clubId: row.club_id as number, roles: row.roles as Role[], row } : null;
+}
+
 /** The roles a person holds in one club (empty when they are not a member). */
 export async function rolesInClub(db: Db, clubId: number, userId: number): Promise<Role[]> {
   const rows = await db('memberships').where({ club_id: clubId, user_id: userId }).select('role');

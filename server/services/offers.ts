@@ -3,14 +3,13 @@ import { deadlineAfterDays, formatDate } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
 import type { LinkPreview, Offer } from '@shared/schemas/seasons';
 import { AppError, notFound } from '../errors';
-import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { offerMail, welcomeHolderMail } from '../mail/templates';
 import { enqueueMail, kickMail } from './outbox';
 import { createFeeForAllocation } from './fee-charges';
 import { quoteForPerson } from './fee-quotes';
 import { plotFacts } from './link-preview';
-import { grantRoles } from './memberships';
+import { clubIdVia, grantRoles, type ClubLookup } from './memberships';
 import { createPasswordLink } from './password-resets';
 import { recordPlotEvent } from './plot-events';
 import { clubOfPlot } from './plots';
@@ -30,10 +29,8 @@ function toOffer(r: { id: number; season_id: number; plot_id: number; applicatio
 }
 
 /** The club an offer belongs to, or null. */
-export async function clubOfOffer(db: Db, offerId: number): Promise<number | null> {
-  const row = await db('offers as o').join('seasons as s', 's.id', 'o.season_id').where('o.id', offerId).first('s.club_id');
-  return row ? row.club_id : null;
-}
+export const clubOfOffer: ClubLookup = (db, offerId) =>
+  db('offers as o').join('seasons as s', 's.id', 'o.season_id').where('o.id', offerId).select('s.club_id');
 
 /**
  * Offers a free plot to someone on the waiting list. The plot row is locked so two coordinators
@@ -157,7 +154,7 @@ function assertPending(row: { status: string; deadline: Date }, now: Date) {
 
 /** Whether the plot is still on the map (not removed, its site not archived). */
 export async function plotStillThere(trx: Knex.Transaction, plotId: number): Promise<boolean> {
-  return (await clubOfPlot(trx, plotId)) !== null;
+  return (await clubIdVia(trx, clubOfPlot, plotId)) !== null;
 }
 
 const PLOT_REMOVED = 'The club has taken this plot off its map since the offer was sent, so it can no longer be accepted. Your place on the waiting list is kept.';

@@ -10,19 +10,13 @@ import { listPlotEvents, recordPlotEvent } from './plot-events';
 import { seasonPlotStates } from './season-plots';
 import { regenerateTasks } from './tasks';
 import { physicalPlotEvents, seesPeople, type Viewer } from './visibility';
+import type { ClubLookup } from './memberships';
 
 const EPS = STORED_LENGTH_EPS;
 
 /** The club a (live) plot belongs to, or null. */
-export async function clubOfPlot(db: Db, plotId: number): Promise<number | null> {
-  const row = await db('plots as p')
-    .join('sites as s', 's.id', 'p.site_id')
-    .where('p.id', plotId)
-    .whereNull('p.deleted_at')
-    .whereNull('s.archived_at')
-    .first('s.club_id');
-  return row ? row.club_id : null;
-}
+export const clubOfPlot: ClubLookup = (db, plotId) =>
+  db('plots as p').join('sites as s', 's.id', 'p.site_id').where('p.id', plotId).whereNull('p.deleted_at').whereNull('s.archived_at').select('s.club_id');
 
 const livePlots = (db: Db, siteId: number) => db('plots').where({ site_id: siteId }).whereNull('deleted_at');
 

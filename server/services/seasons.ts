@@ -8,12 +8,10 @@ import { renewalMail } from '../mail/templates';
 import { enqueueMail, kickMail } from './outbox';
 import { recordPlotEvent } from './plot-events';
 import { newToken } from './tokens';
+import type { ClubLookup } from './memberships';
 
 /** The club a season belongs to, or null. */
-export async function clubOfSeason(db: Db, seasonId: number): Promise<number | null> {
-  const row = await db('seasons').where({ id: seasonId }).first('club_id');
-  return row ? row.club_id : null;
-}
+export const clubOfSeason: ClubLookup = (db, seasonId) => db('seasons').where({ id: seasonId }).select('club_id');
 
 async function withCounts(
   db: Db,

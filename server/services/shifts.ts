@@ -8,6 +8,7 @@ import type { TaskKind } from '@shared/schemas/tasks';
 import type { Db } from '../db/knex';
 import { AppError, notFound } from '../errors';
 import { taskRows, toTaskView, type TaskRow } from './task-views';
+import type { ClubLookup } from './memberships';
 
 // Shifts for the board and their coordinators: the board for a range, one shift with its tasks, the
 // groupings suggested from open tasks, and making, changing and calling off shifts. Who took places
@@ -51,10 +52,7 @@ interface ClaimRow {
 }
 
 /** The club a shift belongs to (for the role checks of /api/shifts/:shiftId). */
-export async function clubOfShift(db: Db, shiftId: number): Promise<number | null> {
-  const row = await db('shifts').where({ id: shiftId }).first('club_id');
-  return row ? row.club_id : null;
-}
+export const clubOfShift: ClubLookup = (db, shiftId) => db('shifts').where({ id: shiftId }).select('club_id');
 
 export const shiftRows = (db: Db) =>
   db('shifts as sh')

@@ -5,13 +5,12 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { siteColumns, toSite, type SiteRow } from '../db/mappers';
 import { removeBackgroundFile } from './site-backgrounds';
+import type { ClubLookup } from './memberships';
 
 /** The club a site belongs to, or null. */
-export async function clubOfSite(db: Db, siteId: number): Promise<number | null> {
-  // An archived site is gone from the map and its pages; its records stay reachable through fees.
-  const row = await db('sites').where({ id: siteId }).whereNull('archived_at').first('club_id');
-  return row ? row.club_id : null;
-}
+// An archived site is gone from the map and its pages; its records stay reachable through fees.
+// The map stamp rides along for the map's cached reads (see server/cache/json-cache.ts).
+export const clubOfSite: ClubLookup = (db, siteId) => db('sites').where({ id: siteId }).whereNull('archived_at').select('club_id', 'map_stamp');
 
 function withPlotCount(db: Db) {
   return db('sites as s').select(

@@ -1,0 +1,55 @@
+import connectPgSimple from 'connect-pg-simple';
+import session from 'express-session';
+import type pg from 'pg';
+import type { Role } from '@shared/schemas/auth';
+
+const MEMBERSHIPS = '__memberships';
+
+// The session row and the person's roles in every club in one query: the role check that follows
+// on nearly every request then needs no query of its own.
+const GET_SQL = `
+  select s.sess,
+         coalesce((select json_object_agg(x.club_id, x.roles)
+                     from (select m.club_id, array_agg(m.role order by m.role) as roles
+                             from memberships m
+                            where m.user_id = (s.sess->>'userId')::int
+                            group by m.club_id) x), '{}'::json) as memberships
+    from session s
+   where s.sid = $1 and s.expire >= now()`;
+
+/**
+ * The PostgreSQL session store (connect-pg-simple) whose read also brings the signed-in person's
+ * memberships, left on req.memberships (club id → roles) for requireClubRole and requireRoleVia.
+ * Read fresh with every request, so a role taken away counts from the next request on.
+ */
+export function createSessionStore(opts: { pool: pg.Pool; errorLog: (...args: unknown[]) => void }) {
+  const PgStore = connectPgSimple(session);
+  class SessionStore extends PgStore {
+    override get(sid: string, fn: (err: unknown, sess?: session.SessionData | null) => void) {
+      opts.pool.query(GET_SQL, [sid]).then(
+        (r) => {
+          const row = r.rows[0];
+          if (!row) return fn(null, null);
+          const sess = typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess;
+          fn(null, { ...sess, [MEMBERSHIPS]: row.memberships });
+        },
+        (err) => fn(err),
+      );
+    }
+
+    override createSession(req: Express.Request, sess: session.SessionData) {
+      const bag = sess as unknown as Record<string, unknown>;
+      req.memberships = (bag[MEMBERSHIPS] as Record<string, Role[]> | undefined) ?? undefined;
+      delete bag[MEMBERSHIPS];
+      return super.createSession(req as never, sess);
+    }
+  }
+  return new SessionStore({
+    pool: opts.pool,
+    tableName: 'session',
+    pruneSessionInterval: 15 * 60,
+    // No touch on every request: a signed-in session is refreshed at most once a day (refreshSession).
+    disableTouch: true,
+    errorLog: opts.errorLog,
+  });
+}
