@@ -2,7 +2,10 @@ import type { Knex } from 'knex';
 
 // A synthetic network of garden sites for the benchmarks: sites of plots in a grid (3 m × 5 m with
 // 0.9 m paths), five seasons, and a planting on every plot in every season, crops picked by a fixed
-// pseudo-random sequence so the same arguments always give the same network. Invented data.
+// pseudo-random sequence so the same arguments always give the same network. With `people`, every
+// plot also has a holder allocated in every season (one in ten plots changes hands each spring),
+// and there are volunteers and a season of weekly watering shifts per site, the past ones taken and
+// done. Invented data.
 
 export interface NetworkOptions {
   sites: number;
@@ -11,6 +14,8 @@ export interface NetworkOptions {
   /** The newest season's year. */
   year: number;
   onProgress?: (done: number, total: number) => void;
+  /** Holders for every plot, this many volunteers, and weekly shifts from May to September. */
+  people?: { volunteers: number };
 }
 
 export interface Network {
@@ -20,6 +25,10 @@ export interface Network {
   probe: { siteId: number; plotId: number; plantingId: number };
   plots: number;
   plantings: number;
+  allocations: number;
+  users: number;
+  shifts: number;
+  claims: number;
 }
 
 const CROPS = ['potato', 'tomato', 'radish', 'pea', 'bush-bean', 'cabbage', 'carrot', 'onion', 'lettuce', 'sweet-corn', 'sunflower', 'beet', 'zucchini', 'leek'];
@@ -44,7 +53,9 @@ export async function buildNetwork(db: Knex, opts: NetworkOptions): Promise<Netw
   const rows = Math.ceil(opts.plotsPerSite / PER_ROW);
   const siteIds: number[] = [];
   let plantingCount = 0;
-  const total = opts.sites;
+  let allocationCount = 0;
+  let userCount = 0;
+  const total = opts.sites + (opts.people ? 1 : 0);
   for (let s = 0; s < opts.sites; s++) {
     const [site] = await db('sites')
       .insert({
@@ -59,6 +70,23 @@ export async function buildNetwork(db: Knex, opts: NetworkOptions): Promise<Netw
         x_m: (i % PER_ROW) * 3.9, y_m: Math.floor(i / PER_ROW) * 5.9, width_m: 3, length_m: 5,
       })))
       .returning('id');
+    if (opts.people) {
+      // A holder per plot; each spring one plot in ten goes to someone new.
+      const holders: Array<{ id: number }> = await db('users')
+        .insert(Array.from({ length: Math.ceil(plots.length * (1 + 0.1 * (opts.seasons - 1))) }, (_, i) => ({ email: `holder-${s + 1}-${i + 1}@example.org`, name: `Holder ${s + 1}-${i + 1}` })))
+        .returning('id');
+      userCount += holders.length;
+      await db('memberships').insert(holders.map((h) => ({ club_id: club.id, user_id: h.id, role: 'plot_holder' })));
+      let next = plots.length;
+      const holderOf = plots.map((_, i) => holders[i].id);
+      const allocations = [];
+      for (const [k, season] of seasons.entries()) {
+        if (k > 0) for (let i = 0; i < plots.length; i++) if (rand() < 0.1 && next < holders.length) holderOf[i] = holders[next++].id;
+        for (const [i, p] of plots.entries()) allocations.push({ season_id: season.id, plot_id: p.id, user_id: holderOf[i], source: k === 0 ? 'import' : 'renewal' });
+      }
+      for (let i = 0; i < allocations.length; i += 5000) await db('allocations').insert(allocations.slice(i, i + 5000));
+      allocationCount += allocations.length;
+    }
     const plantings = [];
     for (const p of plots) {
       for (const season of seasons) {
@@ -75,6 +103,11 @@ export async function buildNetwork(db: Knex, opts: NetworkOptions): Promise<Netw
     plantingCount += plantings.length;
     opts.onProgress?.(s + 1, total);
   }
+  const { shifts, claims } = opts.people ? await addVolunteersAndShifts(db, club.id, siteIds, opts.year, opts.people.volunteers, rand) : { shifts: 0, claims: 0 };
+  if (opts.people) {
+    userCount += opts.people.volunteers;
+    opts.onProgress?.(total, total);
+  }
   const middle = Math.floor(opts.plotsPerSite / 2) + Math.floor(PER_ROW / 2);
   const probePlot = await db('plots').where({ site_id: siteIds[0] }).orderBy('id').offset(Math.min(middle, opts.plotsPerSite - 1)).first('id');
   const newest = seasons[seasons.length - 1];
@@ -85,7 +118,45 @@ export async function buildNetwork(db: Knex, opts: NetworkOptions): Promise<Netw
     probe: { siteId: siteIds[0], plotId: probePlot.id, plantingId: probePlanting.id },
     plots: opts.sites * opts.plotsPerSite,
     plantings: plantingCount,
+    allocations: allocationCount,
+    users: userCount,
+    shifts,
+    claims,
   };
+}
+
+/**
+ * Volunteers, and an evening watering shift of 3 places every week from May to September on every
+ * site; the shifts before 1 August are taken by volunteers picked at random and marked done.
+ */
+async function addVolunteersAndShifts(db: Knex, clubId: number, siteIds: number[], year: number, count: number, rand: () => number) {
+  const people: Array<{ id: number }> = await db('users')
+    .insert(Array.from({ length: count }, (_, i) => ({ email: `volunteer-${i + 1}@example.org`, name: `Volunteer ${i + 1}` })))
+    .returning('id');
+  await db('memberships').insert(people.map((p) => ({ club_id: clubId, user_id: p.id, role: 'volunteer' })));
+  const rows = [];
+  for (const siteId of siteIds) {
+    for (let week = 0; week < 22; week++) {
+      const day = new Date(Date.UTC(year, 4, 5 + week * 7));
+      const onDate = day.toISOString().slice(0, 10);
+      const startsAt = new Date(`${onDate}T18:00:00Z`);
+      rows.push({
+        club_id: clubId, site_id: siteId, title: `Evening watering ${onDate}`, kind: 'water', on_date: onDate, start_time: '18:00', end_time: '19:30',
+        starts_at: startsAt, ends_at: new Date(startsAt.getTime() + 90 * 60_000), capacity: 3, est_hours: 1.5,
+      });
+    }
+  }
+  const shifts: Array<{ id: number; on_date: string }> = [];
+  for (let i = 0; i < rows.length; i += 2000) shifts.push(...(await db('shifts').insert(rows.slice(i, i + 2000)).returning(['id', 'on_date'])));
+  const claims = [];
+  for (const sh of shifts) {
+    if (sh.on_date >= `${year}-08-01`) continue;
+    const taken = new Set<number>();
+    while (taken.size < 3) taken.add(people[Math.floor(rand() * people.length)].id);
+    for (const userId of taken) claims.push({ shift_id: sh.id, user_id: userId, status: 'done', via: 'board', hours: 1.5, done_at: new Date(`${sh.on_date}T19:30:00Z`) });
+  }
+  for (let i = 0; i < claims.length; i += 5000) await db('shift_claims').insert(claims.slice(i, i + 5000));
+  return { shifts: shifts.length, claims: claims.length };
 }
 
 /** A one-line progress bar on stderr. */
