@@ -120,7 +120,9 @@ try {
 }
 
 /** Lets requests a load run left in flight finish before a server stops (else their pool waits are aborted noisily). */
-const settle = () => new Promise((resolve) => setTimeout(resolve, 1000));
+function settle() {
+  return new Promise((resolve) => setTimeout(resolve, 1000));
+}
 
 /** Signs in over HTTP and answers the session cookie and CSRF token. */
 async function signIn(url: string, email: string, password: string) {
