@@ -1,10 +1,11 @@
 import type { Knex } from 'knex';
 
-// sites.map_stamp: a counter that moves whenever any of the site's plots is added, changed or
-// removed, or the site's path width changes. The map's reads (plots, neighbours) are cached per
+// sites.map_stamp: the id of the last transaction that added, changed or removed any of the site's
+// plots, or changed its path width (txid_current(): it only grows in a cluster and is never reused,
+// so a stamp cannot repeat with other content, not even after a truncate or a restore). The map's reads (plots, neighbours) are cached per
 // server under (site, stamp); the stamp comes with the role check's query, so a cached read costs no
 // extra round trip, and a write on any server is seen by every server's next read.
-// Statement-level triggers with transition tables: an import of 2,000 plots moves the stamp once.
+// Statement-level triggers with transition tables: an import of 2,000 plots updates the site once.
 
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('sites', (t) => {
@@ -14,12 +15,12 @@ export async function up(knex: Knex): Promise<void> {
     create function bump_site_map_stamp() returns trigger language plpgsql as $$
     begin
       if tg_op = 'INSERT' then
-        update sites set map_stamp = map_stamp + 1 where id in (select distinct site_id from new_plots);
+        update sites set map_stamp = txid_current() where id in (select distinct site_id from new_plots);
       elsif tg_op = 'UPDATE' then
-        update sites set map_stamp = map_stamp + 1
+        update sites set map_stamp = txid_current()
           where id in (select site_id from new_plots union select site_id from old_plots);
       else
-        update sites set map_stamp = map_stamp + 1 where id in (select distinct site_id from old_plots);
+        update sites set map_stamp = txid_current() where id in (select distinct site_id from old_plots);
       end if;
       return null;
     end $$;
@@ -33,7 +34,7 @@ export async function up(knex: Knex): Promise<void> {
     create function bump_own_map_stamp() returns trigger language plpgsql as $$
     begin
       if new.path_width_m is distinct from old.path_width_m then
-        new.map_stamp := old.map_stamp + 1;
+        new.map_stamp := txid_current();
       end if;
       return new;
     end $$;

@@ -31,7 +31,7 @@ export function findingsRouter({ db }: Deps): Router {
 
   router.get('/sites/:siteId/findings', requireRoleVia(db, 'siteId', clubOfSite, 'The site', 'coordinator'), async (req, res) => {
     const query = parseInput(FindingListQuerySchema, { ...req.query });
-    res.json(await findingsForCoordinator(db, { clubId: req.clubId!, query: { ...query, siteId: idParam(req, 'siteId') } }));
+    res.json(await findingsForCoordinator(db, { clubId: req.clubId!, query: { ...query, siteId: idParam(req, 'siteId') }, siteChecked: true }));
   });
 
   const coordinator = requireClubRole(db, 'coordinator');

@@ -46,7 +46,10 @@ export async function whatFitsOnPlot(db: Db, opts: { plotId: number; userId: num
 }
 
 /** A season's stored findings for coordinators, filtered; the season defaults to the club's current one. */
-export async function findingsForCoordinator(db: Db, opts: { clubId: number; query: FindingListQuery; now?: Date }): Promise<FindingList> {
+export async function findingsForCoordinator(
+  db: Db,
+  opts: { clubId: number; query: FindingListQuery; now?: Date; /** The site is known to be the club's (the route checked it). */ siteChecked?: boolean },
+): Promise<FindingList> {
   const q = opts.query;
   let season: { id: number; year: number } | null;
   if (q.seasonId !== undefined) {
@@ -56,7 +59,7 @@ export async function findingsForCoordinator(db: Db, opts: { clubId: number; que
     season = await currentSeason(db, opts.clubId, opts.now);
   }
   if (!season) return { seasonId: null, seasonYear: null, items: [] };
-  if (q.siteId !== undefined) {
+  if (q.siteId !== undefined && !opts.siteChecked) {
     const site = await db('sites').where({ id: q.siteId, club_id: opts.clubId }).first('id');
     if (!site) throw notFound('The site');
   }

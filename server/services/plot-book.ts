@@ -4,7 +4,6 @@ import type { PlotBook } from '@shared/schemas/plot-book';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import { listFindings } from './findings';
-import { clubTimeZone } from './clubs';
 import { listHarvestRows, toHarvest } from './harvests';
 import { listObservations } from './observations';
 import { loadPlantings, type SiteClimate } from './plantings';
@@ -39,8 +38,13 @@ export interface PlotBookAccess {
  * or, while every season is still ahead (a club's first spring round), the earliest of them.
  */
 export async function currentSeason(db: Db, clubId: number, now: Date = new Date()): Promise<{ id: number; year: number } | null> {
-  const seasons: Array<{ id: number; year: number }> = await db('seasons').where({ club_id: clubId }).select('id', 'year');
-  return pickCurrentSeason(seasons, await clubTimeZone(db, clubId), now);
+  // The club's zone and its seasons in one query (a club with no season still answers its zone).
+  const rows: Array<{ id: number | null; year: number | null; time_zone: string }> = await db('clubs as c')
+    .leftJoin('seasons as s', 's.club_id', 'c.id')
+    .where('c.id', clubId)
+    .select('s.id', 's.year', 'c.time_zone');
+  const seasons = rows.filter((r) => r.id !== null).map((r) => ({ id: r.id!, year: r.year! }));
+  return pickCurrentSeason(seasons, rows[0]?.time_zone ?? 'UTC', now);
 }
 
 /** The season "this season" means among a club's seasons (see currentSeason), without a query. */

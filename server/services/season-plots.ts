@@ -11,15 +11,31 @@ export async function listSeasonPlotStates(
   db: Db,
   opts: { seasonId: number; clubId: number; siteId: number; viewer: Viewer },
 ): Promise<{ items: PlotSeasonState[]; page: number; total: number }> {
-  const site = await db('sites').where({ id: opts.siteId, club_id: opts.clubId }).whereNull('archived_at').first('id');
-  const items = site ? await seasonPlotStates(db, opts.seasonId, opts.siteId, opts.viewer) : [];
+  const items = await seasonPlotStates(db, opts.seasonId, opts.siteId, opts.viewer, new Date(), opts.clubId);
   return { items, page: 1, total: items.length };
+}
+
+interface StateRow {
+  plot_id: number;
+  holder_user_id: number | null;
+  holder_name: string | null;
+  offer_id: number | null;
+  offer_application_id: number | null;
+  offer_deadline: Date | null;
+  offer_name: string | null;
+  renewal_id: number | null;
+  renewal_user_id: number | null;
+  renewal_deadline: Date | null;
+  renewal_name: string | null;
 }
 
 /**
  * Where every plot of a site stands in a season: taken, offered, waiting for a renewal answer, or free.
  * A coordinator sees who; anyone else sees free or taken, and names only on their own holding or renewal.
  * An offer or renewal past its deadline at `now` has lapsed, whether or not the sweep has run.
+ * One query (the map reads it on every visit): each live plot with its active holder, pending offer and
+ * pending renewal, each at most one by the unique indexes. With `clubId`, a site of another club or an
+ * archived site gives no plots.
  */
 export async function seasonPlotStates(
   db: Db,
@@ -27,50 +43,54 @@ export async function seasonPlotStates(
   siteId: number,
   viewer: Viewer,
   now: Date = new Date(),
+  clubId?: number,
 ): Promise<PlotSeasonState[]> {
-  const plots = await db('plots').where({ site_id: siteId }).whereNull('deleted_at').select('id');
-  const holders = await db('allocations as a')
-    .join('users as u', 'u.id', 'a.user_id')
-    .where({ 'a.season_id': seasonId, 'a.status': 'active' })
-    .select('a.plot_id', 'u.id as user_id', 'u.name');
-  const offers = await db('offers as o')
-    .join('applications as ap', 'ap.id', 'o.application_id')
-    .where({ 'o.season_id': seasonId, 'o.status': 'pending' })
-    .where('o.deadline', '>', now)
-    .select('o.id', 'o.plot_id', 'o.application_id', 'o.deadline', 'ap.name');
-  const renewals = await db('renewals as r')
-    .join('users as u', 'u.id', 'r.user_id')
-    .where({ 'r.season_id': seasonId, 'r.status': 'pending' })
-    .where('r.deadline', '>', now)
-    .select('r.id', 'r.plot_id', 'r.deadline', 'u.id as user_id', 'u.name');
-  const byPlot = <T extends { plot_id: number }>(rows: T[]) => new Map(rows.map((r) => [r.plot_id, r]));
-  const h = byPlot(holders);
-  const o = byPlot(offers);
-  const r = byPlot(renewals);
+  const { rows }: { rows: StateRow[] } = await db.raw(
+    `select p.id as plot_id,
+            h.user_id as holder_user_id, h.name as holder_name,
+            o.id as offer_id, o.application_id as offer_application_id, o.deadline as offer_deadline, o.name as offer_name,
+            r.id as renewal_id, r.user_id as renewal_user_id, r.deadline as renewal_deadline, r.name as renewal_name
+       from plots p
+       join sites s on s.id = p.site_id
+       left join lateral (
+         select a.user_id, u.name from allocations a join users u on u.id = a.user_id
+          where a.season_id = :seasonId and a.plot_id = p.id and a.status = 'active' limit 1) h on true
+       left join lateral (
+         select o.id, o.application_id, o.deadline, ap.name from offers o join applications ap on ap.id = o.application_id
+          where o.season_id = :seasonId and o.plot_id = p.id and o.status = 'pending' and o.deadline > :now limit 1) o on true
+       left join lateral (
+         select r.id, r.user_id, r.deadline, u.name from renewals r join users u on u.id = r.user_id
+          where r.season_id = :seasonId and r.plot_id = p.id and r.status = 'pending' and r.deadline > :now limit 1) r on true
+      where p.site_id = :siteId and p.deleted_at is null
+        and (cast(:clubId as integer) is null or (s.club_id = :clubId and s.archived_at is null))
+      order by p.id`,
+    { seasonId, siteId, now, clubId: clubId ?? null },
+  );
   const full = seesPeople(viewer);
-  return plots.map(({ id }): PlotSeasonState => {
-    const holder = h.get(id);
-    const offer = o.get(id);
-    const renewal = r.get(id);
+  return rows.map((row): PlotSeasonState => {
+    const holder = row.holder_user_id !== null ? { userId: row.holder_user_id, name: row.holder_name! } : null;
+    const hasOffer = row.offer_id !== null;
+    const hasRenewal = row.renewal_id !== null;
+    const renewal = hasRenewal ? { id: row.renewal_id!, name: row.renewal_name!, deadline: new Date(row.renewal_deadline!).toISOString() } : null;
     if (!full) {
-      const ownHolding = holder?.user_id === viewer.userId;
-      const ownRenewal = !holder && !offer && renewal?.user_id === viewer.userId;
+      const ownHolding = holder?.userId === viewer.userId;
+      const ownRenewal = !holder && !hasOffer && row.renewal_user_id === viewer.userId;
       return {
-        plotId: id,
-        status: ownRenewal ? 'renewal_pending' : holder || offer || renewal ? 'taken' : 'free',
-        holder: ownHolding ? { userId: holder.user_id, name: holder.name } : null,
+        plotId: row.plot_id,
+        status: ownRenewal ? 'renewal_pending' : holder || hasOffer || hasRenewal ? 'taken' : 'free',
+        holder: ownHolding ? holder : null,
         offer: null,
-        renewal: ownRenewal ? { id: renewal.id, name: renewal.name, deadline: new Date(renewal.deadline).toISOString() } : null,
+        renewal: ownRenewal ? renewal : null,
       };
     }
     return {
-      plotId: id,
-      status: holder ? 'taken' : offer ? 'offered' : renewal ? 'renewal_pending' : 'free',
-      holder: holder ? { userId: holder.user_id, name: holder.name } : null,
-      offer: offer
-        ? { id: offer.id, applicationId: offer.application_id, name: offer.name, deadline: new Date(offer.deadline).toISOString() }
+      plotId: row.plot_id,
+      status: holder ? 'taken' : hasOffer ? 'offered' : hasRenewal ? 'renewal_pending' : 'free',
+      holder,
+      offer: hasOffer
+        ? { id: row.offer_id!, applicationId: row.offer_application_id!, name: row.offer_name!, deadline: new Date(row.offer_deadline!).toISOString() }
         : null,
-      renewal: renewal ? { id: renewal.id, name: renewal.name, deadline: new Date(renewal.deadline).toISOString() } : null,
+      renewal,
     };
   });
 }
