@@ -8,7 +8,8 @@ import helmet from 'helmet';
 import pg from 'pg';
 import { pino } from 'pino';
 import { pinoHttp } from 'pino-http';
-import type { Deps } from './deps';
+import type { AppDeps, Deps } from './deps';
+import { createStorage } from './storage';
 import { requireCsrf } from './middleware/csrf';
 import { LOG_REDACT_PATHS, refreshSession } from './middleware/session';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -47,8 +48,9 @@ export interface BuiltApp {
 }
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
-export function createApp(deps: Deps): BuiltApp {
-  const { config } = deps;
+export function createApp(input: AppDeps): BuiltApp {
+  const { config } = input;
+  const deps: Deps = { ...input, storage: input.storage ?? createStorage(config) };
   const app = express();
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);
