@@ -5,7 +5,8 @@ import session from 'express-session';
 import helmet from 'helmet';
 import pg from 'pg';
 import { pino } from 'pino';
-import type { Deps } from './deps';
+import type { AppDeps, Deps } from './deps';
+import { createStorage } from './storage';
 import { requireCsrf } from './middleware/csrf';
 import { requestLog } from './middleware/request-log';
 import { createSessionStore } from './middleware/session-store';
@@ -46,8 +47,9 @@ export interface BuiltApp {
 }
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
-export function createApp(deps: Deps): BuiltApp {
-  const { config } = deps;
+export function createApp(input: AppDeps): BuiltApp {
+  const { config } = input;
+  const deps: Deps = { ...input, storage: input.storage ?? createStorage(config) };
   const app = express();
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);

@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
+import type { S3Settings } from './storage/s3';
 
 const root = path.resolve(import.meta.dirname, '..');
 
@@ -27,6 +28,13 @@ const EnvSchema = z
     LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
     STATIC_DIR: z.string().default(path.join(root, 'dist')),
     UPLOAD_DIR: z.string().default(path.join(root, '.data', 'uploads')),
+    STORAGE: z.enum(['local', 's3']).default('local'),
+    S3_ENDPOINT: z.url({ message: 'must be an http:// or https:// URL' }).startsWith('http', 'must be an http:// or https:// URL').optional(),
+    S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'must be a bucket name (3–63 lower-case letters, digits, dots, dashes)').optional(),
+    S3_REGION: z.string().min(1).default('us-east-1'),
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    S3_FORCE_PATH_STYLE: boolish.optional(),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
@@ -34,6 +42,13 @@ const EnvSchema = z
     }
     if (env.NODE_ENV === 'production' && !env.PUBLIC_URL) {
       ctx.addIssue({ code: 'custom', path: ['PUBLIC_URL'], message: 'is required in production (links in e-mails)' });
+    }
+    if (env.STORAGE === 's3' && !env.S3_BUCKET) {
+      ctx.addIssue({ code: 'custom', path: ['S3_BUCKET'], message: 'is required when STORAGE=s3' });
+    }
+    if (Boolean(env.S3_ACCESS_KEY_ID) !== Boolean(env.S3_SECRET_ACCESS_KEY)) {
+      const missing = env.S3_ACCESS_KEY_ID ? 'S3_SECRET_ACCESS_KEY' : 'S3_ACCESS_KEY_ID';
+      ctx.addIssue({ code: 'custom', path: [missing], message: 'S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY go together' });
     }
   });
 
@@ -62,7 +77,10 @@ export interface Config {
   trustProxy: boolean;
   logLevel: Env['LOG_LEVEL'];
   staticDir: string;
+  /** The local upload folder (also what the backup copies when storage is local). */
   uploadDir: string;
+  /** Where uploads are kept: the upload folder, or an S3-compatible bucket. */
+  storage: { kind: 'local'; dir: string } | ({ kind: 's3' } & S3Settings);
 }
 
 /** Reads and validates the environment once, failing with every bad variable listed. */
@@ -95,6 +113,19 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     logLevel: e.LOG_LEVEL,
     staticDir: e.STATIC_DIR,
     uploadDir: e.UPLOAD_DIR,
+    storage:
+      e.STORAGE === 's3'
+        ? {
+            kind: 's3',
+            endpoint: e.S3_ENDPOINT,
+            bucket: e.S3_BUCKET!,
+            region: e.S3_REGION,
+            accessKeyId: e.S3_ACCESS_KEY_ID,
+            secretAccessKey: e.S3_SECRET_ACCESS_KEY,
+            // Path-style addressing by default for a named endpoint (most S3-compatible servers), not for AWS.
+            forcePathStyle: e.S3_FORCE_PATH_STYLE ?? Boolean(e.S3_ENDPOINT),
+          }
+        : { kind: 'local', dir: e.UPLOAD_DIR },
   };
 }
 

@@ -2,7 +2,8 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { startFakeMail, type FakeMail } from '../../fake-mail/server';
-import { ensurePostgresInstalled, firstUnreachable, startCluster, type Cluster } from './postgres';
+import pg from 'pg';
+import { ensurePostgresInstalled, firstUnreachable, runningClusterPort, startCluster, type Cluster } from './postgres';
 
 export const root = path.resolve(import.meta.dirname, '..', '..');
 
@@ -95,6 +96,64 @@ export async function startLocalServices(opts: { withMail: boolean }): Promise<L
     cluster,
     async stop() {
       await mail?.close();
+      cluster?.stop();
+    },
+  };
+}
+
+export interface LocalDatabase {
+  databaseUrl: string;
+  /** Where the database is, for messages: the URL given, or the local cluster's folder and port. */
+  where: string;
+  /** Stops the local cluster if this call started it (one `npm start` is running is left alone). */
+  stop(): void;
+}
+
+/**
+ * The database the ops scripts work on: DATABASE_URL when set; otherwise `database` (default `tillwell`)
+ * on the local cluster `npm start` uses (same folder, same port setting), created if missing. A cluster
+ * that is already running (`npm start` in another terminal) is used where it listens and left running;
+ * one that is not is started for the script and stopped after it.
+ */
+export async function openLocalDatabase(opts: { database?: string } = {}): Promise<LocalDatabase> {
+  if (process.env.DATABASE_URL) {
+    if (opts.database) throw new Error('--database names a database on the local cluster; with DATABASE_URL set, name the database in the URL.');
+    return { databaseUrl: process.env.DATABASE_URL, where: 'DATABASE_URL', stop() {} };
+  }
+  const name = opts.database ?? 'tillwell';
+  if (!/^[a-z_][a-z0-9_]{0,62}$/.test(name)) throw new Error(`--database ${name}: use lower-case letters, digits and _ only.`);
+  const dataRoot = process.env.TILLWELL_DATA_DIR ?? path.join(root, '.data');
+  fs.mkdirSync(dataRoot, { recursive: true });
+  fs.chmodSync(dataRoot, fs.statSync(dataRoot).mode | 0o711);
+  ensurePostgresInstalled();
+  const place = chooseClusterPlace(root, dataRoot);
+  const running = runningClusterPort(place.dir);
+  let cluster: Cluster | null = null;
+  let port: number;
+  if (running !== null) {
+    port = running;
+  } else {
+    port = Number(process.env.TILLWELL_PG_PORT ?? 54329);
+    cluster = startCluster({ dataDir: place.dir, port, log: () => {} });
+  }
+  const url = (db: string) => `postgres://postgres@127.0.0.1:${port}/${db}`;
+  try {
+    const client = new pg.Client({ connectionString: url('postgres') });
+    await client.connect();
+    try {
+      const found = await client.query('select 1 from pg_database where datname = $1', [name]);
+      if (!found.rowCount) await client.query(`create database "${name}"`);
+    } finally {
+      await client.end();
+    }
+  } catch (err) {
+    cluster?.stop();
+    throw err;
+  }
+  return {
+    databaseUrl: url(name),
+    where: `the local cluster in ${place.dir} (127.0.0.1:${port}${running !== null ? ', already running' : ''}), database ${name}`,
+    stop() {
       cluster?.stop();
     },
   };

@@ -81,6 +81,23 @@ function assertReachable(dir: string) {
   }
 }
 
+/**
+ * The port of a cluster already running from dataDir (as `npm start` leaves it), or null when none is.
+ * Read from postmaster.pid, whose fourth line is the port (PostgreSQL's pidfile.h, LOCK_FILE_LINE_PORT).
+ */
+export function runningClusterPort(dataDir: string): number | null {
+  if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) return null;
+  const binDir = findPgBinDir();
+  if (!binDir) return null;
+  if (runPg(binDir, 'pg_ctl', ['-D', dataDir, 'status'], { allowFail: true }).status !== 0) return null;
+  try {
+    const port = Number(fs.readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n')[3]);
+    return Number.isInteger(port) && port > 0 ? port : null;
+  } catch {
+    return null;
+  }
+}
+
 /** Asks the kernel for a free TCP port on loopback. */
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {

@@ -1,4 +1,4 @@
-import { Router, type RequestHandler, type Response, type NextFunction } from 'express';
+import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import {
   HarvestBodySchema,
@@ -8,13 +8,14 @@ import {
   PlotBookQuerySchema,
 } from '@shared/schemas/plot-book';
 import type { Deps } from '../deps';
-import { AppError, notFound, parseInput } from '../errors';
+import { AppError, parseInput } from '../errors';
 import { requireUser } from '../middleware/auth';
 import { createHarvest, deleteHarvest } from '../services/harvests';
 import { addObservationPhoto, assertCanAddPhoto, createObservation, deleteObservation, findObservationPhoto, MAX_PHOTO_BYTES } from '../services/observations';
 import { getPlotBook } from '../services/plot-book';
 import { createPlanting, deletePlanting, plantingById, updatePlanting } from '../services/plantings';
 import { idParam } from './params';
+import { sendStoredFile } from './stored-file';
 
 const multerMessages: Record<string, string> = {
   LIMIT_FILE_SIZE: 'The image is larger than 8 MB',
@@ -38,21 +39,11 @@ function receivePhoto(): RequestHandler {
   };
 }
 
-function sendStored(res: Response, next: NextFunction, found: { folder: string; name: string; mime: string }) {
-  const headers = { 'Content-Type': found.mime, 'Cache-Control': 'private, max-age=3600', 'X-Content-Type-Options': 'nosniff' };
-  res.sendFile(found.name, { root: found.folder, headers, cacheControl: false, dotfiles: 'deny' }, (err) => {
-    if (!err) return;
-    if (res.headersSent) return res.destroy();
-    const code = (err as NodeJS.ErrnoException).code;
-    next(code === 'ENOENT' || code === 'EISDIR' ? notFound('The photo') : err);
-  });
-}
-
 /**
  * The plot book: a plot's book, its plantings and their harvests, observations and their photos.
  * Mounted at /api; who may do what is decided in the services (see services/plot-book.ts).
  */
-export function plotBookRouter({ db, config }: Deps): Router {
+export function plotBookRouter({ db, storage }: Deps): Router {
   const router = Router();
 
   router.get('/plots/:plotId/book', requireUser, async (req, res) => {
@@ -100,7 +91,7 @@ export function plotBookRouter({ db, config }: Deps): Router {
   });
 
   router.delete('/observations/:observationId', requireUser, async (req, res) => {
-    await deleteObservation(db, { observationId: idParam(req, 'observationId'), userId: req.session.userId!, uploadDir: config.uploadDir });
+    await deleteObservation(db, { observationId: idParam(req, 'observationId'), userId: req.session.userId!, storage });
     res.status(204).end();
   });
 
@@ -112,14 +103,14 @@ export function plotBookRouter({ db, config }: Deps): Router {
   router.post('/observations/:observationId/photos', requireUser, mayAddPhoto, receivePhoto(), async (req, res) => {
     const observationId = idParam(req, 'observationId');
     if (!req.file) throw new AppError('validation_failed', 'Choose a photo to upload.', { photo: 'Choose a PNG, JPEG or WebP photo' });
-    const observation = await addObservationPhoto(db, { observationId, userId: req.session.userId!, uploadDir: config.uploadDir, bytes: req.file.buffer });
+    const observation = await addObservationPhoto(db, { observationId, userId: req.session.userId!, storage, bytes: req.file.buffer });
     res.status(201).json(observation);
   });
 
   for (const [suffix, thumb] of [['', false], ['/thumb', true]] as const) {
-    router.get(`/observation-photos/:photoId${suffix}`, requireUser, async (req, res, next) => {
+    router.get(`/observation-photos/:photoId${suffix}`, requireUser, async (req, res) => {
       const photoId = idParam(req, 'photoId');
-      sendStored(res, next, await findObservationPhoto(db, { photoId, userId: req.session.userId!, uploadDir: config.uploadDir, thumb }));
+      await sendStoredFile(res, storage, await findObservationPhoto(db, { photoId, userId: req.session.userId!, thumb }), 'The photo');
     });
   }
 

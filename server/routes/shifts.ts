@@ -36,6 +36,7 @@ import {
 import { getVolunteerSettings, hoursCsvRows, HOURS_CSV_FIELDS, hoursTable, myShifts, setVolunteerSettings } from '../services/shift-hours';
 import { clubOfShift, createShift, listShifts, shiftDetail, shiftRows, shiftSuggestions, toShiftViews, updateShift, type ShiftRow } from '../services/shifts';
 import { idParam } from './params';
+import { sendStoredFile } from './stored-file';
 
 /** Reads a done form: JSON, or multipart with the fields note, hours, token and one file `photo`. */
 function doneForm(): RequestHandler {
@@ -72,9 +73,9 @@ const VersionBodySchema = z.strictObject({ version: VersionSchema });
  * /shifts/:shiftId, the e-mailed links under /shift-links (no sign-in; the token is the key), and
  * calendar feeds under /feeds/:token.ics (a secret address).
  */
-export function shiftsRouter({ db, mailer, config }: Deps): Router {
+export function shiftsRouter({ db, mailer, config, storage }: Deps): Router {
   const router = Router();
-  const ctx = () => ({ db, mailer, publicUrl: config.publicUrl, uploadDir: config.uploadDir });
+  const ctx = () => ({ db, mailer, publicUrl: config.publicUrl, storage });
   const member = requireClubRole(db);
   const coordinator = requireClubRole(db, 'coordinator');
   const shiftMember = requireRoleVia(db, 'shiftId', clubOfShift, 'The shift');
@@ -148,13 +149,9 @@ export function shiftsRouter({ db, mailer, config }: Deps): Router {
     const { note } = parseInput(AskForHelpBodySchema, req.body ?? {});
     res.json(await askForHelp(ctx(), { shiftId: idParam(req, 'shiftId'), viewer: viewer(req), note }));
   });
-  router.get('/shifts/:shiftId/claims/:claimId/photo', shiftMember, async (req, res, next) => {
-    const found = await shiftPhoto(db, { shiftId: idParam(req, 'shiftId'), claimId: idParam(req, 'claimId'), viewer: viewer(req), uploadDir: config.uploadDir });
-    res.sendFile(found.name, { root: found.folder, headers: { 'Content-Type': found.mime, 'Cache-Control': 'private, max-age=3600', 'X-Content-Type-Options': 'nosniff' }, dotfiles: 'deny' }, (err) => {
-      if (!err) return;
-      if (res.headersSent) return res.destroy();
-      next(notFound('The photo'));
-    });
+  router.get('/shifts/:shiftId/claims/:claimId/photo', shiftMember, async (req, res) => {
+    const found = await shiftPhoto(db, { shiftId: idParam(req, 'shiftId'), claimId: idParam(req, 'claimId'), viewer: viewer(req) });
+    await sendStoredFile(res, storage, found, 'The photo');
   });
 
   router.get('/shift-links/preview', limit, async (req, res) => {

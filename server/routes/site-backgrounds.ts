@@ -3,7 +3,7 @@ import multer from 'multer';
 import { z } from 'zod';
 import { MAX_SITE_SIDE_M, MIN_SITE_SIDE_M } from '@shared/schemas/sites';
 import type { Deps } from '../deps';
-import { AppError, notFound, parseInput } from '../errors';
+import { AppError, parseInput } from '../errors';
 import { requireRoleVia } from '../middleware/auth';
 import {
   deleteSiteBackground,
@@ -12,6 +12,7 @@ import {
   setSiteBackground,
 } from '../services/site-backgrounds';
 import { clubOfSite } from '../services/sites';
+import { sendStoredFile } from './stored-file';
 
 const UploadFieldsSchema = z.strictObject({
   widthMetres: z.preprocess(
@@ -54,7 +55,7 @@ function receiveImage(): RequestHandler {
 }
 
 /** A site's map background image: upload, fetch, remove. Mounted at /api/sites/:siteId/background. */
-export function siteBackgroundsRouter({ db, config }: Deps): Router {
+export function siteBackgroundsRouter({ db, storage }: Deps): Router {
   const router = Router({ mergeParams: true });
   const member = requireRoleVia(db, 'siteId', clubOfSite, 'The site');
   const coordinator = requireRoleVia(db, 'siteId', clubOfSite, 'The site', 'coordinator');
@@ -66,32 +67,20 @@ export function siteBackgroundsRouter({ db, config }: Deps): Router {
     }
     const site = await setSiteBackground(db, {
       siteId: Number(req.params.siteId),
-      uploadDir: config.uploadDir,
+      storage,
       bytes: req.file.buffer,
       widthMetres,
     });
     res.json(site);
   });
 
-  router.get('/', member, async (req, res, next) => {
-    const found = await findSiteBackground(db, { siteId: Number(req.params.siteId), uploadDir: config.uploadDir });
-    const headers = {
-      'Content-Type': found.mime,
-      'Cache-Control': 'private, max-age=3600',
-      'X-Content-Type-Options': 'nosniff',
-    };
-    // Headers go with the file only, so a 404 is never cached; root keeps send's dot-folder
-    // check off the configured path (the default lives under .data/).
-    res.sendFile(found.name, { root: found.folder, headers, cacheControl: false, dotfiles: 'deny' }, (err) => {
-      if (!err) return;
-      if (res.headersSent) return res.destroy();
-      const code = (err as NodeJS.ErrnoException).code;
-      next(code === 'ENOENT' || code === 'EISDIR' ? notFound('The background image') : err);
-    });
+  router.get('/', member, async (req, res) => {
+    const found = await findSiteBackground(db, { siteId: Number(req.params.siteId) });
+    await sendStoredFile(res, storage, found, 'The background image');
   });
 
   router.delete('/', coordinator, async (req, res) => {
-    await deleteSiteBackground(db, { siteId: Number(req.params.siteId), uploadDir: config.uploadDir });
+    await deleteSiteBackground(db, { siteId: Number(req.params.siteId), storage });
     res.status(204).end();
   });
 

@@ -30,7 +30,7 @@ export function clubSitesRouter({ db }: Deps): Router {
 }
 
 /** One site and the plots on it, mounted at /api/sites. */
-export function sitesRouter({ db, config }: Deps): Router {
+export function sitesRouter({ db, storage }: Deps): Router {
   const router = Router();
   const member = requireRoleVia(db, 'siteId', clubOfSite, 'The site');
   const coordinator = requireRoleVia(db, 'siteId', clubOfSite, 'The site', 'coordinator');
@@ -49,7 +49,7 @@ export function sitesRouter({ db, config }: Deps): Router {
   // Deleting is for a site with no records; one with allocations, fees or payments is archived instead.
   router.delete('/:siteId', coordinator, async (req, res) => {
     const { version } = parseInput(DeleteQuerySchema, req.query);
-    await deleteSite(db, { siteId: Number(req.params.siteId), version, uploadDir: config.uploadDir });
+    await deleteSite(db, { siteId: Number(req.params.siteId), version, storage });
     res.status(204).end();
   });
 

@@ -1,11 +1,10 @@
 import crypto from 'node:crypto';
-import fs from 'node:fs/promises';
-import path from 'node:path';
 import type { Knex } from 'knex';
 import { pestBySlug } from '@shared/crops/pests';
 import { MAX_PHOTOS_PER_OBSERVATION, type Observation, type ObservationBody, type ObservationPhoto } from '@shared/schemas/plot-book';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
+import { storageKey, type Storage } from '../storage';
 import { type ImageLimits, inspectImage, makeThumbnail, reencodeImage } from './images';
 import { assertPartInside, plotBookAccess } from './plot-book';
 import { recheckSite } from './findings';
@@ -24,8 +23,8 @@ const FOLDER = 'observation-photos';
 // Names are ours (random hex), so anything else in the column is refused rather than joined into a path.
 const STORED_NAME = /^[0-9a-f]{32}(-thumb)?\.webp$/;
 
-/** The private folder photos are kept in, under the upload folder. */
-export const photoFolder = (uploadDir: string) => path.join(path.resolve(uploadDir), FOLDER);
+/** A photo's storage key (`observation-photos/<name>`, a private folder under the upload folder on disk). */
+const keyOf = (name: string) => storageKey(FOLDER, name);
 
 interface ObservationRow {
   id: number;
@@ -163,7 +162,7 @@ export async function assertCanAddPhoto(db: Db, opts: { observationId: number; u
  */
 export async function addObservationPhoto(
   db: Knex,
-  opts: { observationId: number; userId: number; uploadDir: string; bytes: Uint8Array; now?: Date },
+  opts: { observationId: number; userId: number; storage: Storage; bytes: Uint8Array; now?: Date },
 ): Promise<Observation> {
   await assertCanAddPhoto(db, opts);
   // Cheap refusals first, so a fifth photo is not decoded at all; the count is checked again under the lock.
@@ -173,19 +172,14 @@ export async function addObservationPhoto(
   const stored = await reencodeImage(opts.bytes, { limits: photoLimits, maxSidePx: STORED_PHOTO_SIDE_PX, format: 'webp', quality: PHOTO_QUALITY });
   const thumb = await makeThumbnail(opts.bytes, PHOTO_THUMB_SIDE_PX, photoLimits);
 
-  const folder = photoFolder(opts.uploadDir);
-  // Only the innermost folder is private; parents such as .data stay as the system makes them.
-  await fs.mkdir(path.dirname(folder), { recursive: true });
-  await fs.mkdir(folder, { recursive: true, mode: 0o700 });
   const base = crypto.randomBytes(16).toString('hex');
   const fileName = `${base}.webp`;
   const thumbName = `${base}-thumb.webp`;
   const written: string[] = [];
   try {
     for (const [name, bytes] of [[fileName, stored.bytes], [thumbName, thumb.bytes]] as const) {
-      const file = path.join(folder, name);
-      await fs.writeFile(file, bytes, { flag: 'wx', mode: 0o600 });
-      written.push(file);
+      await opts.storage.put(keyOf(name), bytes, 'image/webp');
+      written.push(keyOf(name));
     }
     await db.transaction(async (trx) => {
       const observation = await trx('observations').where({ id: opts.observationId }).forUpdate().first('id', 'plot_id');
@@ -203,17 +197,17 @@ export async function addObservationPhoto(
       });
     });
   } catch (err) {
-    for (const file of written) await fs.rm(file, { force: true });
+    for (const key of written) await opts.storage.delete(key);
     throw err;
   }
   return getObservation(db, opts.observationId);
 }
 
-/** Where a photo (or its thumbnail) lives on disk and its type, for those who may read its plot's book; 404 otherwise. */
+/** Where a photo (or its thumbnail) is stored and its type, for those who may read its plot's book; 404 otherwise. */
 export async function findObservationPhoto(
   db: Db,
-  opts: { photoId: number; userId: number; uploadDir: string; thumb: boolean; now?: Date },
-): Promise<{ folder: string; name: string; mime: string }> {
+  opts: { photoId: number; userId: number; thumb: boolean; now?: Date },
+): Promise<{ key: string; mime: string }> {
   const row = await db('observation_photos as ph')
     .join('observations as o', 'o.id', 'ph.observation_id')
     .where('ph.id', opts.photoId)
@@ -223,11 +217,11 @@ export async function findObservationPhoto(
   const name: string = opts.thumb ? row.thumb_name : row.file_name;
   if (!STORED_NAME.test(name)) throw notFound('The photo');
   // Thumbnails are always WebP; the full photo keeps the type it was stored with.
-  return { folder: photoFolder(opts.uploadDir), name, mime: opts.thumb ? 'image/webp' : row.mime };
+  return { key: keyOf(name), mime: opts.thumb ? 'image/webp' : row.mime };
 }
 
 /** Deletes an observation with its photos (by whoever may change its plot's book); the files go once the rows are gone. */
-export async function deleteObservation(db: Knex, opts: { observationId: number; userId: number; uploadDir: string; now?: Date }): Promise<void> {
+export async function deleteObservation(db: Knex, opts: { observationId: number; userId: number; storage: Storage; now?: Date }): Promise<void> {
   const names = await db.transaction(async (trx) => {
     const row = await trx('observations').where({ id: opts.observationId }).forUpdate().first('id', 'plot_id', 'is_soil_borne');
     if (!row) throw notFound('The observation');
@@ -238,6 +232,5 @@ export async function deleteObservation(db: Knex, opts: { observationId: number;
     return photos.flatMap((p) => [p.file_name, p.thumb_name]);
   });
   // After the commit: a crash here leaves an unreferenced file, never a row pointing at nothing.
-  const folder = photoFolder(opts.uploadDir);
-  for (const name of names) if (STORED_NAME.test(name)) await fs.rm(path.join(folder, name), { force: true });
+  for (const name of names) if (STORED_NAME.test(name)) await opts.storage.delete(keyOf(name));
 }

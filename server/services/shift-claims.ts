@@ -1,6 +1,4 @@
 import crypto from 'node:crypto';
-import fs from 'node:fs/promises';
-import path from 'node:path';
 import type { Knex } from 'knex';
 import { localToday } from '@shared/dates';
 import type { Shift, ShiftDoneBody, ShiftLinkPreview } from '@shared/schemas/shifts';
@@ -9,6 +7,7 @@ import { weekStartOf } from '@shared/tasks/generate';
 import type { Db } from '../db/knex';
 import { AppError, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
+import { storageKey, type Storage } from '../storage';
 import {
   placeReleasedMail,
   shiftCalledOffMail,
@@ -39,7 +38,8 @@ interface Ctx {
   db: Knex;
   mailer: Mailer;
   publicUrl: string;
-  uploadDir?: string;
+  /** Where done photos go; without one, a photo sent with a done place is not kept. */
+  storage?: Storage;
   now?: Date;
 }
 
@@ -193,18 +193,16 @@ export async function releaseShift(ctx: Ctx, opts: { shiftId: number; viewer: Vi
 }
 
 /** Checks and re-encodes a done photo (as the plot book does), and keeps it under a random name. */
-async function storePhoto(uploadDir: string, bytes: Uint8Array): Promise<string> {
+async function storePhoto(storage: Storage, bytes: Uint8Array): Promise<string> {
   await inspectImage(bytes, photoLimits);
   const stored = await reencodeImage(bytes, { limits: photoLimits, maxSidePx: STORED_PHOTO_SIDE_PX, format: 'webp', quality: 80 });
-  const folder = shiftPhotoFolder(uploadDir);
-  await fs.mkdir(path.dirname(folder), { recursive: true });
-  await fs.mkdir(folder, { recursive: true, mode: 0o700 });
   const name = `${crypto.randomBytes(16).toString('hex')}.webp`;
-  await fs.writeFile(path.join(folder, name), stored.bytes, { flag: 'wx', mode: 0o600 });
+  await storage.put(shiftPhotoKey(name), stored.bytes, 'image/webp');
   return name;
 }
 
-export const shiftPhotoFolder = (uploadDir: string) => path.join(path.resolve(uploadDir), 'shift-photos');
+/** A done photo's storage key (`shift-photos/<name>`). */
+export const shiftPhotoKey = (name: string) => storageKey('shift-photos', name);
 
 /**
  * Marks a place done: from the start of the shift's day until DONE_GRACE_DAYS after it ends (a
@@ -228,7 +226,7 @@ async function markDone(trx: Knex.Transaction, ctx: Ctx, shiftId: number, userId
 }
 
 export async function doneShift(ctx: Ctx, opts: { shiftId: number; viewer: Viewer; body: ShiftDoneBody; photo?: Uint8Array }): Promise<Shift> {
-  const photo = opts.photo && ctx.uploadDir ? await storePhoto(ctx.uploadDir, opts.photo) : null;
+  const photo = opts.photo && ctx.storage ? await storePhoto(ctx.storage, opts.photo) : null;
   await ctx.db.transaction((trx) => markDone(trx, ctx, opts.shiftId, opts.viewer.userId, opts.body, photo));
   return viewOf(ctx.db, opts.shiftId, opts.viewer, ctx.now);
 }
@@ -324,7 +322,7 @@ export async function doneByLink(ctx: Ctx, opts: { token: string; body: ShiftDon
   const now = ctx.now ?? new Date();
   // The link is checked before a photo is decoded, so a stranger cannot make the server do that work.
   refuseLink(await linkByToken(ctx.db, opts.token), 'done', now);
-  const photo = opts.photo && ctx.uploadDir ? await storePhoto(ctx.uploadDir, opts.photo) : null;
+  const photo = opts.photo && ctx.storage ? await storePhoto(ctx.storage, opts.photo) : null;
   await ctx.db.transaction(async (trx) => {
     const link = await linkByToken(trx, opts.token, true);
     refuseLink(link, 'done', now);
@@ -511,9 +509,9 @@ export async function markMissedShifts(db: Knex, opts: { now?: Date } = {}): Pro
 }
 
 /** A done photo, for the coordinators and the person who sent it. */
-export async function shiftPhoto(db: Db, opts: { shiftId: number; claimId: number; viewer: Viewer; uploadDir: string }) {
+export async function shiftPhoto(db: Db, opts: { shiftId: number; claimId: number; viewer: Viewer }): Promise<{ key: string; mime: string }> {
   const claim = await db('shift_claims').where({ id: opts.claimId, shift_id: opts.shiftId }).first('user_id', 'photo_path');
   if (!claim?.photo_path || !/^[0-9a-f]{32}\.webp$/.test(claim.photo_path)) throw notFound('The photo');
   if (claim.user_id !== opts.viewer.userId && !opts.viewer.roles.includes('coordinator')) throw notFound('The photo');
-  return { folder: shiftPhotoFolder(opts.uploadDir), name: claim.photo_path as string, mime: 'image/webp' };
+  return { key: shiftPhotoKey(claim.photo_path as string), mime: 'image/webp' };
 }

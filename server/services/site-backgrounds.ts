@@ -1,10 +1,9 @@
 import crypto from 'node:crypto';
-import fs from 'node:fs/promises';
-import path from 'node:path';
 import type { Knex } from 'knex';
 import type { Site } from '@shared/schemas/sites';
 import { notFound } from '../errors';
 import type { Db } from '../db/knex';
+import { storageKey, type Storage } from '../storage';
 import {
   type EncodedImage,
   type ImageLimits,
@@ -80,30 +79,21 @@ export async function prepareBackground(
   return { ...stored, metresPerPixel: widthMetres === undefined ? null : widthMetres / stored.width };
 }
 
-const folderOf = (uploadDir: string) => path.join(path.resolve(uploadDir), FOLDER);
-
-async function removeQuietly(file: string) {
-  await fs.rm(file, { force: true });
-}
+const keyOf = (name: string) => storageKey(FOLDER, name);
 
 /** Deletes a stored background file by its stored name (names that are not ours are left alone). */
-export async function removeBackgroundFile(uploadDir: string, name: string): Promise<void> {
-  if (STORED_NAME.test(name)) await removeQuietly(path.join(folderOf(uploadDir), name));
+export async function removeBackgroundFile(storage: Storage, name: string): Promise<void> {
+  if (STORED_NAME.test(name)) await storage.delete(keyOf(name));
 }
 
 /** Stores a new map background for a site, replacing (and deleting) the previous one; returns the site. */
 export async function setSiteBackground(
   db: Knex,
-  opts: { siteId: number; uploadDir: string; bytes: Uint8Array; widthMetres?: number },
+  opts: { siteId: number; storage: Storage; bytes: Uint8Array; widthMetres?: number },
 ): Promise<Site> {
   const image = await prepareBackground(opts.bytes, opts.widthMetres);
-  const folder = folderOf(opts.uploadDir);
-  // Only the innermost folder is private; parents such as .data stay as the system makes them.
-  await fs.mkdir(path.dirname(folder), { recursive: true });
-  await fs.mkdir(folder, { recursive: true, mode: 0o700 });
   const name = `${crypto.randomBytes(16).toString('hex')}.${extensionFor[image.mime]}`;
-  const file = path.join(folder, name);
-  await fs.writeFile(file, image.bytes, { flag: 'wx', mode: 0o600 });
+  await opts.storage.put(keyOf(name), image.bytes, image.mime);
   let previous: string | null;
   try {
     previous = await db.transaction(async (trx) => {
@@ -123,29 +113,26 @@ export async function setSiteBackground(
       return site.background_file as string | null;
     });
   } catch (err) {
-    await removeQuietly(file);
+    await opts.storage.delete(keyOf(name));
     throw err;
   }
   // Only after the new name is committed can the old file go; a crash here leaves an orphan, never a broken map.
-  if (previous && STORED_NAME.test(previous)) await removeQuietly(path.join(folder, previous));
+  if (previous) await removeBackgroundFile(opts.storage, previous);
   return getSite(db, opts.siteId);
 }
 
-/** Where a site's background image lives on disk and its type; 404 when the site has none. */
-export async function findSiteBackground(
-  db: Db,
-  opts: { siteId: number; uploadDir: string },
-): Promise<{ folder: string; name: string; mime: string }> {
+/** Where a site's background image is stored and its type; 404 when the site has none. */
+export async function findSiteBackground(db: Db, opts: { siteId: number }): Promise<{ key: string; mime: string }> {
   const row = await db('sites').where({ id: opts.siteId }).first('background_file', 'background_mime');
   if (!row) throw notFound('The site');
   if (!row.background_file || !row.background_mime || !STORED_NAME.test(row.background_file)) {
     throw notFound('The background image');
   }
-  return { folder: folderOf(opts.uploadDir), name: row.background_file, mime: row.background_mime };
+  return { key: keyOf(row.background_file), mime: row.background_mime };
 }
 
 /** Takes the background image off a site and deletes its file; 404 when there is none. */
-export async function deleteSiteBackground(db: Knex, opts: { siteId: number; uploadDir: string }): Promise<void> {
+export async function deleteSiteBackground(db: Knex, opts: { siteId: number; storage: Storage }): Promise<void> {
   const previous = await db.transaction(async (trx) => {
     const site = await trx('sites').where({ id: opts.siteId }).forUpdate().first('version', 'background_file');
     if (!site) throw notFound('The site');
@@ -161,5 +148,5 @@ export async function deleteSiteBackground(db: Knex, opts: { siteId: number; upl
     });
     return site.background_file as string;
   });
-  if (STORED_NAME.test(previous)) await removeQuietly(path.join(folderOf(opts.uploadDir), previous));
+  await removeBackgroundFile(opts.storage, previous);
 }

@@ -3,6 +3,7 @@ import { recheckSite } from './findings';
 import type { Site, SiteCreateBody, SiteUpdateBody } from '@shared/schemas/sites';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
+import type { Storage } from '../storage';
 import { siteColumns, toSite, type SiteRow } from '../db/mappers';
 import { removeBackgroundFile } from './site-backgrounds';
 import type { ClubLookup } from './memberships';
@@ -109,7 +110,7 @@ async function siteHasRecords(trx: Knex.Transaction, siteId: number): Promise<bo
  * while any of its plots has allocations, offers, renewals, fees or payments on record, or the site has
  * weather days: those sites are archived instead, so the records keep pointing somewhere.
  */
-export async function deleteSite(db: Knex, opts: { siteId: number; version: number; uploadDir: string }): Promise<void> {
+export async function deleteSite(db: Knex, opts: { siteId: number; version: number; storage: Storage }): Promise<void> {
   const backgroundFile = await db.transaction(async (trx) => {
     const site = await lockSiteAt(trx, opts.siteId, opts.version);
     if (await siteHasRecords(trx, opts.siteId)) {
@@ -122,7 +123,7 @@ export async function deleteSite(db: Knex, opts: { siteId: number; version: numb
     return site.background_file;
   });
   // Only after the delete is committed does the file go; a crash in between leaves an orphan file, never a broken site.
-  if (backgroundFile) await removeBackgroundFile(opts.uploadDir, backgroundFile);
+  if (backgroundFile) await removeBackgroundFile(opts.storage, backgroundFile);
 }
 
 /**

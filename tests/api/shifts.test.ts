@@ -1,4 +1,7 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import ical from 'node-ical';
+import sharp from 'sharp';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { addCalendarDays, localToday } from '@shared/dates';
 import { buildClub, buildMember } from '../factories';
@@ -316,6 +319,34 @@ describe('hours and calendar feeds', () => {
     const csv = await s.coordinator.get(`/api/clubs/${s.club.id}/hours.csv`);
     expect(csv.text.replace(/^\uFEFF/, '').split('\r\n')[0]).toBe('Name,Season,Shifts done,Hours,Hours asked,Hours still to do');
     expect(csv.text).toContain(`${s.volunteer.person.name},${s.today.slice(0, 4)},1,1.5,6,4.5`);
+  });
+
+  it('keeps a done photo in the upload store under shift-photos/ and shows it to its sender and the coordinators only', async () => {
+    const s = await club();
+    const shift = await makeShift(s);
+    await s.volunteer.post(`/api/shifts/${shift.id}/claim`).expect(200);
+    await t.db('shifts').where({ id: shift.id }).update({ on_date: s.today });
+    const photo = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#4a7a2c' } }).jpeg().toBuffer();
+    const done = await s.volunteer.agent
+      .post(`/api/shifts/${shift.id}/done`)
+      .set('X-CSRF-Token', s.volunteer.csrf)
+      .field('note', 'Beds watered')
+      .attach('photo', photo, 'beds.jpg');
+    expect(done.status).toBe(200);
+    const claim = await t.db('shift_claims').where({ shift_id: shift.id }).first('id', 'photo_path');
+    expect(claim.photo_path).toMatch(/^[0-9a-f]{32}\.webp$/);
+    // The local store keeps the layout it always had: <UPLOAD_DIR>/shift-photos/<name>.
+    const onDisk = fs.readFileSync(path.join(t.config.uploadDir, 'shift-photos', claim.photo_path));
+    const url = `/api/shifts/${shift.id}/claims/${claim.id}/photo`;
+    for (const viewer of [s.volunteer, s.coordinator]) {
+      const res = await viewer.get(url).buffer(true);
+      expect(res.status).toBe(200);
+      expect(res.headers['content-type']).toBe('image/webp');
+      expect(Buffer.compare(res.body as Buffer, onDisk)).toBe(0);
+    }
+    const other = await signedInMember(t, s.club.id, ['volunteer']);
+    expect((await other.get(url)).status).toBe(404);
+    expect((await s.outsider.get(url)).status).toBe(404);
   });
 
   it('serves a personal feed of the shifts a person holds at a secret address, and a reset address stops the old one', async () => {
