@@ -444,6 +444,29 @@ describe('direct references to other people’s records', () => {
     expect(await t.db('plantings').where({ id: f.planting2 }).first()).toEqual(planting);
   });
 
+  it('when the club shares plot books, holder 1 reads holder 2’s book without a name in it, and still changes nothing', async () => {
+    const h = f.agents.holder;
+    await t.db('clubs').where({ id: f.clubId }).update({ shares_plot_books: true });
+    try {
+      const book = await h.get(`/api/plots/${f.plot2}/book`).expect(200);
+      expect(book.body.canWrite).toBe(false);
+      expect(JSON.stringify(book.body)).toContain('Fairleigh Secret');
+      expect(leaked(book, secretsFor('holder', f))).toEqual([]);
+      expect((await h.get(`/api/observation-photos/${f.photo2}`)).status).toBe(200);
+      const planting = await t.db('plantings').where({ id: f.planting2 }).first('version');
+      await refusedWithoutWrites([
+        ['add a planting', () => h.post(`/api/plots/${f.plot2}/plantings`, radishBody(f.radishId)), 403],
+        ['change the planting', () => h.patch(`/api/plantings/${f.planting2}`, { version: planting.version, notes: 'Mine now' }), 403],
+        ['delete the planting', () => h.delete(`/api/plantings/${f.planting2}`), 403],
+        ['add a harvest', () => h.post(`/api/plantings/${f.planting2}/harvests`, { harvestedOn: `${YEAR}-06-01`, count: 9 }), 403],
+        ['delete the harvest', () => h.delete(`/api/harvests/${f.harvest2}`), 403],
+        ['delete the observation', () => h.delete(`/api/observations/${f.observation2}`), 403],
+      ]);
+    } finally {
+      await t.db('clubs').where({ id: f.clubId }).update({ shares_plot_books: false });
+    }
+  });
+
   it('a volunteer can neither release nor mark done another volunteer’s place, nor open its photo', async () => {
     const v2 = f.volunteer2;
     const claim = await t.db('shift_claims').where({ id: f.claimId }).first();
