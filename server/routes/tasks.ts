@@ -97,14 +97,7 @@ export function tasksRouter({ db }: Deps): Router {
   });
 
   router.delete('/tasks/:taskId', requireUser, async (req, res) => {
-    const taskId = idParam(req, 'taskId');
-    const row = await db('tasks as t')
-      .join('memberships as m', function () {
-        this.on('m.club_id', 't.club_id').andOnVal('m.user_id', req.session.userId!).andOnVal('m.role', 'coordinator');
-      })
-      .where('t.id', taskId)
-      .first('t.club_id');
-    await deleteCoordinatorTask(db, { taskId, clubId: row?.club_id ?? 0 });
+    await deleteCoordinatorTask(db, { taskId: idParam(req, 'taskId'), userId: req.session.userId! });
     res.status(204).end();
   });
 

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { TaskRun } from '@shared/schemas/tasks';
 import type { Db } from '../db/knex';
-import { notFound } from '../errors';
+import { AppError, notFound } from '../errors';
 import { generateSiteTasks } from './tasks';
 
 // Runs of the task generator over a whole site: queued by a coordinator or by the nightly schedule,
@@ -43,15 +43,12 @@ export async function queueTaskRun(db: Knex, opts: { clubId: number; siteId: num
   });
 }
 
-/** A run, to a coordinator of its club (anyone else: 404). */
+/** A run, to a coordinator of its club: another member of the club 403, anyone else (or no such run) 404. */
 export async function taskRunFor(db: Db, opts: { runId: number; userId: number }): Promise<TaskRun> {
-  const row: RunRow | undefined = await db('task_runs as r')
-    .join('memberships as m', function () {
-      this.on('m.club_id', 'r.club_id').andOnVal('m.user_id', opts.userId).andOnVal('m.role', 'coordinator');
-    })
-    .where('r.id', opts.runId)
-    .first('r.*');
-  if (!row) throw notFound('The run');
+  const row: RunRow | undefined = await db('task_runs').where({ id: opts.runId }).first();
+  const roles: string[] = row ? await db('memberships').where({ club_id: row.club_id, user_id: opts.userId }).pluck('role') : [];
+  if (!row || roles.length === 0) throw notFound('The run');
+  if (!roles.includes('coordinator')) throw new AppError('forbidden', 'Only the club’s coordinators can follow a task run.');
   return toTaskRun(row);
 }
 

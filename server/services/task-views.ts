@@ -196,10 +196,15 @@ export async function createCoordinatorTasks(db: Knex, opts: { clubId: number; s
   });
 }
 
-/** Deletes a task a coordinator added (generated tasks follow their planting and cannot be deleted by hand). */
-export async function deleteCoordinatorTask(db: Knex, opts: { taskId: number; clubId: number }): Promise<void> {
-  const row = await db('tasks').where({ id: opts.taskId, club_id: opts.clubId }).first('id', 'origin');
-  if (!row) throw notFound('The task');
+/**
+ * Deletes a task a coordinator added, for a coordinator of its club (generated tasks follow their
+ * planting and cannot be deleted by hand). Outside the club, or no such task: 404; another member: 403.
+ */
+export async function deleteCoordinatorTask(db: Knex, opts: { taskId: number; userId: number }): Promise<void> {
+  const row = await db('tasks').where({ id: opts.taskId }).first('id', 'origin', 'club_id');
+  const roles: string[] = row ? await db('memberships').where({ club_id: row.club_id, user_id: opts.userId }).pluck('role') : [];
+  if (!row || roles.length === 0) throw notFound('The task');
+  if (!roles.includes('coordinator')) throw new AppError('forbidden', 'Only the club’s coordinators can delete a task.');
   if (row.origin !== 'coordinator') throw new AppError('conflict', 'Tasks worked out from a planting follow the planting; mark it not needed instead.');
   await db('tasks').where({ id: row.id }).delete();
 }

@@ -364,3 +364,37 @@ describe('drafts, what fits and affected plots', () => {
     expect([...affectedPlots(context(plots, []), [2])].sort()).toEqual([1, 2, 3]);
   });
 });
+
+describe('a club’s own crop with only the values its form requires', () => {
+  // CropCreateBodySchema requires names, family, kind, sowing and days to maturity; every other value may be left out.
+  const clubBean = {
+    slug: 'club-bean',
+    commonName: 'Club bean',
+    botanicalName: { value: 'Vicia faba', source: 'from-memory' },
+    family: { value: 'Fabaceae', source: 'from-memory' },
+    kind: 'legume',
+    sowing: { value: 'direct', source: 'from-memory' },
+    daysToMaturity: { value: { min: 80, max: 100, from: 'sowing' }, source: 'from-memory' },
+    watchFor: [],
+    guidance: {},
+  } as unknown as (typeof crops)[number];
+  const clubId = crops.length + 1;
+
+  it('is tried by what fits and checked as a draft beside a related crop, leaving out the rules its missing values need', () => {
+    const sown = planting(1, 'radish', 2026, '2026-04-01');
+    // A sunflower in the plot to the south would shade a sun-loving crop; the club bean's sun need is not known.
+    const ctx = context([plot(1, 0, 0, { soilPh: 4.5 }), plot(2, 0, 5.9)], [sown, planting(2, 'sunflower', 2026, '2026-04-01')], {
+      crops: new Map([...crops.map((c) => [id(c.slug), { id: id(c.slug), data: c }] as const), [clubId, { id: clubId, data: clubBean }]]),
+      // A club relation between the club crop and radish in the same plot: companions need both plantings' dates.
+      relations: [...relations, { cropA: clubId, cropB: id('radish'), effect: 'beneficial', distanceM: null, severity: null, reason: 'Club pair', evidence: 'common_practice', source: 'common-practice' }],
+      site: { id: 1, latitude: 51.5, pathWidthM: 0.9, lastSpringFrost: '04-25', firstAutumnFrost: '10-15', soilTempsC: [2, 3, 5, 8, 12, 15, 17, 17, 14, 10, 6, 3] },
+    });
+    const ranked = whatFits(ctx, { plotId: 1, seasonYear: 2026, part: null, date: '2026-04-10' });
+    expect(ranked.map((r) => r.cropId)).toContain(clubId);
+    const draft = checkDraft(ctx, { ...planting(1, 'radish', 2026, '2026-04-10'), cropId: clubId, id: 0 });
+    // Nothing is claimed without the values: pH, shade, frost and soil temperature have none, and the
+    // companion rule needs the planting's dates, which plantingDates gives only with germination and emergence values.
+    expect(rules(draft)).toEqual([]);
+    expect(ranked.find((r) => r.cropId === clubId)!.verdict).toBe('fine');
+  });
+});

@@ -77,12 +77,25 @@ function cropOf(pr: Prepared, planting: CheckPlanting): Crop | null {
 }
 
 /** From sowing or planting out to the end of the harvest window, from the crop notes. */
+/**
+ * A planting's dates, or null when its crop lacks a value they need: a club's own crop may have only the
+ * values its form requires (CropCreateBodySchema), as the plot book allows (plantingDatesFor).
+ */
+function datesOf(input: Parameters<typeof plantingDates>[0]): ReturnType<typeof plantingDates> | null {
+  try {
+    return plantingDates(input);
+  } catch {
+    return null;
+  }
+}
+
 function windowOf(pr: Prepared, planting: CheckPlanting): { from: string; to: string } | null {
   const cached = pr.windows.get(planting);
   if (cached) return cached;
   const crop = cropOf(pr, planting);
   if (!crop) return null;
-  const dates = plantingDates({ crop, method: planting.method, date: planting.plantedOn });
+  const dates = datesOf({ crop, method: planting.method, date: planting.plantedOn });
+  if (!dates) return null;
   const w = { from: planting.plantedOn, to: dates.harvest.latest };
   pr.windows.set(planting, w);
   return w;
@@ -218,7 +231,8 @@ export function fullHeightFrom(pr: Prepared, p: CheckPlanting): string | null {
   if (!crop) return null;
   const st = crop.stages?.value;
   if (st) return plusDays(p.plantedOn, st.initial + st.development);
-  const w = plantingDates({ crop, method: p.method, date: p.plantedOn });
+  const w = datesOf({ crop, method: p.method, date: p.plantedOn });
+  if (!w) return null;
   return plusDays(p.plantedOn, Math.max(0, Math.round(daysBetween(p.plantedOn, w.harvest.earliest) / 2)));
 }
 
@@ -240,8 +254,11 @@ function inWindow(pr: Prepared, p: CheckPlanting, date: string): boolean {
   return Boolean(w && w.from <= date && date <= w.to);
 }
 
+// Below, `?.` on a crop's values: a club's own crop may lack any value its form does not require, and a
+// rule whose value is missing is not checked for it.
+
 function shadeFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: CheckPlot, box: Bounds): Draft[] {
-  if (crop.sun.value !== 'full_sun') return [];
+  if (crop.sun?.value !== 'full_sun' || !crop.matureHeightCm) return [];
   const out: Draft[] = [];
   const lat = pr.ctx.site.latitude;
   const ownHeightM = crop.matureHeightCm.value.max / 100;
@@ -249,7 +266,7 @@ function shadeFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: CheckPl
     const tallPlot = pr.plots.get(n.plotId)!;
     for (const t of pr.bySeasonPlot.get(spKey(s.seasonYear, n.plotId)) ?? []) {
       const tall = cropOf(pr, t);
-      if (!tall || tall.matureHeightCm.value.max < TALL_CROP_CM) continue;
+      if (!tall?.matureHeightCm || tall.matureHeightCm.value.max < TALL_CROP_CM) continue;
       const heightM = tall.matureHeightCm.value.max / 100;
       if (heightM <= ownHeightM) continue;
       const tBox = plantingFootprint(tallPlot, t.part);
@@ -299,7 +316,7 @@ function siteFitFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: Check
   const out: Draft[] = [];
   const site = pr.ctx.site;
   const ph = crop.soilPh;
-  if (plot.soilPh !== null && (plot.soilPh < ph.value.min || plot.soilPh > ph.value.max)) {
+  if (ph && plot.soilPh !== null && (plot.soilPh < ph.value.min || plot.soilPh > ph.value.max)) {
     out.push({
       key: 'soil_ph',
       severity: 'watch',
@@ -331,15 +348,15 @@ function siteFitFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: Check
       });
     }
   }
-  if (crop.frost.value === 'tender' && (site.lastSpringFrost || site.firstAutumnFrost)) {
-    const dates = plantingDates({
+  if (crop.frost?.value === 'tender' && (site.lastSpringFrost || site.firstAutumnFrost)) {
+    const dates = datesOf({
       crop,
       method: s.method,
       date: s.plantedOn,
       lastSpringFrost: site.lastSpringFrost ? `2000-${site.lastSpringFrost}` : undefined,
       firstAutumnFrost: site.firstAutumnFrost ? `2000-${site.firstAutumnFrost}` : undefined,
     });
-    for (const w of dates.warnings) {
+    for (const w of dates?.warnings ?? []) {
       if (w.kind === 'before_last_frost') {
         out.push({
           key: 'frost',
@@ -370,8 +387,8 @@ function siteFitFindings(pr: Prepared, s: CheckPlanting, crop: Crop, plot: Check
   if (s.method === 'sown' && site.soilTempsC && site.soilTempsC.length === 12) {
     const month = Number(s.plantedOn.slice(5, 7));
     const soil = site.soilTempsC[month - 1];
-    const min = crop.germination.value.minC;
-    if (typeof soil === 'number' && soil < min) {
+    const min = crop.germination?.value.minC;
+    if (typeof soil === 'number' && min !== undefined && soil < min) {
       out.push({
         key: 'soil_temperature',
         severity: 'watch',

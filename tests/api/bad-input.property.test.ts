@@ -1,5 +1,4 @@
 import fc from 'fast-check';
-import type { Express } from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { z } from 'zod';
@@ -9,54 +8,14 @@ import { buildApplication, buildClub, buildMember } from '../factories';
 import { signedInMember, type Agent } from '../helpers/api';
 import { setupTestApp, truncateAll } from '../helpers/app';
 import { rowCounts } from '../helpers/row-counts';
+import { apiRoutes } from '../helpers/routes';
 
 // Every JSON route, found by walking the app's own router, gets seeded random bodies, queries and path
 // values from a coordinator with a CSRF token: none may answer 5xx, every 4xx carries the error shape,
-// and a refused request writes nothing.
+// and a refused request writes nothing. The routes come from tests/helpers/routes.ts (`apiRoutes`).
 
 // The public form allows 5 applications an hour per address by default; this test sends more.
 const t = setupTestApp({ APPLY_RATE_LIMIT: '100000' });
-
-// ---------------------------------------------------------------------------------------------
-// Routes, from the router stack of the app under test.
-
-interface Route {
-  method: string;
-  path: string;
-}
-
-interface StackLayer {
-  route?: { path: string | string[]; methods: Record<string, boolean> };
-  handle?: { stack?: StackLayer[] };
-  rawPath?: unknown;
-}
-
-function walk(stack: StackLayer[], prefix: string, out: Route[]) {
-  for (const layer of stack) {
-    if (layer.route) {
-      const paths = Array.isArray(layer.route.path) ? layer.route.path : [layer.route.path];
-      for (const p of paths) {
-        for (const [method, on] of Object.entries(layer.route.methods)) {
-          if (on && method !== '_all') out.push({ method: method.toUpperCase(), path: (prefix + (p === '/' ? '' : p)) || '/' });
-        }
-      }
-    } else if (layer.handle?.stack && typeof layer.rawPath === 'string') {
-      walk(layer.handle.stack, prefix + (layer.rawPath === '/' ? '' : layer.rawPath), out);
-    }
-  }
-}
-
-function apiRoutes(app: Express): Route[] {
-  const out: Route[] = [];
-  walk((app as unknown as { router: { stack: StackLayer[] } }).router.stack, '', out);
-  const seen = new Set<string>();
-  return out.filter((r) => {
-    const key = `${r.method} ${r.path}`;
-    if (!r.path.startsWith('/api/') || r.method === 'HEAD' || seen.has(key)) return false;
-    seen.add(key);
-    return true;
-  });
-}
 
 // Routes that take no input and would succeed, ending the session or removing the fixture's site for
 // the requests after them. Named exactly, so a renamed route fails the check below instead of slipping out.
