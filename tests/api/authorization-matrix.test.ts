@@ -7,7 +7,6 @@ import { addCalendarDays, localToday } from '@shared/dates';
 import { createFeeForAllocation } from '../../server/services/fee-charges';
 import { resetFeed } from '../../server/services/calendar-feeds';
 import { mailIdle } from '../../server/services/outbox';
-import { shiftPhotoFolder } from '../../server/services/shift-claims';
 import { taskRunsIdle } from '../../server/services/task-runs';
 import { newToken } from '../../server/services/tokens';
 import { buildApplication, buildClub, buildCrop, buildMember } from '../factories';
@@ -200,8 +199,8 @@ beforeAll(async () => {
   const claim = await t.db('shift_claims').where({ shift_id: shift.id, user_id: volunteer.person.id }).first('id');
   // A stored done photo (as doneShift writes it) on the volunteer's place; the file is a real WebP.
   const photoName = `${'ab'.repeat(16)}.webp`;
-  fs.mkdirSync(shiftPhotoFolder(t.config.uploadDir), { recursive: true });
-  fs.writeFileSync(path.join(shiftPhotoFolder(t.config.uploadDir), photoName), await sharp({ create: { width: 20, height: 20, channels: 3, background: '#888' } }).webp().toBuffer());
+  fs.mkdirSync(path.join(t.config.uploadDir, 'shift-photos'), { recursive: true });
+  fs.writeFileSync(path.join(path.join(t.config.uploadDir, 'shift-photos'), photoName), await sharp({ create: { width: 20, height: 20, channels: 3, background: '#888' } }).webp().toBuffer());
   await t.db('shift_claims').where({ id: claim.id }).update({ photo_path: photoName });
   const feed = (await volunteer.post(`/api/clubs/${a.id}/feeds/personal`).expect(200)).body;
 
