@@ -1,4 +1,4 @@
-import { defineConfig } from 'vitest/config';
+import { configDefaults, defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import path from 'node:path';
@@ -36,6 +36,7 @@ export default defineConfig({
         test: {
           name: 'integration',
           include: ['tests/**/*.test.ts'],
+          exclude: [...configDefaults.exclude, 'tests/faults/**'],
           environment: 'node',
           globalSetup: ['tests/setup/global-setup.ts'],
           setupFiles: ['tests/setup/per-file.ts'],
@@ -43,6 +44,23 @@ export default defineConfig({
           execArgv: ['--import', 'tsx'],
           testTimeout: 30_000,
           hookTimeout: 120_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          // Real server processes (started, killed, restarted) on the throwaway cluster: after the
+          // other projects (groupOrder), never beside the integration files that truncate the database.
+          name: 'faults',
+          include: ['tests/faults/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/setup/global-setup.ts'],
+          setupFiles: ['tests/setup/per-file.ts'],
+          fileParallelism: false,
+          execArgv: ['--import', 'tsx'],
+          testTimeout: 120_000,
+          hookTimeout: 200_000,
+          sequence: { groupOrder: 1 },
         },
       },
     ],
