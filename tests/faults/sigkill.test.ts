@@ -7,7 +7,7 @@ import { regenerateTasks } from '../../server/services/tasks';
 import { newToken } from '../../server/services/tokens';
 import { buildClub, buildCrop, buildMember } from '../factories';
 import { truncateAll } from '../helpers/app';
-import { CookieClient, runningServerPids, startServerProcess, stopAllServerProcesses, type ServerProcess } from '../helpers/server-process';
+import { CookieClient, runningServerPids, type Answer, type ApiBody, startServerProcess, stopAllServerProcesses, type ServerProcess } from '../helpers/server-process';
 
 // One real server process takes a burst of place claims and planting saves and is killed with
 // SIGKILL in the middle (no graceful stop: open transactions die with their connections). After a
@@ -94,7 +94,7 @@ const planting = (i: number) => ({
   keepReason: 'A trial row, kept on purpose',
 });
 
-type Outcome = { kind: 'claim' | 'planting'; i: number; status: number | null; body: any; error?: string };
+type Outcome = { kind: 'claim' | 'planting'; i: number; status: number | null; body: ApiBody | null; error?: string };
 
 describe('SIGKILL in the middle of a burst of writes', () => {
   it('keeps every acknowledged claim and planting, writes none by halves, and overfills no shift', async () => {
@@ -106,7 +106,7 @@ describe('SIGKILL in the middle of a burst of writes', () => {
     let acks = 0;
     let killed: Promise<void> | null = null;
     const outcomes: Outcome[] = [];
-    const run = async (kind: Outcome['kind'], i: number, send: () => Promise<{ status: number; body: any }>) => {
+    const run = async (kind: Outcome['kind'], i: number, send: () => Promise<Answer>) => {
       try {
         const r = await send();
         outcomes.push({ kind, i, status: r.status, body: r.body });
@@ -142,23 +142,23 @@ describe('SIGKILL in the middle of a burst of writes', () => {
     expect(statuses.filter((c) => c !== null && c >= 500)).toEqual([]);
     for (const o of outcomes.filter((x) => x.status !== null && (x.status < 200 || x.status >= 300))) {
       // The only refusal a claim may meet here is a full shift.
-      expect(o.kind === 'claim' && o.status === 409 && /Already covered/.test(o.body?.error?.message), JSON.stringify(o)).toBe(true);
+      expect(o.kind === 'claim' && o.status === 409 && /Already covered/.test(o.body?.error?.message ?? ''), JSON.stringify(o)).toBe(true);
     }
 
     server = await startServerProcess({}, { port });
 
     // Every acknowledged planting is there, in this season's book, read through the restarted server with the session from before.
-    const ackedPlantingIds = ackedPlantings.map((o) => o.body.id as number);
+    const ackedPlantingIds = ackedPlantings.map((o) => o.body?.id as number);
     const book = await holder.get(server.url, `/api/plots/${s.plotId}/book`);
     expect(book.status).toBe(200);
-    const inBook = new Set(book.body.plantings.map((p: { id: number }) => p.id));
+    const inBook = new Set((book.body.plantings ?? []).map((p) => p.id));
     expect(ackedPlantingIds.filter((id) => !inBook.has(id))).toEqual([]);
 
     // Every acknowledged claim holds a place, through its own link.
     const claimRows: Array<{ id: number; shift_id: number; user_id: number; status: string }> = await db('shift_claims').whereIn('shift_id', s.shiftIds).select('id', 'shift_id', 'user_id', 'status');
     for (const o of ackedClaims) {
       const link = s.links[o.i];
-      expect(o.body.state).toBe('yours');
+      expect(o.body?.state).toBe('yours');
       expect(claimRows.filter((c) => c.shift_id === link.shiftId && c.user_id === link.userId && c.status === 'taken'), `claim ${o.i}`).toHaveLength(1);
     }
     // No shift over capacity.

@@ -131,6 +131,23 @@ export async function stopAllServerProcesses(): Promise<void> {
 /** The pids of processes still running that this file started (a test checks it is empty after stopping). */
 export const runningServerPids = () => [...running].map((c) => c.pid);
 
+/** The parts of JSON answers these tests read (left out when an answer has no such field). */
+export interface ApiBody {
+  id?: number;
+  csrfToken?: string;
+  user?: { id: number; email: string } | null;
+  state?: string;
+  season?: { id: number };
+  plantings?: Array<{ id: number }>;
+  error?: { code: string; message: string; fields?: Record<string, string> };
+}
+
+export interface Answer {
+  status: number;
+  body: ApiBody;
+  headers: Headers;
+}
+
 /**
  * A client that keeps cookies by name and sends them to whichever server it calls, as a browser
  * does for one site behind a load balancer (cookies are not scoped by port), with the CSRF token.
@@ -145,7 +162,7 @@ export class CookieClient {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
   }
 
-  async request(base: string, method: string, pathname: string, body?: unknown): Promise<{ status: number; body: any; headers: Headers }> {
+  async request(base: string, method: string, pathname: string, body?: unknown): Promise<Answer> {
     const headers: Record<string, string> = { Accept: 'application/json' };
     if (this.cookies.size) headers.Cookie = this.cookieHeader();
     if (method !== 'GET') headers['X-CSRF-Token'] = this.csrf;
@@ -161,27 +178,27 @@ export class CookieClient {
       else this.cookies.set(name, value);
     }
     const text = await res.text();
-    let parsed: unknown = text;
+    let parsed: ApiBody | null = null;
     try {
       parsed = text ? JSON.parse(text) : null;
     } catch {
-      // not JSON: keep the text
+      // not JSON (no test reads such a body): an empty one
     }
-    return { status: res.status, body: parsed, headers: res.headers };
+    return { status: res.status, body: parsed ?? {}, headers: res.headers };
   }
 
   /** GET /api/session on `base`: keeps the CSRF token and returns the session's user (null when signed out). */
   async session(base: string) {
     const r = await this.request(base, 'GET', '/api/session');
     if (r.status !== 200) throw new Error(`GET /api/session answered ${r.status}: ${JSON.stringify(r.body)}`);
-    this.csrf = r.body.csrfToken;
-    return r.body.user as { id: number; email: string } | null;
+    this.csrf = r.body.csrfToken ?? '';
+    return r.body.user ?? null;
   }
 
   async signIn(base: string, email: string, password: string) {
     if (!this.csrf) await this.session(base);
     const r = await this.request(base, 'POST', '/api/session', { email, password });
-    if (r.status === 200) this.csrf = r.body.csrfToken;
+    if (r.status === 200) this.csrf = r.body.csrfToken ?? '';
     return r;
   }
 
