@@ -21,7 +21,8 @@ export default defineConfig({
     proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` },
   },
   test: {
-    reporters: ['default', ['json', { outputFile: 'test-results/vitest.json' }]],
+    // `npm run test:faults` writes its own report (VITEST_JSON), so it never overwrites the full run's.
+    reporters: ['default', ['json', { outputFile: process.env.VITEST_JSON ?? 'test-results/vitest.json' }]],
     projects: [
       {
         resolve: { alias },

@@ -20,7 +20,7 @@ const CAPACITY = 4;
 const LINKS_PER_SHIFT = 10;
 const PLANTINGS = 40;
 /** The process is killed once this many writes were acknowledged (2xx received), while later ones are still being written. */
-const KILL_AFTER_ACKS = 12;
+const KILL_AFTER_ACKS = 6;
 const STAGGER_MS = 40;
 
 let server: ServerProcess;
