@@ -11,7 +11,7 @@ const keyOf = (text: string) => crypto.createHash('sha256').update(text).digest(
 
 /**
  * express-rate-limit's counts kept in PostgreSQL by rate-limiter-flexible (the table of migration
- * 20261203001000_rate_limits), so every server on one database counts the same hits. A window starts at a
+ * 20261204000500_rate_limits), so every server on one database counts the same hits. A window starts at a
  * client's first hit and lasts `windowMs`, as in express-rate-limit's own memory store; `name`
  * keeps each limiter's counts apart and must be the same on every server.
  */
