@@ -1,4 +1,4 @@
-import { defineConfig } from 'vitest/config';
+import { configDefaults, defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import path from 'node:path';
@@ -21,7 +21,8 @@ export default defineConfig({
     proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` },
   },
   test: {
-    reporters: ['default', ['json', { outputFile: 'test-results/vitest.json' }]],
+    // `npm run test:faults` writes its own report (VITEST_JSON), so it never overwrites the full run's.
+    reporters: ['default', ['json', { outputFile: process.env.VITEST_JSON ?? 'test-results/vitest.json' }]],
     projects: [
       {
         resolve: { alias },
@@ -36,6 +37,7 @@ export default defineConfig({
         test: {
           name: 'integration',
           include: ['tests/**/*.test.ts'],
+          exclude: [...configDefaults.exclude, 'tests/faults/**'],
           environment: 'node',
           globalSetup: ['tests/setup/global-setup.ts'],
           setupFiles: ['tests/setup/per-file.ts'],
@@ -43,6 +45,23 @@ export default defineConfig({
           execArgv: ['--import', 'tsx'],
           testTimeout: 30_000,
           hookTimeout: 120_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          // Real server processes (started, killed, restarted) on the throwaway cluster: after the
+          // other projects (groupOrder), never beside the integration files that truncate the database.
+          name: 'faults',
+          include: ['tests/faults/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/setup/global-setup.ts'],
+          setupFiles: ['tests/setup/per-file.ts'],
+          fileParallelism: false,
+          execArgv: ['--import', 'tsx'],
+          testTimeout: 120_000,
+          hookTimeout: 200_000,
+          sequence: { groupOrder: 1 },
         },
       },
     ],

@@ -32,7 +32,7 @@ export function applyRouter({ db, mailer, config }: Deps): Router {
     res.json(await applyInfo(db, clubSlug));
   });
 
-  router.post('/:clubSlug', publicFormRateLimit(config.applyRateLimit), async (req, res) => {
+  router.post('/:clubSlug', publicFormRateLimit(db, config.applyRateLimit), async (req, res) => {
     const { clubSlug } = parseInput(SlugParamSchema, req.params);
     const body = parseInput(ApplicationBodySchema, req.body);
     res.status(201).json(await submitApplication(db, mailer, { slug: clubSlug, body }));

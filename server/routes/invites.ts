@@ -59,7 +59,7 @@ export function inviteLinksRouter({ db, config }: Deps): Router {
     res.json(await previewInvite(db, token));
   });
 
-  router.post('/accept', authRateLimit(config.authRateLimit), async (req, res) => {
+  router.post('/accept', authRateLimit(db, 'invite-accept', config.authRateLimit), async (req, res) => {
     const input = parseInput(InviteAcceptBodySchema, req.body);
     const userId = await acceptInvite(db, { ...input, bcryptCost: config.bcryptCost });
     await signIn(req, userId);

@@ -9,7 +9,7 @@ import { acceptOffer, clubOfOffer, declineOffer, previewOffer, withdrawOffer } f
 /** Answering an offer from its e-mailed link (public), and withdrawing one (coordinator). Mounted at /api/offers. */
 export function offersRouter({ db, mailer, config }: Deps): Router {
   const router = Router();
-  const limit = authRateLimit(config.authRateLimit * 3);
+  const limit = authRateLimit(db, 'offer-links', config.authRateLimit * 3);
 
   router.get('/preview', limit, async (req, res) => {
     const { token } = parseInput(TokenBodySchema, req.query);

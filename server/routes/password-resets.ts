@@ -8,7 +8,7 @@ import { checkPasswordReset, completePasswordReset, requestPasswordReset } from 
 /** Asking for a reset link and using it. */
 export function passwordResetsRouter({ db, mailer, config }: Deps): Router {
   const router = Router();
-  const limit = authRateLimit(config.authRateLimit);
+  const limit = authRateLimit(db, 'password-resets', config.authRateLimit);
 
   router.post('/', limit, async (req, res) => {
     const { email } = parseInput(PasswordResetRequestBodySchema, req.body);

@@ -13,7 +13,7 @@ import { keepPlot, previewRenewal, releasePlot, type RenewalRef } from '../servi
  */
 export function renewalsRouter({ db, config }: Deps): Router {
   const router = Router();
-  const limit = authRateLimit(config.authRateLimit * 3);
+  const limit = authRateLimit(db, 'renewal-links', config.authRateLimit * 3);
   router.get('/preview', limit, async (req, res) => {
     const { token } = parseInput(TokenBodySchema, req.query);
     res.json(await previewRenewal(db, { token }));

@@ -81,7 +81,7 @@ export function shiftsRouter({ db, mailer, config, storage }: Deps): Router {
   const shiftMember = requireRoleVia(db, 'shiftId', clubOfShift, 'The shift');
   const shiftCoordinator = requireRoleVia(db, 'shiftId', clubOfShift, 'The shift', 'coordinator');
   const viewer = (req: Parameters<RequestHandler>[0]) => ({ userId: req.session.userId!, roles: req.clubRoles! });
-  const limit = authRateLimit(config.authRateLimit * 3);
+  const limit = authRateLimit(db, 'shift-links', config.authRateLimit * 3);
 
   router.get('/clubs/:clubId/shifts', member, async (req, res) => {
     const query = parseInput(ShiftQuerySchema, { ...req.query });
