@@ -9,6 +9,7 @@ import pg from 'pg';
 import { pino } from 'pino';
 import { pinoHttp } from 'pino-http';
 import type { Deps } from './deps';
+import { useMailSealSecret } from './mail/seal';
 import { requireCsrf } from './middleware/csrf';
 import { LOG_REDACT_PATHS, refreshSession } from './middleware/session';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
@@ -40,6 +41,11 @@ import { sessionRouter } from './routes/session';
 import { shiftsRouter } from './routes/shifts';
 import { weatherRouter } from './routes/weather';
 
+/** A request's path for the log: link tokens in the query and calendar feeds' secret addresses cut out. */
+export function logUrl(url: string): string {
+  return url.replace(/token=[^&#]*/gi, 'token=…').replace(/\/feeds\/[^/?#]*/gi, '/feeds/…');
+}
+
 export interface BuiltApp {
   app: express.Express;
   /** Closes what the app opened itself (the session store's pool). */
@@ -49,6 +55,8 @@ export interface BuiltApp {
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 export function createApp(deps: Deps): BuiltApp {
   const { config } = deps;
+  // The outbox seals mail bodies under a key derived from the session secret (server/mail/seal.ts).
+  useMailSealSecret(config.sessionSecret);
   const app = express();
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);
@@ -72,7 +80,7 @@ export function createApp(deps: Deps): BuiltApp {
       },
       // Keep cookies, tokens and headers out of the logs: a request is its id, method and path, a response its status.
       serializers: {
-        req: (req) => ({ id: req.id, method: req.method, url: String(req.url).replace(/token=[^&]+/g, 'token=…') }),
+        req: (req) => ({ id: req.id, method: req.method, url: logUrl(String(req.url)) }),
         res: (res) => ({ statusCode: res.statusCode }),
       },
     }),
