@@ -90,6 +90,9 @@ export function createApp(deps: Deps): BuiltApp {
       contentSecurityPolicy: {
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
+          // No inline <style> and no style="" in markup: stylesheets come from our own origin. React's
+          // style props go through the CSSOM, which CSP does not govern (CSP Level 3, §6.1.3 style-src).
+          'style-src': ["'self'"],
           'upgrade-insecure-requests': config.cookieSecure ? [] : null,
         },
       },
@@ -129,6 +132,12 @@ export function createApp(deps: Deps): BuiltApp {
   );
   app.use(refreshSession);
 
+  // API answers hold people's data and CSRF tokens: no cache keeps them unless a route says otherwise
+  // (photos, backgrounds and calendar feeds set their own private caching).
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   app.use('/api', requireCsrf(config.sessionSecret));
   app.use('/api/session', sessionRouter(deps));
   app.use('/api/password-resets', passwordResetsRouter(deps));
