@@ -1,4 +1,5 @@
 import { execFileSync } from 'node:child_process';
+import crypto from 'node:crypto';
 import { fileURLToPath } from 'node:url';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -66,6 +67,9 @@ async function issueEveryToken() {
     .returning('id');
   const issued: Issued[] = [];
   const since = Date.now();
+  // With an Idempotency-Key, so the stored answers (idempotency_keys) are scanned too.
+  const keyed = (url: string, body: object) =>
+    coordinator.agent.post(url).set('X-CSRF-Token', coordinator.csrf).set('Idempotency-Key', crypto.randomUUID()).send(body);
 
   // Renewal: last season's holder of C-1, paid up, gets a link when the next season opens.
   const holder = await buildMember(t.db, { clubId: club.id, roles: ['plot_holder'], user: { name: 'Holly Holder' } });
@@ -75,7 +79,7 @@ async function issueEveryToken() {
     .insert({ club_id: club.id, season_id: last.id, allocation_id: alloc.id, user_id: holder.id, plot_id: plots[0].id, description: 'x', plot_fee_minor: 4000, deposit_minor: 0, currency: 'GBP', due_on: '2026-04-01' })
     .returning('id');
   await t.db('payments').insert({ fee_id: fee.id, amount_minor: 4000, method: 'cash', paid_on: '2026-03-01' });
-  const opened = await coordinator.post(`/api/clubs/${club.id}/seasons`, { year: 2027, renewalDeadline: new Date(Date.now() + 14 * DAY).toISOString() });
+  const opened = await keyed(`/api/clubs/${club.id}/seasons`, { year: 2027, renewalDeadline: new Date(Date.now() + 14 * DAY).toISOString() });
   expect(opened.status, JSON.stringify(opened.body)).toBe(201);
   const seasonId = opened.body.season.id as number;
   issued.push({ kind: 'renewal', token: tokenOf(extractLink(await waitForMail(mailUrl(), { to: holder.email, after: since }), '/respond/renewal')) });
@@ -83,13 +87,13 @@ async function issueEveryToken() {
   // Two offers (one to accept through the route, one to let expire).
   for (const [i, who] of (['Olive Offered', 'Otto Offered'] as const).entries()) {
     const app = await buildApplication(t.db, { clubId: club.id, name: who, email: `offer${i}@example.org` });
-    const res = await coordinator.post(`/api/seasons/${seasonId}/offers`, { plotId: plots[i + 1].id, applicationId: app.id });
+    const res = await keyed(`/api/seasons/${seasonId}/offers`, { plotId: plots[i + 1].id, applicationId: app.id });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     issued.push({ kind: `offer ${i}`, token: tokenOf(extractLink(await waitForMail(mailUrl(), { to: app.email, after: since }), '/respond/offer')) });
   }
 
   // Invitation.
-  const invited = await coordinator.post(`/api/clubs/${club.id}/invites`, { email: 'ivy@example.org', name: 'Ivy Invited', roles: ['volunteer'] });
+  const invited = await keyed(`/api/clubs/${club.id}/invites`, { email: 'ivy@example.org', name: 'Ivy Invited', roles: ['volunteer'] });
   expect(invited.status, JSON.stringify(invited.body)).toBe(201);
   issued.push({ kind: 'invite', token: tokenOf(extractLink(await waitForMail(mailUrl(), { to: 'ivy@example.org', after: since }), '/invite')) });
 
@@ -108,7 +112,7 @@ async function issueEveryToken() {
     siteId: site.id, title: 'Morning weeding', kind: 'weed', date: day, startTime: '09:00', endTime: '10:00', capacity: 3, estHours: 1, instructions: 'Gloves by the shed.', taskIds: [],
   });
   expect(shift.status, JSON.stringify(shift.body)).toBe(201);
-  const asked = await coordinator.post(`/api/shifts/${shift.body.id}/ask-for-help`, { note: 'Two more pairs of hands, please.' });
+  const asked = await keyed(`/api/shifts/${shift.body.id}/ask-for-help`, { note: 'Two more pairs of hands, please.' });
   expect(asked.status, JSON.stringify(asked.body)).toBe(200);
   const help = await waitForMail(mailUrl(), { to: volunteer.person.email, after: since });
   const [claim] = shiftLinks(help);
@@ -182,6 +186,7 @@ describe('link tokens', () => {
     ]);
     for (const i of s.issued) expect(i.token, i.kind).toBeTruthy();
     expect(await findInDatabase(s.issued)).toEqual([]);
+    expect(Number((await t.db('idempotency_keys').count({ n: '*' }))[0].n)).toBe(5); // computed: 1 season + 2 offers + 1 invite + 1 call for help = 5
     // The scan does find what is there: each token's SHA-256 sits in a token_hash column.
     const hashes = await findInDatabase(s.issued.map((i) => ({ kind: i.kind, token: hashToken(i.token) })));
     expect(hashes.filter((h) => /\.token_hash holds/.test(h))).toHaveLength(s.issued.length);
