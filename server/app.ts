@@ -7,6 +7,7 @@ import pg from 'pg';
 import { pino } from 'pino';
 import type { AppDeps, Deps } from './deps';
 import { createStorage } from './storage';
+import { useMailSealSecret } from './mail/seal';
 import { requireCsrf } from './middleware/csrf';
 import { requestLog } from './middleware/request-log';
 import { createSessionStore } from './middleware/session-store';
@@ -50,6 +51,8 @@ export interface BuiltApp {
 export function createApp(input: AppDeps): BuiltApp {
   const { config } = input;
   const deps: Deps = { ...input, storage: input.storage ?? createStorage(config) };
+  // The outbox seals mail bodies under a key derived from the session secret (server/mail/seal.ts).
+  useMailSealSecret(config.sessionSecret);
   const app = express();
   app.disable('x-powered-by');
   if (config.trustProxy) app.set('trust proxy', 1);
@@ -68,6 +71,9 @@ export function createApp(input: AppDeps): BuiltApp {
       contentSecurityPolicy: {
         directives: {
           'img-src': ["'self'", 'data:', 'blob:'],
+          // No inline <style> and no style="" in markup: stylesheets come from our own origin. React's
+          // style props go through the CSSOM, which CSP does not govern (CSP Level 3, §6.1.3 style-src).
+          'style-src': ["'self'"],
           'upgrade-insecure-requests': config.cookieSecure ? [] : null,
         },
       },
@@ -102,6 +108,12 @@ export function createApp(input: AppDeps): BuiltApp {
   );
   app.use(refreshSession);
 
+  // API answers hold people's data and CSRF tokens: no cache keeps them unless a route says otherwise
+  // (photos, backgrounds and calendar feeds set their own private caching).
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   app.use('/api', requireCsrf(config.sessionSecret));
   app.use('/api/session', sessionRouter(deps));
   app.use('/api/password-resets', passwordResetsRouter(deps));

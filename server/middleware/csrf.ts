@@ -2,6 +2,7 @@ import crypto from 'node:crypto';
 import type { Request, RequestHandler, Response } from 'express';
 import type { Config } from '../config';
 import { AppError } from '../errors';
+import { sameSecret } from '../services/tokens';
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
 export const CSRF_HEADER = 'x-csrf-token';
@@ -10,10 +11,6 @@ export const CSRF_COOKIE = 'tillwell.csrf';
 
 const sign = (secret: string, value: string) =>
   crypto.createHmac('sha256', secret).update(`csrf-anonymous|${value}`).digest('base64url');
-
-function sameText(a: string, b: string): boolean {
-  return a.length > 0 && a.length === b.length && crypto.timingSafeEqual(Buffer.from(a), Buffer.from(b));
-}
 
 function cookieValue(req: Request, name: string): string {
   for (const part of (req.headers.cookie ?? '').split(';')) {
@@ -32,7 +29,7 @@ function cookieValue(req: Request, name: string): string {
 /** True when the token is "<random>.<HMAC of it with the session secret>". */
 function validSigned(secret: string, token: string): boolean {
   const [value, mac, extra] = token.split('.');
-  return !!value && !!mac && extra === undefined && sameText(mac, sign(secret, value));
+  return !!value && !!mac && extra === undefined && sameSecret(mac, sign(secret, value));
 }
 
 /**
@@ -62,8 +59,8 @@ export function requireCsrf(sessionSecret: string): RequestHandler {
     if (SAFE.has(req.method)) return next();
     const sent = req.get(CSRF_HEADER) ?? '';
     const ok = req.session?.userId
-      ? sameText(sent, req.session.csrfToken ?? '')
-      : sameText(sent, cookieValue(req, CSRF_COOKIE)) && validSigned(sessionSecret, sent);
+      ? sameSecret(sent, req.session.csrfToken ?? '')
+      : sameSecret(sent, cookieValue(req, CSRF_COOKIE)) && validSigned(sessionSecret, sent);
     if (!ok) return next(new AppError('csrf_failed', 'The page was out of date. Reload it and try again.'));
     next();
   };

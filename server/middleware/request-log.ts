@@ -2,12 +2,14 @@ import crypto from 'node:crypto';
 import type { Request, RequestHandler } from 'express';
 import type { Logger } from 'pino';
 
-/** Query-string tokens are masked in the logged address. */
-const maskTokens = (url: string) => url.replace(/token=[^&]+/g, 'token=…');
+/** A request's path for the log: link tokens in the query and calendar feeds' secret addresses cut out. */
+export function logUrl(url: string): string {
+  return url.replace(/token=[^&#]*/gi, 'token=…').replace(/\/feeds\/[^/?#]*/gi, '/feeds/…');
+}
 
 /** What a log line says about its request: the id, method and address with tokens masked. */
 export function requestFields(req: Request) {
-  return { id: req.id, method: req.method, url: maskTokens(String(req.originalUrl ?? req.url)) };
+  return { id: req.id, method: req.method, url: logUrl(String(req.originalUrl ?? req.url)) };
 }
 
 /**

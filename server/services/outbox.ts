@@ -2,7 +2,8 @@ import type { Knex } from 'knex';
 import type { MailKind, OutboxList, OutboxMessage, OutboxQuery, OutboxStatus } from '@shared/schemas/outbox';
 import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
-import type { Mailer, OutgoingMail } from '../mail/mailer';
+import type { MailAttachment, Mailer, OutgoingMail } from '../mail/mailer';
+import { isSealed, openText, sealText } from '../mail/seal';
 
 /**
  * The one rule for e-mail: a message is rendered and written to `mail_outbox` in the same
@@ -44,16 +45,24 @@ export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMa
       mailing_id: cause.mailingId ?? null,
       to_address: message.to,
       subject: message.subject,
-      html: message.html,
-      text: message.text,
+      // Bodies and attachments carry live links: sealed, so the table holds no working token.
+      html: sealText(message.html),
+      text: sealText(message.text),
       headers: JSON.stringify(headers),
-      attachments: message.attachments?.length ? JSON.stringify(message.attachments) : null,
+      attachments: message.attachments?.length ? JSON.stringify(sealText(JSON.stringify(message.attachments))) : null,
       from_name: cause.fromName ?? message.fromName ?? club?.name ?? null,
       // The server's clock, like the sender's `now`, so a kick right after the commit finds it due.
       next_attempt_at: new Date(),
     })
     .returning('id');
   return row.id;
+}
+
+/** A stored row's message as it is sent: sealed bodies opened (rows written before sealing are plain). */
+export function openedMail(row: { to_address: string; subject: string; text: string; html: string; headers: Record<string, string>; from_name: string | null; attachments: unknown }): OutgoingMail {
+  const open = (v: string) => (isSealed(v) ? openText(v) : v);
+  const attachments = isSealed(row.attachments) ? (JSON.parse(openText(row.attachments)) as MailAttachment[]) : (row.attachments as MailAttachment[] | null);
+  return { to: row.to_address, subject: row.subject, text: open(row.text), html: open(row.html), headers: row.headers, fromName: row.from_name, attachments };
 }
 
 function errorText(err: unknown): string {
@@ -82,7 +91,7 @@ export async function sendDueMail(db: Knex, mailer: Mailer, now: Date, limit = 5
       if (!row) return null;
       const attempts = row.attempts + 1;
       try {
-        await mailer.send({ to: row.to_address, subject: row.subject, text: row.text, html: row.html, headers: row.headers, fromName: row.from_name, attachments: row.attachments });
+        await mailer.send(openedMail(row));
       } catch (err) {
         const failed = attempts >= MAX_ATTEMPTS;
         await trx('mail_outbox')

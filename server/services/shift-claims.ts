@@ -205,14 +205,31 @@ async function storePhoto(storage: Storage, bytes: Uint8Array): Promise<string> 
 export const shiftPhotoKey = (name: string) => storageKey('shift-photos', name);
 
 /**
+ * Runs the done write with a photo already stored: a refused write takes the new file with it, and a
+ * photo it replaced is deleted after the commit, so no file is left that no claim points at.
+ */
+async function withDonePhoto(storage: Storage | undefined, photo: string | null, write: () => Promise<string | null>): Promise<void> {
+  const remove = (name: string) => storage!.delete(shiftPhotoKey(name));
+  let replaced: string | null;
+  try {
+    replaced = await write();
+  } catch (err) {
+    if (photo) await remove(photo);
+    throw err;
+  }
+  if (photo && replaced && replaced !== photo) await remove(replaced);
+}
+
+/**
  * Marks a place done: from the start of the shift's day until DONE_GRACE_DAYS after it ends (a
  * missed place can still be marked). The shift's tasks are done with it.
  */
-async function markDone(trx: Knex.Transaction, ctx: Ctx, shiftId: number, userId: number, body: ShiftDoneBody, photo: string | null): Promise<void> {
+/** Returns the photo the claim held before, when a new one replaces it. */
+async function markDone(trx: Knex.Transaction, ctx: Ctx, shiftId: number, userId: number, body: ShiftDoneBody, photo: string | null): Promise<string | null> {
   const now = ctx.now ?? new Date();
   const row = await lockedShift(trx, shiftId);
   if (row.called_off_at) throw new AppError('conflict', 'This shift was called off.');
-  const claim = await trx('shift_claims').where({ shift_id: shiftId, user_id: userId }).whereIn('status', ['taken', 'missed', 'done']).orderBy('id', 'desc').first('id', 'status');
+  const claim = await trx('shift_claims').where({ shift_id: shiftId, user_id: userId }).whereIn('status', ['taken', 'missed', 'done']).orderBy('id', 'desc').first('id', 'status', 'photo_path');
   if (!claim) throw new AppError('conflict', 'You hold no place on this shift.');
   if (localToday(row.time_zone, now) < row.on_date) throw new AppError('conflict', 'This shift has not started yet. Mark it done on the day.');
   if (now > doneUntil(row)) throw new AppError('conflict', `This shift ended more than ${DONE_GRACE_DAYS} days ago; ask the coordinator to record it.`);
@@ -223,11 +240,12 @@ async function markDone(trx: Knex.Transaction, ctx: Ctx, shiftId: number, userId
     .whereIn('t.id', trx('shift_tasks').where({ shift_id: shiftId }).select('task_id'))
     .where('t.status', 'open')
     .update({ status: 'done', done_on: row.on_date, done_by_user_id: userId, done_note: body.note, version: trx.raw('version + 1'), updated_at: trx.fn.now() });
+  return photo ? (claim.photo_path as string | null) : null;
 }
 
 export async function doneShift(ctx: Ctx, opts: { shiftId: number; viewer: Viewer; body: ShiftDoneBody; photo?: Uint8Array }): Promise<Shift> {
   const photo = opts.photo && ctx.storage ? await storePhoto(ctx.storage, opts.photo) : null;
-  await ctx.db.transaction((trx) => markDone(trx, ctx, opts.shiftId, opts.viewer.userId, opts.body, photo));
+  await withDonePhoto(ctx.storage, photo, () => ctx.db.transaction((trx) => markDone(trx, ctx, opts.shiftId, opts.viewer.userId, opts.body, photo)));
   return viewOf(ctx.db, opts.shiftId, opts.viewer, ctx.now);
 }
 
@@ -323,12 +341,15 @@ export async function doneByLink(ctx: Ctx, opts: { token: string; body: ShiftDon
   // The link is checked before a photo is decoded, so a stranger cannot make the server do that work.
   refuseLink(await linkByToken(ctx.db, opts.token), 'done', now);
   const photo = opts.photo && ctx.storage ? await storePhoto(ctx.storage, opts.photo) : null;
-  await ctx.db.transaction(async (trx) => {
-    const link = await linkByToken(trx, opts.token, true);
-    refuseLink(link, 'done', now);
-    await markDone(trx, { ...ctx, now }, link.shift_id, link.user_id, opts.body, photo);
-    await trx('shift_links').where({ id: link.id }).update({ used_at: now });
-  });
+  await withDonePhoto(ctx.storage, photo, () =>
+    ctx.db.transaction(async (trx) => {
+      const link = await linkByToken(trx, opts.token, true);
+      refuseLink(link, 'done', now);
+      const replaced = await markDone(trx, { ...ctx, now }, link.shift_id, link.user_id, opts.body, photo);
+      await trx('shift_links').where({ id: link.id }).update({ used_at: now });
+      return replaced;
+    }),
+  );
   return previewShiftLink(ctx.db, { token: opts.token, now });
 }
 

@@ -1,7 +1,8 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { buildClub, buildMember, buildUser } from '../factories';
-import { browserLikeAgent, setupTestApp, truncateAll } from '../helpers/app';
+import { browserLikeAgent, mailUrl, setupTestApp, truncateAll } from '../helpers/app';
+import { extractLink, waitForMail } from '../helpers/inbox';
 
 // Every line the request logger writes in this file lands here.
 const captured: string[] = [];
@@ -45,6 +46,70 @@ describe('the request log', () => {
       expect(Object.keys(l.res)).toEqual(['statusCode']);
       expect(Object.keys(l.req).sort()).toEqual(['id', 'method', 'url']);
     }
+  });
+});
+
+describe('the request log, on the token routes', () => {
+  it('holds no raw link token (query, body or path), password, cookie, session id or CSRF token', async () => {
+    const club = await buildClub(t.db);
+    const coordinator = await buildMember(t.db, { clubId: club.id, roles: ['coordinator', 'volunteer'] });
+    const c = await browserLikeAgent(t.app);
+    await c.signIn(coordinator.email, coordinator.password!);
+    const since = Date.now();
+    const tokenOf = (url: string) => new URL(url).searchParams.get('token')!;
+
+    const feed = (await c.post(`/api/clubs/${club.id}/feeds/personal`)).body.url as string;
+    // A token in a query (preview), then in a body (accept), with a password.
+    expect((await c.post(`/api/clubs/${club.id}/invites`, { email: 'wren@example.org', name: 'Wren', roles: ['volunteer'] })).status).toBe(201);
+    const invite = tokenOf(extractLink(await waitForMail(mailUrl(), { to: 'wren@example.org', after: since }), '/invite'));
+    const wren = await browserLikeAgent(t.app);
+    expect((await wren.get(`/api/invites/preview?token=${invite}`)).status).toBe(200);
+    const accepted = await wren.post('/api/invites/accept', { token: invite, name: 'Wren', password: 'wren-secret-password-1' });
+    expect(accepted.status).toBe(200);
+    const wrenSid = sidOf(accepted.headers['set-cookie']);
+
+    // A password reset: asked for, checked, used.
+    const anon = await browserLikeAgent(t.app);
+    await anon.post('/api/password-resets', { email: coordinator.email }).expect(202);
+    const reset = tokenOf(extractLink(await waitForMail(mailUrl(), { to: coordinator.email, subject: 'password', after: since }), '/reset-password'));
+    expect((await anon.get(`/api/password-resets/check?token=${reset}`)).status).toBe(200);
+    expect((await anon.post('/api/password-resets/complete', { token: reset, password: 'a-brand-new-password-2' })).status).toBe(204);
+
+    // A token in a path (a calendar feed's secret address), and tokens that match nothing.
+    const feedToken = /\/feeds\/([A-Za-z0-9_-]+)\.ics$/.exec(feed)![1];
+    expect((await request(t.app).get(`/api/feeds/${feedToken}.ics`)).status).toBe(200);
+    const unknown = 'Zz9'.repeat(14) + 'x';
+    expect((await request(t.app).get(`/api/shift-links/preview?token=${unknown}`)).status).toBe(404);
+    expect((await request(t.app).get(`/api/feeds/${unknown}.ics`)).status).toBe(404);
+    expect((await anon.post('/api/offers/accept', { token: unknown })).status).toBe(404);
+
+    // A CSRF'd POST with the session cookie, and one with a wrong token.
+    expect((await c.patch(`/api/clubs/${club.id}`, { name: 'Renamed Growers' })).status).toBe(403); // the reset signed everyone out
+    const again = await browserLikeAgent(t.app);
+    const signedIn = await again.signIn(coordinator.email, 'a-brand-new-password-2');
+    expect(signedIn.status).toBe(200);
+    const sid = sidOf(signedIn.headers['set-cookie'])!;
+    expect((await again.patch(`/api/clubs/${club.id}`, { name: 'Renamed Growers' })).status).toBe(200);
+    expect((await again.agent.patch(`/api/clubs/${club.id}`).set('X-CSRF-Token', 'not-the-token-but-a-guess').send({ name: 'x' })).status).toBe(403);
+
+    const log = captured.join('');
+    const sidParts = (v: string) => {
+      const value = decodeURIComponent(v);
+      return [v, value, value.replace(/^s:/, '').split('.')[0]];
+    };
+    const secrets = {
+      invite, reset, feedToken, unknown,
+      'coordinator password': coordinator.password!, 'new password': 'a-brand-new-password-2', 'wren password': 'wren-secret-password-1',
+      'csrf (signed in)': again.csrf, 'csrf (anonymous)': anon.csrf, 'csrf guess': 'not-the-token-but-a-guess',
+      ...Object.fromEntries(sidParts(sid).map((v, i) => [`sid ${i}`, v])),
+      ...Object.fromEntries(sidParts(wrenSid!).map((v, i) => [`wren sid ${i}`, v])),
+    };
+    for (const [name, secret] of Object.entries(secrets)) expect(log, `log holds the ${name}`).not.toContain(secret);
+    // The lines are there, with the paths cut where a secret was.
+    const urls = captured.map((l) => JSON.parse(l)).filter((l) => l.msg === 'request completed').map((l) => l.req.url as string);
+    expect(urls).toContain('/api/invites/preview?token=…');
+    expect(urls).toContain('/api/feeds/…');
+    expect(urls.filter((u) => u === '/api/feeds/…')).toHaveLength(2);
   });
 });
 

@@ -11,6 +11,7 @@ import { extractLink, listMail, waitForMail } from '../helpers/inbox';
 import { markMissedShifts, sendShiftDigests, sendShiftReminders } from '../../server/services/shift-claims';
 import { siteInstant } from '../../server/services/shifts';
 import { newToken } from '../../server/services/tokens';
+import { openText } from '../../server/mail/seal';
 
 const t = setupTestApp();
 afterAll(() => t.close());
@@ -256,7 +257,7 @@ describe('the jobs, with an injected time', () => {
     expect(await sendShiftReminders(t.db, t.mailer, { ...ctx, now: new Date(starts.getTime() - 3_600_000) })).toBe(0);
     const reminder = await t.db('mail_outbox').where({ kind: 'shift_reminder' }).first('to_address', 'text');
     expect(reminder.to_address).toBe(s.volunteer.person.email);
-    const doneToken = new URL(/I did this shift: (\S+)/.exec(reminder.text)![1]).searchParams.get('token')!;
+    const doneToken = new URL(/I did this shift: (\S+)/.exec(openText(reminder.text))![1]).searchParams.get('token')!;
 
     const ends = new Date(shift.endsAt);
     expect(await markMissedShifts(t.db, { now: new Date(ends.getTime() - 60_000) })).toBe(0);
@@ -291,8 +292,10 @@ describe('the jobs, with an injected time', () => {
     expect(await sendShiftDigests(t.db, t.mailer, { publicUrl: t.config.publicUrl, now: at(9) })).toBe(0);
     const rows = await t.db('mail_outbox').where({ kind: 'shift_digest' }).select('to_address', 'text');
     expect(rows.map((r: { to_address: string }) => r.to_address)).toEqual([s.volunteer.person.email]);
-    expect(rows[0].text).toMatch(/Evening watering/);
-    expect(rows[0].text).toMatch(/my-shifts/);
+    // Bodies are sealed in the outbox (server/mail/seal.ts); opened with the app's key.
+    const digest = openText(rows[0].text);
+    expect(digest).toMatch(/Evening watering/);
+    expect(digest).toMatch(/my-shifts/);
     expect(Number((await t.db('shift_links').where({ shift_id: shift.id, purpose: 'claim' }).count({ n: '*' }).first())!.n)).toBe(1);
   });
 });
