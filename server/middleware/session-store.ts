@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import connectPgSimple from 'connect-pg-simple';
 import session from 'express-session';
 import type pg from 'pg';
@@ -17,8 +18,11 @@ const GET_SQL = `
     from session s
    where s.sid = $1 and s.expire >= now()`;
 
+/** The session table keys sessions by a hash of their id, so a copy of the table signs no one in. */
+export const sessionKey = (sid: string) => crypto.createHash('sha256').update(sid).digest('base64url');
+
 /**
- * The PostgreSQL session store (connect-pg-simple) whose read also brings the signed-in person's
+ * The PostgreSQL session store (connect-pg-simple), keyed by sessionKey(sid), whose read also brings the signed-in person's
  * memberships, left on req.memberships (club id → roles) for requireClubRole and requireRoleVia.
  * Read fresh with every request, so a role taken away counts from the next request on.
  */
@@ -26,7 +30,7 @@ export function createSessionStore(opts: { pool: pg.Pool; errorLog: (...args: un
   const PgStore = connectPgSimple(session);
   class SessionStore extends PgStore {
     override get(sid: string, fn: (err: unknown, sess?: session.SessionData | null) => void) {
-      opts.pool.query(GET_SQL, [sid]).then(
+      opts.pool.query(GET_SQL, [sessionKey(sid)]).then(
         (r) => {
           const row = r.rows[0];
           if (!row) return fn(null, null);
@@ -35,6 +39,18 @@ export function createSessionStore(opts: { pool: pg.Pool; errorLog: (...args: un
         },
         (err) => fn(err),
       );
+    }
+
+    override set(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void) {
+      return super.set(sessionKey(sid), sess, fn);
+    }
+
+    override destroy(sid: string, fn?: (err?: unknown) => void) {
+      return super.destroy(sessionKey(sid), fn);
+    }
+
+    override touch(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void) {
+      return super.touch(sessionKey(sid), sess, fn);
     }
 
     override createSession(req: Express.Request, sess: session.SessionData) {

@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { buildClub, buildMember, buildUser } from '../factories';
@@ -114,6 +115,20 @@ describe('the request log, on the token routes', () => {
 });
 
 describe('sessions', () => {
+  it('keeps only a hash of the session id in the session table', async () => {
+    const club = await buildClub(t.db);
+    const person = await buildMember(t.db, { clubId: club.id, roles: ['coordinator'] });
+    const c = await browserLikeAgent(t.app);
+    const signedIn = await c.signIn(person.email, person.password!);
+    // express-session's cookie is "s:<id>.<signature>"; the id is the secret a copied table must not give away.
+    const id = decodeURIComponent(sidOf(signedIn.headers['set-cookie'])!).replace(/^s:/, '').split('.')[0];
+    const rows: Array<{ sid: string; sess: unknown }> = await t.db('session').select('sid', 'sess');
+    expect(rows).toHaveLength(1);
+    expect(JSON.stringify(rows)).not.toContain(id);
+    expect(rows[0].sid).toBe(crypto.createHash('sha256').update(id).digest('base64url'));
+    await c.get(`/api/clubs/${club.id}/members`).expect(200); // the hashed row still signs the cookie in
+  });
+
   it('stores nothing for 50 anonymous visits to GET /api/session', async () => {
     const before = await sessionRows();
     for (let i = 0; i < 50; i++) {
