@@ -86,6 +86,6 @@ export async function seasonSummary(db: Db, opts: { clubId: number; viewer: View
     shiftWeeks: await shiftWeeks(db, opts.clubId, zone, now),
     findingsSeasonYear: found.seasonYear,
     findings: findingKinds.map((kind) => ({ kind, count: byKind.get(kind)! })),
-    harvest: { seasonYear: harvest.season?.year ?? null, grams: harvest.totals.grams, count: harvest.totals.count, plantings: harvest.totals.plantings },
+    harvest: { seasonYear: harvest.season?.year ?? null, grams: harvest.totals.grams, count: harvest.totals.count, plantings: harvest.totals.plantings, units: harvest.units },
   };
 }

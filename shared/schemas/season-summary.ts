@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { FindingKindSchema } from './findings';
+import { UnitsSchema } from './sites';
 
 // The coordinator's season at a glance: counts only, each from the same rule as the page it links to.
 
@@ -37,6 +38,7 @@ export const SeasonSummarySchema = z.object({
   /** The growing season under way (the findings page's and harvest figures' season). */
   findingsSeasonYear: z.number().int().nullable(),
   findings: z.array(z.object({ kind: FindingKindSchema, count: z.number().int() })),
-  harvest: z.object({ seasonYear: z.number().int().nullable(), grams: z.number(), count: z.number().int(), plantings: z.number().int() }),
+  /** The harvest figures' club totals; `units` is the main site's, for showing the weight. */
+  harvest: z.object({ seasonYear: z.number().int().nullable(), grams: z.number(), count: z.number().int(), plantings: z.number().int(), units: UnitsSchema }),
 });
 export type SeasonSummary = z.infer<typeof SeasonSummarySchema>;
