@@ -84,7 +84,7 @@ describe('club home for each role', () => {
       expect(names.length).toBeGreaterThan(0);
       expect(names.filter((n) => n.trim() === '')).toEqual([]);
       // No card says it is not there yet.
-      expect(await w.page.getByText('Coming soon').count()).toBe(0);
+      expect(await w.page.locator('main').getByText(/coming soon/i).count()).toBe(0);
 
       expect(await scrollWidth(w.page), `scroll width at ${width}`).toBeLessThanOrEqual(width);
       expect({ width, violations: await axeViolations(w.page) }).toEqual({ width, violations: [] });
@@ -124,7 +124,7 @@ describe('club home for each role', () => {
       // The coordinator's pictures are neither shown nor fetched (nor their code).
       expect(await w.page.getByRole('list', { name: 'Season at a glance' }).count()).toBe(0);
       expect(asked.filter((u) => /season-summary|season-glance/.test(u))).toEqual([]);
-      expect(await w.page.getByText('Coming soon').count()).toBe(0);
+      expect(await w.page.locator('main').getByText(/coming soon/i).count()).toBe(0);
 
       expect(await scrollWidth(w.page), `scroll width at ${width}`).toBeLessThanOrEqual(width);
       expect({ width, violations: await axeViolations(w.page) }).toEqual({ width, violations: [] });
@@ -158,7 +158,7 @@ describe('club home for each role', () => {
       expect(hours).toContain(String(mine.hours.hours));
       if (mine.hours.required) expect(hours).toContain(`of ${mine.hours.required} hour`);
 
-      expect(await w.page.getByText('Coming soon').count()).toBe(0);
+      expect(await w.page.locator('main').getByText(/coming soon/i).count()).toBe(0);
       expect(await scrollWidth(w.page), `scroll width at ${width}`).toBeLessThanOrEqual(width);
       expect({ width, violations: await axeViolations(w.page) }).toEqual({ width, violations: [] });
       await w.shot(`club-home-volunteer-${width}`);

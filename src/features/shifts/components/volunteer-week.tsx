@@ -9,7 +9,7 @@ import { useShifts } from '../api/get-shifts';
 import { rangeLabel, shiftWhen, thisWeek } from '../lib/dates';
 
 const box = 'flex min-w-0 flex-col gap-2 rounded-xl border border-leaf-100 bg-white p-5 shadow-sm';
-const linkClass = 'mt-auto inline-flex min-h-11 items-center self-start font-semibold text-water underline-offset-2 hover:underline';
+const linkClass = 'mt-auto inline-flex min-h-11 items-center self-start font-semibold text-water underline underline-offset-2';
 
 /** A volunteer's week on the club home: open shifts this week, their next place, and their hours against the club's ask. */
 export function VolunteerWeek({ clubId }: { clubId: number }) {
@@ -41,7 +41,7 @@ export function VolunteerWeek({ clubId }: { clubId: number }) {
           <ul className="space-y-1 text-sm">
             {openShifts.slice(0, 3).map((s) => (
               <li key={s.id}>
-                <Link to={paths.shift(clubId, s.id)} className="text-water underline-offset-2 hover:underline">
+                <Link to={paths.shift(clubId, s.id)} className="text-water underline underline-offset-2">
                   {s.title}
                 </Link>{' '}
                 · {shiftWhen(s)} · {s.capacity - s.taken} of {plural(s.capacity, 'place')} open
@@ -57,7 +57,7 @@ export function VolunteerWeek({ clubId }: { clubId: number }) {
         <h3 className="text-lg font-semibold">My next shift</h3>
         {next ? (
           <p>
-            <Link to={paths.shift(clubId, next.id)} className="font-semibold text-water underline-offset-2 hover:underline">
+            <Link to={paths.shift(clubId, next.id)} className="font-semibold text-water underline underline-offset-2">
               {next.title}
             </Link>
             <br />
