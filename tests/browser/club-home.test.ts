@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { addCalendarDays, localToday } from '@shared/dates';
 import { formatMoney } from '@shared/fees/compute';
+import { formatWeight } from '@shared/plot-book';
 import { SeasonSummarySchema } from '@shared/schemas/season-summary';
 import { MyShiftsSchema, ShiftListSchema } from '@shared/schemas/shifts';
 import { PlotBookSchema } from '@shared/schemas/plot-book';
@@ -73,6 +74,10 @@ describe('club home for each role', () => {
       for (const week of summary.shiftWeeks) {
         const text = await w.page.getByTestId(`glance-week-${week.weekStart}`).innerText();
         expect(text, week.weekStart).toContain(week.places === 0 ? 'No shifts' : `${week.taken} of ${week.places} places`);
+      }
+
+      if (summary.harvest.grams > 0) {
+        expect(await w.page.getByTestId('glance-harvest').locator('strong').innerText()).toBe(formatWeight(summary.harvest.grams, summary.harvest.units));
       }
 
       for (const f of summary.findings) {
@@ -154,9 +159,9 @@ describe('club home for each role', () => {
       // README.md: Lucía holds a place on the first compost shift, so she has a next shift.
       expect(next).toBeDefined();
 
-      const hours = await w.page.getByTestId('volunteer-hours').innerText();
-      expect(hours).toContain(String(mine.hours.hours));
-      if (mine.hours.required) expect(hours).toContain(`of ${mine.hours.required} hour`);
+      const hoursCard = w.page.getByTestId('volunteer-hours');
+      expect(await hoursCard.locator('strong').first().innerText()).toBe(String(mine.hours.hours));
+      if (mine.hours.required) expect(await hoursCard.innerText()).toContain(`of ${mine.hours.required} hour`);
 
       expect(await w.page.locator('main').getByText(/coming soon/i).count()).toBe(0);
       expect(await scrollWidth(w.page), `scroll width at ${width}`).toBeLessThanOrEqual(width);
