@@ -23,6 +23,7 @@ import { cropsRouter } from './routes/crops';
 import { clubFeesRouter, feesRouter, myFeesRouter } from './routes/fees';
 import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
 import { harvestFiguresRouter } from './routes/harvest-figures';
+import { seasonSummaryRouter } from './routes/season-summary';
 import { membersRouter } from './routes/members';
 import { myPlotRouter } from './routes/my-plot';
 import { passwordResetsRouter } from './routes/password-resets';
@@ -137,6 +138,7 @@ export function createApp(input: AppDeps): BuiltApp {
   app.use('/api/clubs/:clubId/my-plot', myPlotRouter(deps));
   app.use('/api/clubs/:clubId/crops', cropsRouter(deps));
   app.use('/api/clubs/:clubId/harvest-figures', harvestFiguresRouter(deps));
+  app.use('/api/clubs/:clubId/season-summary', seasonSummaryRouter(deps));
   app.use('/api/clubs/:clubId/seasons', clubSeasonsRouter(deps));
   app.use('/api/seasons', seasonsRouter(deps));
   app.use('/api/offers', offersRouter(deps));

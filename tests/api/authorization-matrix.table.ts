@@ -121,6 +121,7 @@ export const AUTHORIZATION_TABLE: Record<string, TableEntry> = {
   'PUT /api/clubs/:clubId/crops/:cropId/overrides/:field': coordinator,
   'DELETE /api/clubs/:clubId/crops/:cropId/overrides/:field': coordinator,
   'GET /api/clubs/:clubId/harvest-figures': member,
+  'GET /api/clubs/:clubId/season-summary': coordinator,
   // Seasons, offers, renewals
   'GET /api/clubs/:clubId/seasons': member,
   'GET /api/clubs/:clubId/seasons/opening-preview': coordinator,

@@ -1,20 +1,49 @@
+import { lazy, Suspense } from 'react';
 import { ClubHome } from '@/features/clubs/components/club-home';
 import { MyFees } from '@/features/fees/components/my-fees';
 import { MyPlot } from '@/features/plots/components/my-plot';
+import { VolunteerWeek } from '@/features/shifts/components/volunteer-week';
 import { ThisWeekLine } from '@/features/tasks/components/this-week-line';
 import { useClubContext } from '../app-context';
+
+// Coordinators' pictures and a holder's findings line load in chunks of their own, so a first page
+// that does not need them stays light.
+const SeasonGlance = lazy(() => import('@/features/season-summary/components/season-glance').then((m) => ({ default: m.SeasonGlance })));
+const FindingsLine = lazy(() => import('@/features/plot-book/components/findings-line').then((m) => ({ default: m.FindingsLine })));
 
 /** `/clubs/:clubId`: the club's home page. */
 export function ClubHomeRoute() {
   const { user, club } = useClubContext();
+  const clubId = club.clubId;
   return (
     <>
-      <ClubHome club={club} personName={user.name}>
+      <ClubHome
+        club={club}
+        personName={user.name}
+        sections={{
+          coordinator: (
+            <Suspense fallback={null}>
+              <SeasonGlance clubId={clubId} />
+            </Suspense>
+          ),
+          volunteer: <VolunteerWeek clubId={clubId} />,
+        }}
+      >
         {club.roles.includes('plot_holder') && (
-          <MyPlot clubId={club.clubId} thisWeek={(plotId) => <ThisWeekLine clubId={club.clubId} plotId={plotId} />} />
+          <MyPlot
+            clubId={clubId}
+            thisWeek={(plotId) => (
+              <>
+                <ThisWeekLine clubId={clubId} plotId={plotId} />
+                <Suspense fallback={null}>
+                  <FindingsLine clubId={clubId} plotId={plotId} />
+                </Suspense>
+              </>
+            )}
+          />
         )}
       </ClubHome>
-      {club.roles.includes('plot_holder') && <MyFees clubId={club.clubId} />}
+      {club.roles.includes('plot_holder') && <MyFees clubId={clubId} />}
     </>
   );
 }

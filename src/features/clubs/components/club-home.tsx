@@ -3,11 +3,9 @@ import { Link } from 'react-router-dom';
 import {
   BookOpen,
   CalendarRange,
-  ChartNoAxesColumn,
   Clock,
   CloudRain,
   Coins,
-  Droplets,
   HandHelping,
   ListOrdered,
   Map as MapIcon,
@@ -15,7 +13,6 @@ import {
   type LucideIcon,
 } from 'lucide-react';
 import { roleLabels, type ClubMembership, type Role } from '@shared/schemas/auth';
-import { Badge } from '@/components/ui/badge';
 import { PageHeader } from '@/components/ui/page-header';
 import { firstName, joinWords } from '@/lib/format';
 import { paths } from '@/lib/paths';
@@ -24,8 +21,8 @@ interface HomeCard {
   title: string;
   body: string;
   icon: LucideIcon;
-  /** Only pages that really exist get a link; everything else says "Coming soon". */
-  href?: string;
+  /** Every card opens a page that works: a card is here only once its feature is. */
+  href: string;
 }
 
 function cardsFor(role: Role, clubId: number): HomeCard[] {
@@ -41,7 +38,6 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
         },
         { title: 'Waiting list', body: 'Everyone waiting for a plot, in the order they applied.', icon: ListOrdered, href: paths.waitlist(clubId) },
         { title: 'Fees', body: 'What each holder owes, what has come in, and deposits held.', icon: Coins, href: paths.fees(clubId) },
-        { title: 'Season at a glance', body: 'Plots taken, shifts covered and hours given this season.', icon: ChartNoAxesColumn },
         {
           title: 'Members',
           body: 'See everyone in the club, invite new people and check pending invites.',
@@ -53,7 +49,6 @@ function cardsFor(role: Role, clubId: number): HomeCard[] {
       return [
         { title: 'Plot book', body: 'Note what you sowed, planted and harvested, and see when to thin, feed and pick.', icon: BookOpen, href: paths.myPlot(clubId) },
         { title: 'Rain gauge', body: 'Read the gauge at your site and log the rain in a few taps.', icon: CloudRain, href: paths.rainGauge(clubId) },
-        { title: 'Ask for watering cover', body: 'Going away? Ask a volunteer to water while you are gone.', icon: Droplets },
       ];
     case 'volunteer':
       return [
@@ -73,26 +68,18 @@ function HomeCardView({ card }: { card: HomeCard }) {
   const { title, body, icon: Icon, href } = card;
   const inner = (
     <>
-      <div className="flex items-start justify-between gap-3">
-        <span className="flex size-11 items-center justify-center rounded-lg bg-leaf-50 text-leaf">
-          <Icon className="size-6" aria-hidden="true" />
-        </span>
-        {!href && <Badge tone="straw">Coming soon</Badge>}
-      </div>
-      <h3 className={`mt-4 text-lg font-semibold ${href ? 'text-water group-hover:underline' : ''}`}>{title}</h3>
+      <span className="flex size-11 items-center justify-center rounded-lg bg-leaf-50 text-leaf">
+        <Icon className="size-6" aria-hidden="true" />
+      </span>
+      <h3 className="mt-4 text-lg font-semibold text-water group-hover:underline">{title}</h3>
       <p className="mt-1 text-stone">{body}</p>
     </>
   );
-  const box = 'flex h-full flex-col rounded-xl border bg-white p-5';
   return (
     <li>
-      {href ? (
-        <Link to={href} className={`group ${box} border-leaf-100 no-underline shadow-sm hover:border-leaf`}>
-          {inner}
-        </Link>
-      ) : (
-        <div className={`${box} border-paper-200`}>{inner}</div>
-      )}
+      <Link to={href} className="group flex h-full flex-col rounded-xl border border-leaf-100 bg-white p-5 no-underline shadow-sm hover:border-leaf">
+        {inner}
+      </Link>
     </li>
   );
 }
@@ -102,10 +89,12 @@ export interface ClubHomeProps {
   personName: string;
   /** What comes first under the greeting, before the cards (a holder's own plot). */
   children?: ReactNode;
+  /** What a role's section shows above its cards (the coordinator's season at a glance, a volunteer's week). */
+  sections?: Partial<Record<Role, ReactNode>>;
 }
 
 /** The club's home page: a greeting and one section of cards per role the person holds. */
-export function ClubHome({ club, personName, children }: ClubHomeProps) {
+export function ClubHome({ club, personName, children, sections }: ClubHomeProps) {
   const roles = club.roles;
   const roleWords = roles.map((role) => roleLabels[role].toLowerCase());
   return (
@@ -133,6 +122,7 @@ export function ClubHome({ club, personName, children }: ClubHomeProps) {
                 </h2>
                 <span className="text-sm text-stone">as {roleLabels[role].toLowerCase()}</span>
               </div>
+              {sections?.[role]}
               <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
                 {cardsFor(role, club.clubId).map((card) => (
                   <HomeCardView key={card.title} card={card} />
