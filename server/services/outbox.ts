@@ -33,7 +33,8 @@ export interface MailCause {
  * Writes a message, already rendered, to the outbox inside the caller's transaction; nothing is
  * sent yet. Call `kickMail` after the commit so it goes out at once.
  */
-export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMail): Promise<number> {
+export async function enqueueMail(trx: Db, cause: MailCause, rendered: OutgoingMail | Promise<OutgoingMail>): Promise<number> {
+  const message = await rendered;
   // A club's mail comes under its name and is answered at its contact address, when it has one.
   const club = cause.clubId === null ? undefined : await trx('clubs').where({ id: cause.clubId }).first('name', 'contact_email');
   const headers = { ...(club?.contact_email ? { 'Reply-To': club.contact_email as string } : {}), ...message.headers };
