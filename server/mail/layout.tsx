@@ -75,6 +75,7 @@ export function MailLayout(p: LayoutProps) {
               <Section key={a.url} style={{ margin: '20px 0 8px' }}>
                 <Button
                   href={a.url}
+                  data-action-label={a.label}
                   style={{ backgroundColor: t.leaf, color: t.white, padding: '12px 20px', borderRadius: '8px', fontSize: '16px', fontWeight: 600, textDecoration: 'none' }}
                 >
                   {a.label}
@@ -110,9 +111,21 @@ export function stopHeaders(stop: StopLink | undefined): Record<string, string> 
   return { 'List-Unsubscribe': `<${stop.oneClickUrl}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' };
 }
 
+/** The text part writes each button as "Label: address" on its own line, as the mail read before. */
+const htmlToTextOptions = {
+  formatters: {
+    action: (elem: { attribs?: Record<string, string> }, _walk: unknown, builder: { openBlock(o: object): void; addInline(s: string, o?: object): void; closeBlock(o: object): void }) => {
+      builder.openBlock({ leadingLineBreaks: 1 });
+      builder.addInline(`${elem.attribs?.['data-action-label'] ?? ''}: ${elem.attribs?.href ?? ''}`, { noWordTransform: true });
+      builder.closeBlock({ trailingLineBreaks: 1 });
+    },
+  },
+  selectors: [{ selector: 'a[data-action-label]', format: 'action' }],
+};
+
 /** Renders one template's element to the HTML and plain-text parts with React Email's render(). */
 export async function renderMail(to: string, subject: string, element: ReactElement, stop?: StopLink): Promise<OutgoingMail> {
-  const [html, text] = await Promise.all([render(element), render(element, { plainText: true })]);
+  const [html, text] = await Promise.all([render(element), render(element, { plainText: true, htmlToTextOptions })]);
   const headers = stopHeaders(stop);
   return { to, subject, html, text, ...(headers ? { headers } : {}) };
 }
