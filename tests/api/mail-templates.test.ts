@@ -199,7 +199,7 @@ describe('optional and transactional mail', () => {
     const headers = await outboxHeaders('shift_digest', ana.person.email);
     expect(headers['List-Unsubscribe-Post']).toBe(ONE_CLICK);
     expect((await oneClick(oneClickUrl(headers['List-Unsubscribe']))).status).toBe(200);
-    expect((await ana.get(`/api/clubs/${club.id}/volunteer-settings`)).body).toEqual({ digestDay: null, helpMail: true });
+    expect((await ana.get(`/api/clubs/${club.id}/volunteer-settings`)).body).toEqual({ digestDay: null, helpMail: true, reminders: true });
 
     expect(await sendShiftDigests(t.db, t.mailer, { ...ctx, now: at(mondays[1]) })).toBe(1);
     const rows = await t.db('mail_outbox').where({ kind: 'shift_digest' }).orderBy('id').pluck('to_address');
@@ -222,6 +222,8 @@ describe('optional and transactional mail', () => {
     const headers = await outboxHeaders('shift_reminder', ana.person.email);
     expect(headers['List-Unsubscribe-Post']).toBe(ONE_CLICK);
     expect((await oneClick(oneClickUrl(headers['List-Unsubscribe']))).status).toBe(200);
+    // The volunteer's own choices show it, and can turn it back on.
+    expect((await ana.get(`/api/clubs/${club.id}/volunteer-settings`)).body).toEqual({ digestDay: 1, helpMail: true, reminders: false });
 
     expect(await sendShiftReminders(t.db, t.mailer, { ...ctx, now: before(two) })).toBe(0);
     expect(Number((await t.db('mail_outbox').where({ kind: 'shift_reminder' }).count({ n: '*' }).first())!.n)).toBe(1);
@@ -244,7 +246,7 @@ describe('optional and transactional mail', () => {
     const headers = await outboxHeaders('shift_help', ana.person.email);
     expect(headers['List-Unsubscribe-Post']).toBe(ONE_CLICK);
     expect((await oneClick(oneClickUrl(headers['List-Unsubscribe']))).status).toBe(200);
-    expect((await ana.get(`/api/clubs/${club.id}/volunteer-settings`)).body).toEqual({ digestDay: 1, helpMail: false });
+    expect((await ana.get(`/api/clubs/${club.id}/volunteer-settings`)).body).toEqual({ digestDay: 1, helpMail: false, reminders: true });
     const again = await coordinator.post(`/api/shifts/${shift.id}/ask-for-help`, { note: 'Still two.' });
     expect(again.body).toEqual({ sent: 0, skipped: 1 });
   });
