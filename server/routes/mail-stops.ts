@@ -10,12 +10,12 @@ import { previewStop, useStop } from '../services/mail-stops';
 export function mailStopsRouter({ db }: Deps): Router {
   const router = Router();
   router.get('/:token', async (req, res) => {
-    const preview = await previewStop(db, req.params.token);
+    // A person's browser gets the confirm page, which also explains a link that is not valid.
     if (req.accepts(['json', 'html']) === 'html') {
       res.redirect(303, `/stop-mail?token=${encodeURIComponent(req.params.token)}`);
       return;
     }
-    res.json(preview);
+    res.json(await previewStop(db, req.params.token));
   });
   router.post('/:token', async (req, res) => {
     res.json(await useStop(db, req.params.token));
