@@ -15,6 +15,8 @@ import { LOG_REDACT_PATHS, refreshSession } from './middleware/session';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { applicationsRouter, applyRouter, clubWaitlistRouter } from './routes/applications';
 import { mailingsRouter, mailPreferencesRouter } from './routes/mailings';
+import { mailStopsRouter } from './routes/mail-stops';
+import { mailTemplatesRouter } from './routes/mail-templates';
 import { clubExportsRouter } from './routes/exports';
 import { memberImportsRouter } from './routes/member-imports';
 import { waitlistImportsRouter } from './routes/waitlist-imports';
@@ -115,6 +117,8 @@ export function createApp(input: AppDeps): BuiltApp {
     res.set('Cache-Control', 'no-store');
     next();
   });
+  // Stop links of optional mail: the token is the key, and mail providers' one-click POST carries no CSRF token.
+  app.use('/api/mail-stops', mailStopsRouter(deps));
   app.use('/api', requireCsrf(config.sessionSecret));
   app.use('/api/session', sessionRouter(deps));
   app.use('/api/password-resets', passwordResetsRouter(deps));
@@ -135,6 +139,7 @@ export function createApp(input: AppDeps): BuiltApp {
   app.use('/api/clubs/:clubId/mailings', mailingsRouter(deps));
   app.use('/api/clubs/:clubId/mail-preferences', mailPreferencesRouter(deps));
   app.use('/api/clubs/:clubId/outbox', outboxRouter(deps));
+  app.use('/api/clubs/:clubId/mail-templates', mailTemplatesRouter(deps));
   app.use('/api/clubs/:clubId/my-plot', myPlotRouter(deps));
   app.use('/api/clubs/:clubId/crops', cropsRouter(deps));
   app.use('/api/clubs/:clubId/harvest-figures', harvestFiguresRouter(deps));

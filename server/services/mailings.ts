@@ -11,6 +11,7 @@ import { AppError, notFound } from '../errors';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { clubNewsMail } from '../mail/mailing-templates';
+import { stopLink } from './mail-stops';
 import { enqueueMail, kickMail } from './outbox';
 
 /** The one optional topic; offers, renewals, receipts and resets are required and never look here. */
@@ -123,6 +124,7 @@ export async function sendMailing(
         body: body.body,
         because,
         preferencesUrl,
+        stop: await stopLink(trx, { userId: p.id, clubId, kind: 'club_news', publicUrl: opts.publicUrl, clubName: club.name }),
       }));
     }
     return inserted;

@@ -34,7 +34,8 @@ export interface MailCause {
  * Writes a message, already rendered, to the outbox inside the caller's transaction; nothing is
  * sent yet. Call `kickMail` after the commit so it goes out at once.
  */
-export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMail): Promise<number> {
+export async function enqueueMail(trx: Db, cause: MailCause, rendered: OutgoingMail | Promise<OutgoingMail>): Promise<number> {
+  const message = await rendered;
   // A club's mail comes under its name and is answered at its contact address, when it has one.
   const club = cause.clubId === null ? undefined : await trx('clubs').where({ id: cause.clubId }).first('name', 'contact_email');
   const headers = { ...(club?.contact_email ? { 'Reply-To': club.contact_email as string } : {}), ...message.headers };
@@ -48,7 +49,8 @@ export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMa
       // Bodies and attachments carry live links: sealed, so the table holds no working token.
       html: sealText(message.html),
       text: sealText(message.text),
-      headers: JSON.stringify(headers),
+      // Headers too: an optional mail's List-Unsubscribe carries its stop link's token.
+      headers: JSON.stringify(sealText(JSON.stringify(headers))),
       attachments: message.attachments?.length ? JSON.stringify(sealText(JSON.stringify(message.attachments))) : null,
       from_name: cause.fromName ?? message.fromName ?? club?.name ?? null,
       // The server's clock, like the sender's `now`, so a kick right after the commit finds it due.
@@ -59,10 +61,10 @@ export async function enqueueMail(trx: Db, cause: MailCause, message: OutgoingMa
 }
 
 /** A stored row's message as it is sent: sealed bodies opened (rows written before sealing are plain). */
-export function openedMail(row: { to_address: string; subject: string; text: string; html: string; headers: Record<string, string>; from_name: string | null; attachments: unknown }): OutgoingMail {
+export function openedMail(row: { to_address: string; subject: string; text: string; html: string; headers: unknown; from_name: string | null; attachments: unknown }): OutgoingMail {
   const open = (v: string) => (isSealed(v) ? openText(v) : v);
   const attachments = isSealed(row.attachments) ? (JSON.parse(openText(row.attachments)) as MailAttachment[]) : (row.attachments as MailAttachment[] | null);
-  return { to: row.to_address, subject: row.subject, text: open(row.text), html: open(row.html), headers: row.headers, fromName: row.from_name, attachments };
+  return { to: row.to_address, subject: row.subject, text: open(row.text), html: open(row.html), headers: isSealed(row.headers) ? (JSON.parse(openText(row.headers)) as Record<string, string>) : (row.headers as Record<string, string>), fromName: row.from_name, attachments };
 }
 
 function errorText(err: unknown): string {

@@ -21,6 +21,7 @@ import {
 import { shiftCalendar } from './calendar-feeds';
 import { inspectImage, reencodeImage } from './images';
 import { photoLimits, STORED_PHOTO_SIDE_PX } from './observations';
+import { remindersOff, stopLink } from './mail-stops';
 import { enqueueMail, kickMail } from './outbox';
 import { shiftRows, toShiftViews, type ShiftRow, type Viewer } from './shifts';
 import { hashToken, newToken } from './tokens';
@@ -415,6 +416,7 @@ export async function askForHelp(ctx: Ctx, opts: { shiftId: number; viewer: View
           note: opts.note,
           item: { shift: words, placesLeft: row.capacity - holding.length, claimUrl: linkUrl(ctx.publicUrl, token) },
           choicesUrl: choicesUrl(ctx.publicUrl, row.club_id),
+          stop: await stopLink(trx, { userId: v.id, clubId: row.club_id, kind: 'shift_help', publicUrl: ctx.publicUrl, clubName: club.name }),
         }),
       );
       sent++;
@@ -473,7 +475,14 @@ export async function sendShiftDigests(db: Knex, mailer: Mailer, opts: { publicU
           const token = await makeLink(trx, { shiftId: x.r.id, userId: v.id, claimId: null, purpose: 'claim', expiresAt: new Date(x.r.starts_at) });
           lines.push({ shift: x.w, placesLeft: x.view.capacity - x.view.taken, claimUrl: linkUrl(opts.publicUrl, token) });
         }
-        await enqueueMail(trx, { clubId: club.id, kind: 'shift_digest' }, shiftDigestMail({ to: v.email, name: v.name, clubName: club.name, lines, choicesUrl: choicesUrl(opts.publicUrl, club.id) }));
+        await enqueueMail(trx, { clubId: club.id, kind: 'shift_digest' }, shiftDigestMail({
+            to: v.email,
+            name: v.name,
+            clubName: club.name,
+            lines,
+            choicesUrl: choicesUrl(opts.publicUrl, club.id),
+            stop: await stopLink(trx, { userId: v.id, clubId: club.id, kind: 'shift_digest', publicUrl: opts.publicUrl, clubName: club.name }),
+          }));
         return true;
       });
       if (did) sent++;
@@ -502,6 +511,8 @@ export async function sendShiftReminders(db: Knex, mailer: Mailer, opts: { publi
       if (!claim) return false;
       await trx('shift_claims').where({ id: claim.id }).update({ reminded_at: now });
       const row: ShiftRow = await shiftRows(trx).where('sh.id', claim.shift_id).first();
+      // Marked reminded either way, so a person who turned reminders off is not looked at again each minute.
+      if (await remindersOff(trx, row.club_id, claim.user_id)) return 'skipped';
       const user = await trx('users').where({ id: claim.user_id }).first('name', 'email');
       const club = await trx('clubs').where({ id: row.club_id }).first('name');
       const release = await makeLink(trx, { shiftId: row.id, userId: claim.user_id, claimId: claim.id, purpose: 'release', expiresAt: new Date(row.starts_at) });
@@ -509,12 +520,21 @@ export async function sendShiftReminders(db: Knex, mailer: Mailer, opts: { publi
       await enqueueMail(
         trx,
         { clubId: row.club_id, kind: 'shift_reminder' },
-        shiftReminderMail({ to: user.email, name: user.name, clubName: club.name, shift: await wordsFor(trx, row), releaseUrl: linkUrl(opts.publicUrl, release), doneUrl: linkUrl(opts.publicUrl, done) }),
+        shiftReminderMail({
+          to: user.email,
+          name: user.name,
+          clubName: club.name,
+          shift: await wordsFor(trx, row),
+          releaseUrl: linkUrl(opts.publicUrl, release),
+          doneUrl: linkUrl(opts.publicUrl, done),
+          choicesUrl: choicesUrl(opts.publicUrl, row.club_id),
+          stop: await stopLink(trx, { userId: claim.user_id, clubId: row.club_id, kind: 'shift_reminder', publicUrl: opts.publicUrl, clubName: club.name }),
+        }),
       );
-      return true;
+      return 'sent';
     });
     if (!did) break;
-    sent++;
+    if (did === 'sent') sent++;
   }
   if (sent) kickMail(db, mailer);
   return sent;

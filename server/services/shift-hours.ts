@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { localToday } from '@shared/dates';
 import type { HoursRow, HoursTable, MyShifts, VolunteerSettings } from '@shared/schemas/shifts';
 import type { Db } from '../db/knex';
+import { SHIFT_REMINDER } from './mail-stops';
 import { shiftRows, toShiftViews, type ShiftRow, type Viewer } from './shifts';
 
 // Hours per person per season (the year of the shift's date at its site): only places marked done
@@ -79,8 +80,10 @@ export async function myShifts(db: Db, opts: { clubId: number; viewer: Viewer; n
 
 export async function getVolunteerSettings(db: Db, opts: { clubId: number; userId: number }): Promise<VolunteerSettings> {
   const row = await db('volunteer_settings').where({ club_id: opts.clubId, user_id: opts.userId }).first('digest_day', 'help_mail');
-  // Until a person chooses, the weekly e-mail comes on Mondays and calls for help come too.
-  return row ? { digestDay: row.digest_day, helpMail: row.help_mail } : { digestDay: 1, helpMail: true };
+  const reminder = await db('mail_preferences').where({ club_id: opts.clubId, user_id: opts.userId, topic: SHIFT_REMINDER }).first('is_subscribed');
+  const reminders = reminder ? Boolean(reminder.is_subscribed) : true;
+  // Until a person chooses, the weekly e-mail comes on Mondays, and calls for help and reminders come too.
+  return row ? { digestDay: row.digest_day, helpMail: row.help_mail, reminders } : { digestDay: 1, helpMail: true, reminders };
 }
 
 export async function setVolunteerSettings(db: Knex, opts: { clubId: number; userId: number; body: Partial<VolunteerSettings> }): Promise<VolunteerSettings> {
@@ -90,5 +93,11 @@ export async function setVolunteerSettings(db: Knex, opts: { clubId: number; use
     .insert({ club_id: opts.clubId, user_id: opts.userId, digest_day: next.digestDay, help_mail: next.helpMail })
     .onConflict(['club_id', 'user_id'])
     .merge({ digest_day: next.digestDay, help_mail: next.helpMail, updated_at: db.fn.now() });
+  if (opts.body.reminders !== undefined) {
+    await db('mail_preferences')
+      .insert({ club_id: opts.clubId, user_id: opts.userId, topic: SHIFT_REMINDER, is_subscribed: next.reminders })
+      .onConflict(['user_id', 'club_id', 'topic'])
+      .merge({ is_subscribed: next.reminders, updated_at: db.fn.now() });
+  }
   return getVolunteerSettings(db, opts);
 }

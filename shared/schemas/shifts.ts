@@ -171,10 +171,11 @@ export const AskForHelpBodySchema = z.strictObject({
 });
 export const AskForHelpResultSchema = z.object({ sent: z.number().int(), skipped: z.number().int() });
 
-/** A volunteer's e-mail choices about shifts in one club. `digestDay`: 0 Sunday … 6 Saturday, null for none. */
+/** A volunteer's e-mail choices about shifts in one club. `digestDay`: 0 Sunday … 6 Saturday, null for none; `reminders`: the e-mail the day before a shift they hold. */
 export const VolunteerSettingsSchema = z.object({
   digestDay: z.number().int().min(0, 'A day of the week').max(6, 'A day of the week').nullable(),
   helpMail: z.boolean('true or false'),
+  reminders: z.boolean('true or false'),
 });
 export type VolunteerSettings = z.infer<typeof VolunteerSettingsSchema>;
 export const VolunteerSettingsBodySchema = VolunteerSettingsSchema.partial().strict();

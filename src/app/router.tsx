@@ -50,6 +50,8 @@ export const router = createBrowserRouter([
           },
           // A shift e-mail's link (take a place, give it back, say it is done): no sign-in, opening it changes nothing.
           { path: 'shift-link', lazy: () => import('./routes/shift-link').then((m) => ({ Component: m.ShiftLinkRoute })) },
+          // An optional e-mail's stop link: no sign-in, opening it changes nothing until the button is pressed.
+          { path: 'stop-mail', lazy: () => import('./routes/stop-mail').then((m) => ({ Component: m.StopMailRoute })) },
         ],
       },
       {
@@ -105,6 +107,10 @@ export const router = createBrowserRouter([
               {
                 path: 'outgoing-mail',
                 lazy: () => import('./routes/outgoing-mail').then((m) => ({ Component: m.OutgoingMailRoute })),
+              },
+              {
+                path: 'outgoing-mail/templates',
+                lazy: () => import('./routes/mail-templates').then((m) => ({ Component: m.MailTemplatesRoute })),
               },
               {
                 path: 'email-choices',

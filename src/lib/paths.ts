@@ -34,6 +34,9 @@ export const paths = {
   waitlist: (clubId: number) => `/clubs/${clubId}/waitlist`,
   messages: (clubId: number) => `/clubs/${clubId}/messages`,
   outgoingMail: (clubId: number) => `/clubs/${clubId}/outgoing-mail`,
+  /** Every e-mail template with a preview (coordinators). */
+  mailTemplates: (clubId: number) => `/clubs/${clubId}/outgoing-mail/templates`,
+  stopMail: (token: string) => `/stop-mail?token=${encodeURIComponent(token)}`,
   emailChoices: (clubId: number) => `/clubs/${clubId}/email-choices`,
   /** The public application form; shared with people who want a plot. */
   apply: (clubSlug: string) => `/apply/${encodeURIComponent(clubSlug)}`,

@@ -122,6 +122,8 @@ export const AUTHORIZATION_TABLE: Record<string, TableEntry> = {
   'DELETE /api/clubs/:clubId/crops/:cropId/overrides/:field': coordinator,
   'GET /api/clubs/:clubId/harvest-figures': member,
   'GET /api/clubs/:clubId/season-summary': coordinator,
+  'GET /api/clubs/:clubId/mail-templates': coordinator,
+  'GET /api/clubs/:clubId/mail-templates/:name/preview': coordinator,
   // Seasons, offers, renewals
   'GET /api/clubs/:clubId/seasons': member,
   'GET /api/clubs/:clubId/seasons/opening-preview': coordinator,
@@ -216,6 +218,9 @@ export const AUTHORIZATION_TABLE: Record<string, TableEntry> = {
   'POST /api/shift-links/claim': link(404),
   'POST /api/shift-links/release': link(404),
   'POST /api/shift-links/done': link(404),
+  // Stop links of optional mail: the token is the only key (no sign-in, no CSRF: RFC 8058's one-click POST).
+  'GET /api/mail-stops/:token': link(404),
+  'POST /api/mail-stops/:token': link(404),
   'GET /api/feeds/:file': { rule: 'link-token', tokenAnswer: 200 }, // a real, secret feed address: no sign-in
 };
 

@@ -261,6 +261,8 @@ function defaultParams(x: Fixture): Record<string, string | number> {
     taskId: x.task1, handoverId: x.handover1, runId: x.runId, plantingId: x.planting1, harvestId: x.harvest1,
     observationId: x.observation1, photoId: x.photo1, shiftId: x.shiftId, claimId: x.claimId,
     file: new URL(x.feedUrl).pathname.split('/').pop()!, day: x.weatherDay,
+    // A made-up stop-mail token (the route answers 404 to everyone) and a template that exists.
+    token: FAKE_TOKEN, name: 'club_news',
   };
 }
 

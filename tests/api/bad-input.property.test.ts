@@ -196,7 +196,7 @@ const validBodies: Record<string, (x: Fixture) => Record<string, unknown>> = {
     instructions: '',
     taskIds: [],
   }),
-  'PUT /api/clubs/:clubId/volunteer-settings': () => ({ digestDay: 2, helpMail: false }),
+  'PUT /api/clubs/:clubId/volunteer-settings': () => ({ digestDay: 2, helpMail: false, reminders: false }),
 };
 const feeSchedule = {
   basis: 'kind',
@@ -281,6 +281,9 @@ function paramValue(name: string, x: Fixture): string | null {
     file: 'not-a-feed.ics',
     // A past day of the weather log (the site's zone is London; the fixed date is before any run of this test).
     day: '2026-11-20',
+    // A stop link that is not one of ours (404) and a template that exists (its preview is a GET).
+    token: 'x'.repeat(43),
+    name: 'offer',
   };
   return name in known ? String(known[name]) : null;
 }

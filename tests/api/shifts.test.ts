@@ -279,7 +279,7 @@ describe('the jobs, with an injected time', () => {
     const s = await club();
     const shift = await makeShift(s);
     const quiet = await signedInMember(t, s.club.id, ['volunteer']);
-    expect((await quiet.put(`/api/clubs/${s.club.id}/volunteer-settings`, { digestDay: null })).body).toEqual({ digestDay: null, helpMail: true });
+    expect((await quiet.put(`/api/clubs/${s.club.id}/volunteer-settings`, { digestDay: null })).body).toEqual({ digestDay: null, helpMail: true, reminders: true });
     expect((await s.volunteer.put(`/api/clubs/${s.club.id}/volunteer-settings`, { digestDay: 7 })).status).toBe(400);
     // The shift is 3 days ahead; send on the volunteer's (default Monday) day from 07:00 London time before it.
     const start = new Date(shift.startsAt);

@@ -22,6 +22,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       for (const [path, heading] of [
         ['/respond/offer?token=abc&answer=accept', 'This link is not valid'],
         ['/reset-password?token=abcdefghijklmnopqrstuvwxyz0123456789ABCDEFG', "This reset link doesn't work"],
+        ['/stop-mail?token=abcdefghijklmnopqrstuvwxyz0123456789ABCDEFG', 'This link is not valid'],
       ]) {
         const w = await openPage(suite.browser, width);
         await w.page.goto(`${suite.server.url}${path}`);
@@ -48,6 +49,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       ['/members', 'Members'],
       ['/messages', 'Messages'],
       ['/outgoing-mail', 'Outgoing mail'],
+      ['/outgoing-mail/templates', 'E-mail templates'],
       ['/settings', 'Settings'],
       ['/findings', 'Neighbour check'],
       ['/tasks', 'Tasks'],
@@ -72,7 +74,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       expect(w.errors).toEqual([]);
       await w.page.context().close();
     }
-  }, 240_000); // twenty-one pages at two widths, each with an axe run
+  }, 240_000); // twenty-two pages at two widths, each with an axe run
 
   it("finds no violations on a plot holder's and a volunteer's pages, the home with its map included", async () => {
     const db = createDb(testConfig().databaseUrl);

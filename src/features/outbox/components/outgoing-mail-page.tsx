@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useSearchParams } from 'react-router-dom';
+import { Link, useSearchParams } from 'react-router-dom';
 import type { ColumnDef } from '@tanstack/react-table';
 import {
   mailKindLabels,
@@ -11,7 +11,7 @@ import {
 } from '@shared/schemas/outbox';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
-import { Button } from '@/components/ui/button';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { DataTable } from '@/components/ui/data-table';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
@@ -19,6 +19,7 @@ import { Select } from '@/components/ui/select';
 import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { formatDateTime } from '@/lib/format';
+import { paths } from '@/lib/paths';
 import { useTimeZone } from '@/lib/time-zone';
 import { useOutbox } from '../api/get-outbox';
 import { useResendMail } from '../api/resend-mail';
@@ -136,6 +137,11 @@ export function OutgoingMailPage({ clubId, clubName }: OutgoingMailPageProps) {
         eyebrow={clubName}
         title="Outgoing mail"
         description="Every e-mail the club sends is kept here first and tried again if the mail server cannot take it: after a minute, then waiting twice as long each time. After 8 tries it shows as failed, and you can resend it."
+        actions={
+          <Link to={paths.mailTemplates(clubId)} className={buttonClasses('secondary')}>
+            E-mail templates
+          </Link>
+        }
       />
       <div className="flex flex-col gap-6">
         <Select label="Show" value={status} onChange={(e) => setStatus(e.target.value)} className="sm:w-56">

@@ -6,7 +6,7 @@ import { shiftsKeys } from './keys';
 
 export type VolunteerSettingsBody = z.infer<typeof VolunteerSettingsBodySchema>;
 
-/** PUT /api/clubs/:clubId/volunteer-settings {digestDay?, helpMail?}: saves the person's shift e-mail choices. */
+/** PUT /api/clubs/:clubId/volunteer-settings {digestDay?, helpMail?, reminders?}: saves the person's shift e-mail choices. */
 export function updateVolunteerSettings(clubId: number, body: VolunteerSettingsBody) {
   return apiFetch(`/api/clubs/${clubId}/volunteer-settings`, { method: 'PUT', body, schema: VolunteerSettingsSchema });
 }

@@ -19,6 +19,7 @@ interface FormValues {
   /** "" for no weekly e-mail, else "0" (Sunday) to "6" (Saturday). */
   digestDay: string;
   helpMail: boolean;
+  reminders: boolean;
 }
 
 const FormSchema = z.object({
@@ -27,9 +28,10 @@ const FormSchema = z.object({
     .transform((v) => (v === '' ? null : Number(v)))
     .pipe(VolunteerSettingsSchema.shape.digestDay),
   helpMail: VolunteerSettingsSchema.shape.helpMail,
+  reminders: VolunteerSettingsSchema.shape.reminders,
 });
 
-const toForm = (s: VolunteerSettings): FormValues => ({ digestDay: s.digestDay === null ? '' : String(s.digestDay), helpMail: s.helpMail });
+const toForm = (s: VolunteerSettings): FormValues => ({ digestDay: s.digestDay === null ? '' : String(s.digestDay), helpMail: s.helpMail, reminders: s.reminders });
 
 // Monday first, as the board's weeks; the numbers stay the server's (0 Sunday … 6 Saturday).
 const dayOptions = [1, 2, 3, 4, 5, 6, 0];
@@ -54,7 +56,7 @@ function Form({ clubId, saved }: { clubId: number; saved: VolunteerSettings }) {
         reset(toForm(next));
         setDone(true);
       },
-      onError: (error) => setFormError(applyServerErrors(error, setError, ['digestDay', 'helpMail'])),
+      onError: (error) => setFormError(applyServerErrors(error, setError, ['digestDay', 'helpMail', 'reminders'])),
     });
   });
 
@@ -81,6 +83,11 @@ function Form({ clubId, saved }: { clubId: number; saved: VolunteerSettings }) {
         hint="Sent when a shift still needs people and a coordinator asks for more hands."
         {...register('helpMail', { onChange: () => setDone(false) })}
       />
+      <Checkbox
+        label="A reminder the day before a shift I have a place on"
+        hint="The confirmation when you take a place is always sent."
+        {...register('reminders', { onChange: () => setDone(false) })}
+      />
       <Button type="submit" loading={update.isPending} loadingText="Saving…" disabled={!isDirty} className="self-start">
         Save my choices
       </Button>
@@ -88,7 +95,7 @@ function Form({ clubId, saved }: { clubId: number; saved: VolunteerSettings }) {
   );
 }
 
-/** A volunteer's e-mail choices about shifts: the weekly e-mail's day (or none) and help e-mails on or off. */
+/** A volunteer's e-mail choices about shifts: the weekly e-mail's day (or none), and help e-mails and reminders on or off. */
 export function VolunteerSettingsForm({ clubId }: { clubId: number }) {
   const settings = useVolunteerSettings(clubId);
   if (settings.isPending) return <LoadingState label="Loading your choices…" />;
