@@ -14,7 +14,8 @@ import {
   Users,
   type LucideIcon,
 } from 'lucide-react';
-import { roleLabels, type ClubMembership, type Role } from '@shared/schemas/auth';
+import type { ClubMembership, Role } from '@shared/schemas/auth';
+import { roleLabels } from '@shared/schemas/labels';
 import { Badge } from '@/components/ui/badge';
 import { PageHeader } from '@/components/ui/page-header';
 import { firstName, joinWords } from '@/lib/format';
