@@ -55,7 +55,7 @@ export function responseShapesSource(): string {
     const json = z.toJSONSchema(schema, { io: 'input', unrepresentable: 'throw' }) as Record<string, unknown>;
     delete json.$schema;
     checkKeywords(name, json, name);
-    if (line) imports.add(line);
+    for (const one of line.split('\n')) if (one) imports.add(one);
     body.push(`export const ${name}: Shape<${type}> = { schema: ${JSON.stringify(json)} };`);
   }
   return [

@@ -2,11 +2,11 @@
 import type { ClubSettings } from '@shared/schemas/clubs';
 import type { ErrorBody } from '@shared/errors';
 import type { MyFeesListSchema } from '@shared/schemas/fees';
-import type { z } from 'zod';
 import type { MyPlot } from '@shared/schemas/my-plot';
 import type { Plot } from '@shared/schemas/plots';
 import type { PlotTasks } from '@shared/schemas/tasks';
 import type { SessionInfo } from '@shared/schemas/auth';
+import type { z } from 'zod';
 import type { Shape } from './shape';
 
 export const ErrorBodyShape: Shape<ErrorBody> = { schema: {"type":"object","properties":{"error":{"type":"object","properties":{"code":{"type":"string"},"message":{"type":"string"},"fields":{"type":"object","propertyNames":{"type":"string"},"additionalProperties":{"type":"string"}},"requestId":{"type":"string"}},"required":["code","message"]}},"required":["error"]} };
