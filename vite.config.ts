@@ -13,7 +13,12 @@ const alias = {
 export default defineConfig({
   plugins: [react(), tailwindcss()],
   resolve: { alias },
-  build: { outDir: 'dist', sourcemap: true },
+  build: {
+    outDir: 'dist',
+    sourcemap: true,
+    manifest: true,
+    rollupOptions: { treeshake: { manualPureFunctions: ['z'] } },
+  },
   server: {
     host: '127.0.0.1',
     port: Number(process.env.VITE_PORT ?? 5173),

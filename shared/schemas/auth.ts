@@ -1,20 +1,11 @@
 import { z } from 'zod';
 import { EmailSchema, IdSchema, PasswordSchema, textSchema } from './common';
 
-export const roles = ['coordinator', 'plot_holder', 'volunteer'] as const;
+import { roles } from './labels';
+
+export { roleLabels, roles, roleWords } from './labels';
 export const RoleSchema = z.enum(roles);
 export type Role = z.infer<typeof RoleSchema>;
-
-export const roleLabels: Record<Role, string> = {
-  coordinator: 'Coordinator',
-  plot_holder: 'Plot holder',
-  volunteer: 'Volunteer',
-};
-
-/** Roles as words in a sentence, in the order of `roles`: "plot holder, volunteer" ("coordinator" for one). */
-export function roleWords(held: readonly Role[]): string {
-  return roles.filter((r) => held.includes(r)).map((r) => roleLabels[r].toLowerCase()).join(', ');
-}
 
 export const SignInBodySchema = z.strictObject({
   email: EmailSchema,

@@ -2,15 +2,11 @@ import { z } from 'zod';
 import { csvFileSchema, dateWithinSchema, textSchema, VersionSchema } from './common';
 import { PlotSeasonStateSchema } from './seasons';
 
-export const plotKinds = ['in_ground', 'raised_bed', 'container', 'shared_bed'] as const;
+import { plotKinds } from './labels';
+
+export { plotKindLabels, plotKinds } from './labels';
 export const PlotKindSchema = z.enum(plotKinds);
 export type PlotKind = z.infer<typeof PlotKindSchema>;
-export const plotKindLabels: Record<PlotKind, string> = {
-  in_ground: 'In-ground plot',
-  raised_bed: 'Raised bed',
-  container: 'Container',
-  shared_bed: 'Shared bed',
-};
 
 export const sunValues = ['full', 'part', 'shade'] as const;
 export const SunSchema = z.enum(sunValues);

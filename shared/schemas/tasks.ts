@@ -1,11 +1,12 @@
 import { z } from 'zod';
 import { dateWithinSchema, IdSchema, IdTextSchema, textSchema, VersionSchema } from './common';
+import { taskKinds } from './labels';
 
 // The season's care as tasks: generated from plantings, the crop notes and the weather log, plus the
 // tasks coordinators add for shared beds and the site. Dates are calendar dates in the site's zone;
 // water amounts are stored in millimetres and litres and shown in the site's units.
 
-export const taskKinds = ['water', 'weed', 'thin', 'side_dress', 'mulch', 'scout', 'harvest', 'other'] as const;
+export { taskKinds } from './labels';
 export const TaskKindSchema = z.enum(taskKinds);
 export type TaskKind = z.infer<typeof TaskKindSchema>;
 

@@ -1,5 +1,6 @@
-import { z } from 'zod';
-import { ErrorBodySchema } from '@shared/errors';
+import type { z } from 'zod';
+import { CsrfCarrierShape, ErrorBodyShape } from './response-shapes.gen';
+import { checkShape, type Shape } from './shape';
 
 type HttpMethod = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
@@ -37,28 +38,36 @@ export interface ApiFetchOptions<T> {
   method?: HttpMethod;
   /** Sent as JSON, except a FormData, which goes as multipart (the browser writes its boundary). */
   body?: unknown;
-  /** Parses the success body; leave it out for endpoints that answer 204 or whose body is not needed. */
-  schema?: z.ZodType<T>;
+  /**
+   * Parses the success body: a shared zod schema, or on the first page's fetchers its generated shape (the same
+   * check without zod, `src/lib/api/response-shapes.gen.ts`). Leave it out for endpoints that answer 204 or whose
+   * body is not needed.
+   */
+  schema?: z.ZodType<T> | Shape<T>;
   signal?: AbortSignal;
   /** Sent as `Idempotency-Key`: the server answers a retry with the same key with its first answer. */
   idempotencyKey?: string;
 }
 
 const SESSION_PATH = '/api/session';
-const CsrfCarrierSchema = z.object({ csrfToken: z.string().min(1) });
+
+/** Checks a body with a zod schema or a generated shape; both answer zod's `{ success, data }`. */
+function check<T>(schema: z.ZodType<T> | Shape<T>, value: unknown): { success: true; data: T } | { success: false } {
+  return 'safeParse' in schema ? schema.safeParse(value) : checkShape(schema, value);
+}
 
 // The token is per browser session; keeping it in module state means one GET serves every later write.
 let csrfToken: string | null = null;
 let pendingToken: Promise<string> | null = null;
 
 function rememberCsrfToken(data: unknown): void {
-  const carrier = CsrfCarrierSchema.safeParse(data);
+  const carrier = checkShape(CsrfCarrierShape, data);
   if (carrier.success) csrfToken = carrier.data.csrfToken;
 }
 
 async function loadCsrfToken(): Promise<string> {
   // Several writes can start at once; they share one session request.
-  pendingToken ??= apiFetch(SESSION_PATH, { schema: CsrfCarrierSchema })
+  pendingToken ??= apiFetch(SESSION_PATH, { schema: CsrfCarrierShape })
     .then((info) => info.csrfToken)
     .finally(() => {
       pendingToken = null;
@@ -79,7 +88,7 @@ const fallbackCodes: Record<number, string> = {
 async function readError(response: Response): Promise<ApiError> {
   const headerRequestId = response.headers.get('X-Request-Id') ?? undefined;
   const json: unknown = await response.json().catch(() => undefined);
-  const parsed = ErrorBodySchema.safeParse(json);
+  const parsed = checkShape(ErrorBodyShape, json);
   if (parsed.success) {
     const { code, message, fields, requestId } = parsed.data.error;
     return new ApiError({ status: response.status, code, message, fields, requestId: requestId ?? headerRequestId });
@@ -145,7 +154,7 @@ export async function apiFetch<T = undefined>(path: string, options: ApiFetchOpt
   if (response.status === 204 || !schema) return undefined as T;
 
   const json: unknown = await response.json().catch(() => undefined);
-  const parsed = schema.safeParse(json);
+  const parsed = check(schema, json);
   if (!parsed.success) {
     throw new ApiError({
       status: response.status,

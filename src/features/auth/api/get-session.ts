@@ -1,11 +1,12 @@
 import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
-import { SessionInfoSchema, type SessionInfo } from '@shared/schemas/auth';
+import type { SessionInfo } from '@shared/schemas/auth';
 import { apiFetch } from '@/lib/api/client';
+import { SessionInfoShape } from '@/lib/api/response-shapes.gen';
 import { authKeys } from './keys';
 
 /** GET /api/session: who is signed in, plus a fresh CSRF token. */
 export function getSession(signal?: AbortSignal): Promise<SessionInfo> {
-  return apiFetch('/api/session', { schema: SessionInfoSchema, signal });
+  return apiFetch('/api/session', { schema: SessionInfoShape, signal });
 }
 
 /** Query options for the session, shared by the hook and by code that prefetches or refetches it. */

@@ -1,11 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { ClubSettingsSchema } from '@shared/schemas/clubs';
 import { apiFetch } from '@/lib/api/client';
+import { ClubSettingsShape } from '@/lib/api/response-shapes.gen';
 import { clubSettingsKeys } from './keys';
 
 /** GET /api/clubs/:clubId: the club's name and spring-round rules (any member). */
 export function getClubSettings(clubId: number, signal?: AbortSignal) {
-  return apiFetch(`/api/clubs/${clubId}`, { schema: ClubSettingsSchema, signal });
+  return apiFetch(`/api/clubs/${clubId}`, { schema: ClubSettingsShape, signal });
 }
 
 /** Query options for one club's settings. */

@@ -12,7 +12,8 @@ import {
   Users,
   type LucideIcon,
 } from 'lucide-react';
-import { roleLabels, type ClubMembership, type Role } from '@shared/schemas/auth';
+import type { ClubMembership, Role } from '@shared/schemas/auth';
+import { roleLabels } from '@shared/schemas/labels';
 import { PageHeader } from '@/components/ui/page-header';
 import { firstName, joinWords } from '@/lib/format';
 import { paths } from '@/lib/paths';

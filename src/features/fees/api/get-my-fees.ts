@@ -1,11 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { MyFeesListSchema } from '@shared/schemas/fees';
 import { apiFetch } from '@/lib/api/client';
+import { MyFeesListShape } from '@/lib/api/response-shapes.gen';
 import { feesKeys } from './keys';
 
 /** GET /api/me/fees: the signed-in person's own fees in every club. */
 export function getMyFees(signal?: AbortSignal) {
-  return apiFetch('/api/me/fees', { schema: MyFeesListSchema, signal });
+  return apiFetch('/api/me/fees', { schema: MyFeesListShape, signal });
 }
 
 /** Query options for the signed-in person's fees. */

@@ -3,7 +3,7 @@ import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
 import { Spinner } from '@/components/ui/spinner';
 import { useMyFees } from '../api/get-my-fees';
-import { formatCalendarDate } from '../lib/money-form';
+import { formatCalendarDate } from '../lib/calendar-date';
 
 /** A plot holder's own fees in one club, owed ones first: shown on the club home. */
 export function MyFees({ clubId }: { clubId: number }) {

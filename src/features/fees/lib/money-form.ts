@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { formatDate, localToday } from '@shared/dates';
+import { localToday } from '@shared/dates';
 import { parseMoney } from '@shared/fees/money';
 import { ApiError, isApiError } from '@/lib/api/client';
 
@@ -19,10 +19,8 @@ export function moneyOrNull(text: string | undefined): number | null {
   return result.ok ? result.minor : null;
 }
 
-/** "2027-04-14" → "14 Apr 2027"; a calendar date has no zone, so it never shifts a day. */
-export function formatCalendarDate(isoDate: string): string {
-  return formatDate(isoDate, 'UTC');
-}
+// Kept apart (no zod) for the first page's fee list; re-exported for the fee pages.
+export { formatCalendarDate } from './calendar-date';
 
 /** Today's date in the club's zone, as YYYY-MM-DD. */
 export function todayIso(timeZone: string, now = new Date()): string {

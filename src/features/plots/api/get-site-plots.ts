@@ -1,14 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { pageSchema } from '@shared/schemas/common';
-import { PlotSchema } from '@shared/schemas/plots';
 import { apiFetch } from '@/lib/api/client';
+import { PlotsPageShape } from '@/lib/api/response-shapes.gen';
 import { plotsKeys } from './keys';
-
-const PlotsPageSchema = pageSchema(PlotSchema);
 
 /** GET /api/sites/:siteId/plots: every live plot on a site. */
 export function getSitePlots(siteId: number, signal?: AbortSignal) {
-  return apiFetch(`/api/sites/${siteId}/plots`, { schema: PlotsPageSchema, signal });
+  return apiFetch(`/api/sites/${siteId}/plots`, { schema: PlotsPageShape, signal });
 }
 
 /** Query options for a site's plots. */

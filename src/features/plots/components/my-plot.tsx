@@ -1,7 +1,7 @@
 import { BookOpen, CalendarClock, CloudRain, Shovel } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { plotKindLabels } from '@shared/schemas/plots';
+import { plotKindLabels } from '@shared/schemas/labels';
 import type { MyPlotHolding } from '@shared/schemas/my-plot';
 import { Alert } from '@/components/ui/alert';
 import { buttonClasses } from '@/components/ui/button';

@@ -1,11 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { PlotTasksSchema } from '@shared/schemas/tasks';
 import { apiFetch } from '@/lib/api/client';
+import { PlotTasksShape } from '@/lib/api/response-shapes.gen';
 import { tasksKeys } from './keys';
 
 /** GET /api/plots/:plotId/tasks: the plot's open tasks grouped for its plot book, the last done ones and its handovers. */
 export function getPlotTasks(plotId: number, signal?: AbortSignal) {
-  return apiFetch(`/api/plots/${plotId}/tasks`, { schema: PlotTasksSchema, signal });
+  return apiFetch(`/api/plots/${plotId}/tasks`, { schema: PlotTasksShape, signal });
 }
 
 /** Query options for one plot's tasks. */

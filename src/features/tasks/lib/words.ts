@@ -1,4 +1,5 @@
-import { taskKinds, type TaskKind, type TaskView } from '@shared/schemas/tasks';
+import { taskKinds } from '@shared/schemas/labels';
+import type { TaskKind, TaskView } from '@shared/schemas/tasks';
 
 type TaskStatus = TaskView['status'];
 
