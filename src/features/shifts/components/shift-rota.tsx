@@ -135,7 +135,7 @@ export function ShiftRota({ clubId, clubName, timeZone, sites, isCoordinator }: 
         <div>
           <p className="text-sm font-semibold tracking-wide text-leaf uppercase">{clubName}</p>
           <h1 id="rota-title" className="text-2xl font-bold">
-            Shifts {rangeLabel(week.from, week.to)}
+            Shift rota, {rangeLabel(week.from, week.to)}
           </h1>
         </div>
         <p className="text-stone">
