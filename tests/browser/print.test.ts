@@ -119,7 +119,8 @@ describe('the printable site map', () => {
     const sitePx = (await svg.locator(':scope > rect').first().boundingBox())!.width;
     expect(barPx / sitePx).toBeCloseTo(5 / 34, 1); // computed: 5 / 34 ≈ 0.147 (strokes add a hair)
     const north = svg.getByTestId('north-arrow');
-    expect(await north.locator('svg.lucide-arrow-up').count()).toBe(1);
+    // The arrow is lucide's ArrowUp, an svg of its own inside the map's.
+    expect(await north.locator('svg').count()).toBe(1);
     expect(await north.locator('text').textContent()).toBe('N');
     const site = await db('sites').where({ id: lane.id }).first('time_zone');
     // The app's date style is "3 Dec 2026" (shared/dates), on the site's clock: built here from Intl's parts.
