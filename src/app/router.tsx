@@ -74,6 +74,10 @@ export const router = createBrowserRouter([
                 lazy: () => import('./routes/site-plots').then((m) => ({ Component: m.SitePlotsRoute })),
               },
               {
+                path: 'sites/:siteId/print',
+                lazy: () => import('./routes/site-print').then((m) => ({ Component: m.SitePrintRoute })),
+              },
+              {
                 path: 'sites/:siteId/weather',
                 lazy: () => import('./routes/weather').then((m) => ({ Component: m.WeatherRoute })),
               },
@@ -122,6 +126,7 @@ export const router = createBrowserRouter([
               },
               { path: 'my-plot', lazy: () => import('./routes/my-plot').then((m) => ({ Component: m.MyPlotRoute })) },
               { path: 'shifts', lazy: () => import('./routes/shifts').then((m) => ({ Component: m.ShiftsRoute })) },
+              { path: 'shifts/print', lazy: () => import('./routes/shifts-print').then((m) => ({ Component: m.ShiftsPrintRoute })) },
               { path: 'shifts/plan', lazy: () => import('./routes/shift-plan').then((m) => ({ Component: m.ShiftPlanRoute })) },
               { path: 'shifts/:shiftId', lazy: () => import('./routes/shift').then((m) => ({ Component: m.ShiftRoute })) },
               { path: 'my-shifts', lazy: () => import('./routes/my-shifts').then((m) => ({ Component: m.MyShiftsRoute })) },

@@ -9,6 +9,8 @@ export const paths = {
   sites: (clubId: number) => `/clubs/${clubId}/sites`,
   siteEdit: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/edit`,
   sitePlots: (clubId: number, siteId: number) => `/clubs/${clubId}/sites/${siteId}/plots`,
+  /** A site's printable map for the noticeboard; `query` carries the names choice ("?names=full"). */
+  sitePrint: (clubId: number, siteId: number, query = '') => `/clubs/${clubId}/sites/${siteId}/print${query}`,
   /** The coordinators' tasks for the club: opens the first site's tasks. */
   tasks: (clubId: number) => `/clubs/${clubId}/tasks`,
   /** A site's tasks table (coordinators); `query` carries its filters ("?kind=water"). */
@@ -47,6 +49,8 @@ export const paths = {
   renewalAnswer: (renewalId: number) => `/respond/renewal?renewal=${renewalId}`,
   /** The shift board (every member); `query` carries its choices ("?date=2026-07-06&site=3"). */
   shifts: (clubId: number, query = '') => `/clubs/${clubId}/shifts${query}`,
+  /** The printable rota of one week's shifts; `query` carries the board's choices ("?date=2026-07-06&site=3"). */
+  shiftsPrint: (clubId: number, query = '') => `/clubs/${clubId}/shifts/print${query}`,
   shift: (clubId: number, shiftId: number) => `/clubs/${clubId}/shifts/${shiftId}`,
   /** The coordinators' "Build shifts" from the suggestions. */
   shiftPlan: (clubId: number) => `/clubs/${clubId}/shifts/plan`,

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { rangeLabel, thisWeek } from '@/features/shifts/lib/dates';
 import { createDb } from '../../server/db/knex';
 import { testConfig } from '../helpers/app';
 import { axeViolations } from '../helpers/axe';
@@ -38,7 +39,10 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
     const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
     const lane = await db('sites').where({ club_id: club.id, name: 'Mossgate Lane' }).first('id');
     const shift = await db('shifts').where({ club_id: club.id }).where('starts_at', '>', new Date()).orderBy('starts_at').first('id', 'title');
+    const zone = (await db('clubs').where({ id: club.id }).first('time_zone')).time_zone;
     await db.destroy();
+    // The printed rota opens on this week at the club (its zone), titled with the week's dates.
+    const week = thisWeek(zone);
     const pages: Array<[string, string]> = [
       ['', 'Mossgate Community Garden Club'],
       ['/map', 'Map of Mossgate Lane'],
@@ -62,6 +66,8 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       ['/shifts/plan', 'Build shifts'],
       [`/shifts/${shift.id}`, shift.title],
       ['/hours', 'Volunteer hours'],
+      [`/sites/${lane.id}/print`, 'Mossgate Lane: site map'],
+      ['/shifts/print', `Shift rota, ${rangeLabel(week.from, week.to)}`],
     ];
     for (const width of [1280, 390]) {
       const w = await signInAsCoordinator(suite.browser, suite.server.url, width);
@@ -74,7 +80,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       expect(w.errors).toEqual([]);
       await w.page.context().close();
     }
-  }, 240_000); // twenty-two pages at two widths, each with an axe run
+  }, 300_000); // twenty-four pages at two widths, each with an axe run
 
   it("finds no violations on a plot holder's and a volunteer's pages, the home with its map included", async () => {
     const db = createDb(testConfig().databaseUrl);

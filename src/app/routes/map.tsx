@@ -1,4 +1,4 @@
-import { Map as MapIcon } from 'lucide-react';
+import { Map as MapIcon, Printer } from 'lucide-react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -61,6 +61,10 @@ export function MapRoute() {
             </Link>
             <Link to={paths.siteWater(club.clubId, site.id)} className="inline-flex min-h-11 items-center font-medium">
               Water
+            </Link>
+            <Link to={paths.sitePrint(club.clubId, site.id)} className="inline-flex min-h-11 items-center gap-1.5 font-medium">
+              <Printer className="size-5" aria-hidden="true" />
+              Print map
             </Link>
             {canEdit && (
               <>

@@ -103,7 +103,7 @@ export function AppLayout({
     <div className="flex min-h-dvh flex-col">
       <a
         href="#main"
-        className="sr-only rounded-lg bg-leaf px-4 py-3 text-white focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50"
+        className="no-print sr-only rounded-lg bg-leaf px-4 py-3 text-white focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50"
       >
         Skip to content
       </a>
@@ -111,7 +111,7 @@ export function AppLayout({
         This page is coming soon.
       </span>
 
-      <header className="border-b border-paper-200 bg-white">
+      <header className="no-print border-b border-paper-200 bg-white">
         <div className="mx-auto flex min-h-16 max-w-6xl items-center gap-4 px-4">
           <Link to={homeHref} className="rounded-lg no-underline" aria-label="Tillwell home">
             <Wordmark />

@@ -1,6 +1,6 @@
 import { lazy, Suspense, useId } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import { CalendarDays, CalendarPlus, ChevronLeft, ChevronRight, HandHelping, LayoutList, ListChecks } from 'lucide-react';
+import { CalendarDays, CalendarPlus, ChevronLeft, ChevronRight, HandHelping, LayoutList, ListChecks, Printer } from 'lucide-react';
 import { addCalendarDays, localToday } from '@shared/dates';
 import type { Shift } from '@shared/schemas/shifts';
 import { Badge } from '@/components/ui/badge';
@@ -130,6 +130,8 @@ export function ShiftBoard({ clubId, clubName, timeZone, sites, canClaim, isCoor
 
   const change = (next: Partial<BoardParams>) => setSearchParams(writeBoardParams(params, next, { today }), { replace: true });
   const filtered = Boolean(params.siteId || params.kind || params.open);
+  // The printed rota is always the list's week, with the same filters.
+  const printQuery = writeBoardParams(params, { view: 'list' }, { today }).toString();
 
   const header = (
     <>
@@ -152,6 +154,10 @@ export function ShiftBoard({ clubId, clubName, timeZone, sites, canClaim, isCoor
                 My shifts
               </Link>
             )}
+            <Link to={paths.shiftsPrint(clubId, printQuery ? `?${printQuery}` : '')} className={buttonClasses('secondary')}>
+              <Printer className="size-5" aria-hidden="true" />
+              Print this week
+            </Link>
           </>
         }
       />
