@@ -17,6 +17,9 @@ export default defineConfig({
     outDir: 'dist',
     sourcemap: true,
     manifest: true,
+    // Every browser the product supports preloads modules natively (Chrome 66, Firefox 115, Safari 17):
+    // no polyfill in the first page's script.
+    modulePreload: { polyfill: false },
     rollupOptions: { treeshake: { manualPureFunctions: ['z'] } },
   },
   server: {

@@ -12,6 +12,7 @@ import { ClubSettingsSchema } from '../shared/schemas/clubs';
 import { pageSchema } from '../shared/schemas/common';
 import { MyFeesListSchema } from '../shared/schemas/fees';
 import { MyPlotSchema } from '../shared/schemas/my-plot';
+import { PlotBookSchema } from '../shared/schemas/plot-book';
 import { PlotSchema } from '../shared/schemas/plots';
 import { PlotTasksSchema } from '../shared/schemas/tasks';
 
@@ -28,6 +29,12 @@ const SHAPES: Record<string, { schema: z.ZodType; type: string; imports: string 
   },
   PlotTasksShape: { schema: PlotTasksSchema, type: 'PlotTasks', imports: "import type { PlotTasks } from '@shared/schemas/tasks';" },
   MyPlotShape: { schema: MyPlotSchema, type: 'MyPlot', imports: "import type { MyPlot } from '@shared/schemas/my-plot';" },
+  // The holder's home counts the neighbour check's findings from the plot book: only their severities.
+  PlotBookSeveritiesShape: {
+    schema: z.object({ findings: z.array(PlotBookSchema.shape.findings.element.pick({ severity: true })) }),
+    type: "{ findings: Array<{ severity: PlotBook['findings'][number]['severity'] }> }",
+    imports: "import type { PlotBook } from '@shared/schemas/plot-book';",
+  },
   MyFeesListShape: { schema: MyFeesListSchema, type: 'z.output<typeof MyFeesListSchema>', imports: "import type { MyFeesListSchema } from '@shared/schemas/fees';\nimport type { z } from 'zod';" },
 };
 

@@ -2,13 +2,14 @@ import { lazy, Suspense } from 'react';
 import { ClubHome } from '@/features/clubs/components/club-home';
 import { MyFees } from '@/features/fees/components/my-fees';
 import { MyPlot } from '@/features/plots/components/my-plot';
-import { VolunteerWeek } from '@/features/shifts/components/volunteer-week';
 import { ThisWeekLine } from '@/features/tasks/components/this-week-line';
 import { useClubContext } from '../app-context';
 
 // Coordinators' pictures and a holder's findings line load in chunks of their own, so a first page
 // that does not need them stays light.
 const SeasonGlance = lazy(() => import('@/features/season-summary/components/season-glance').then((m) => ({ default: m.SeasonGlance })));
+// A volunteer's week reads the shifts API (checked with zod): its own chunk, so a holder's first page stays light.
+const VolunteerWeek = lazy(() => import('@/features/shifts/components/volunteer-week').then((m) => ({ default: m.VolunteerWeek })));
 const FindingsLine = lazy(() => import('@/features/plot-book/components/findings-line').then((m) => ({ default: m.FindingsLine })));
 
 /** `/clubs/:clubId`: the club's home page. */
@@ -26,7 +27,11 @@ export function ClubHomeRoute() {
               <SeasonGlance clubId={clubId} />
             </Suspense>
           ),
-          volunteer: <VolunteerWeek clubId={clubId} />,
+          volunteer: (
+            <Suspense fallback={null}>
+              <VolunteerWeek clubId={clubId} />
+            </Suspense>
+          ),
         }}
       >
         {club.roles.includes('plot_holder') && (

@@ -2,11 +2,11 @@ import { Link } from 'react-router-dom';
 import { Sprout } from 'lucide-react';
 import { plural } from '@/lib/format';
 import { paths } from '@/lib/paths';
-import { usePlotBook } from '../api/get-plot-book';
+import { useFindingSeverities } from '../api/get-finding-severities';
 
 /** "Neighbour check: 1 clash, 2 to watch" for the holder's plot this season, with a link to the plot book; nothing until it has answered. */
 export function FindingsLine({ clubId, plotId }: { clubId: number; plotId: number }) {
-  const book = usePlotBook(plotId);
+  const book = useFindingSeverities(plotId);
   if (!book.isSuccess) return null;
   const clashes = book.data.findings.filter((f) => f.severity === 'clash').length;
   const watch = book.data.findings.filter((f) => f.severity === 'watch').length;
