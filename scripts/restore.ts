@@ -1,3 +1,4 @@
+import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -61,9 +62,29 @@ async function main(): Promise<number> {
         }
         console.log(`Restoring ${file} (made ${manifest.createdAt}) into ${local.where}${force && present.length > 0 ? ', replacing what is there (--force)' : ''}…`);
 
-        const args = ['--format=custom', '--no-owner', '--no-privileges', '--exit-on-error', '--single-transaction', '--no-password'];
-        if (force) args.push('--clean', '--if-exists');
-        const res = runPgTool(pgTool('pg_restore'), config.databaseUrl, [...args, dumpFile]);
+        let res;
+        if (force && present.length > 0) {
+          // pg_restore --clean cannot drop pg-boss's partitioned tables one constraint at a time, so the
+          // replacement is one psql transaction: drop the schemas that hold tables, then the dump's script.
+          const script = path.join(staging, 'restore.sql');
+          const made = spawnSync(pgTool('pg_restore'), ['--format=custom', '--no-owner', '--no-privileges', '--file', script, dumpFile], { encoding: 'utf8' });
+          if (made.status !== 0) {
+            console.error(`pg_restore could not read the dump (exit ${made.status}):\n${made.stderr.trim()}`);
+            return 1;
+          }
+          const body = fs.readFileSync(script, 'utf8');
+          const schemas = [...new Set(present.map((t) => t.split('.')[0]))];
+          const before = [
+            'set client_min_messages = warning;',
+            ...schemas.map((name) => `drop schema if exists "${name.replace(/"/g, '""')}" cascade;`),
+            /^CREATE SCHEMA public;/m.test(body) ? '' : 'create schema public;',
+          ].join('\n');
+          fs.writeFileSync(script, `${before}\n${body}`);
+          res = runPgTool(pgTool('psql'), config.databaseUrl, ['--no-psqlrc', '--quiet', '--single-transaction', '--set', 'ON_ERROR_STOP=1', '--no-password', '--output', '/dev/null', '--file', script]);
+        } else {
+          const args = ['--format=custom', '--no-owner', '--no-privileges', '--exit-on-error', '--single-transaction', '--no-password'];
+          res = runPgTool(pgTool('pg_restore'), config.databaseUrl, [...args, dumpFile]);
+        }
         if (res.status !== 0) {
           console.error(`pg_restore failed (exit ${res.status}); its transaction was rolled back:\n${res.stderr.trim()}`);
           return 1;

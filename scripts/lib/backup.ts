@@ -27,7 +27,7 @@ export interface Manifest {
 }
 
 /** A PostgreSQL client tool (pg_dump, pg_restore) from the same Debian install `npm start` uses. */
-export function pgTool(tool: 'pg_dump' | 'pg_restore'): string {
+export function pgTool(tool: 'pg_dump' | 'pg_restore' | 'psql'): string {
   const dir = findPgBinDir();
   const bin = dir ? path.join(dir, tool) : null;
   if (!bin || !fs.existsSync(bin)) {

@@ -13,5 +13,13 @@ export function mailTemplatesRouter({ db }: Deps): Router {
   router.get('/:name/preview', async (req, res) => {
     res.json(await previewMailTemplate(db, { clubId: req.clubId!, name: String(req.params.name) }));
   });
+  // The HTML part as a page of its own, for the preview's iframe: e-mail HTML carries its styles inline,
+  // which the app's policy (style-src 'self') refuses, so this answer has its own policy: inline styles
+  // and data: images only, no scripts, no requests, sandboxed.
+  router.get('/:name/preview.html', async (req, res) => {
+    const preview = await previewMailTemplate(db, { clubId: req.clubId!, name: String(req.params.name) });
+    res.setHeader('Content-Security-Policy', "default-src 'none'; style-src 'unsafe-inline'; img-src data:; frame-ancestors 'self'; sandbox");
+    res.type('html').send(preview.html);
+  });
   return router;
 }

@@ -124,6 +124,7 @@ export const AUTHORIZATION_TABLE: Record<string, TableEntry> = {
   'GET /api/clubs/:clubId/season-summary': coordinator,
   'GET /api/clubs/:clubId/mail-templates': coordinator,
   'GET /api/clubs/:clubId/mail-templates/:name/preview': coordinator,
+  'GET /api/clubs/:clubId/mail-templates/:name/preview.html': coordinator,
   // Seasons, offers, renewals
   'GET /api/clubs/:clubId/seasons': member,
   'GET /api/clubs/:clubId/seasons/opening-preview': coordinator,

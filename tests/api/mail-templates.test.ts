@@ -109,7 +109,7 @@ describe('every template', () => {
     const volunteer = await signedInMember(t, club.id, ['volunteer']);
     const other = await clubWithSite('Other Growers');
     const anon = await browserLikeAgent(t.app);
-    const paths = ['', '/offer/preview'].map((p) => `/api/clubs/${club.id}/mail-templates${p}`);
+    const paths = ['', '/offer/preview', '/offer/preview.html'].map((p) => `/api/clubs/${club.id}/mail-templates${p}`);
     for (const path of paths) {
       expect((await coordinator.get(path)).status, path).toBe(200);
       expect((await holder.get(path)).status, path).toBe(403);
@@ -118,6 +118,21 @@ describe('every template', () => {
       expect((await other.coordinator.get(path)).status, path).toBe(403);
       expect((await anon.get(path)).status, path).toBe(401);
     }
+  });
+});
+
+describe('the preview page', () => {
+  it('serves the HTML part with a policy of its own: inline styles apply, no script or request may run', async () => {
+    const { club, coordinator } = await clubWithSite();
+    const json = await coordinator.get(`/api/clubs/${club.id}/mail-templates/club_news/preview`).expect(200);
+    const page = await coordinator.get(`/api/clubs/${club.id}/mail-templates/club_news/preview.html`).expect(200);
+    expect(page.headers['content-type']).toMatch(/^text\/html/);
+    expect(page.text).toBe(json.body.html);
+    const csp = String(page.headers['content-security-policy']);
+    expect(csp).toContain("default-src 'none'");
+    expect(csp).toContain("style-src 'unsafe-inline'");
+    expect(csp).toContain('sandbox');
+    expect(csp).not.toMatch(/script-src/); // falls back to default-src 'none'
   });
 });
 

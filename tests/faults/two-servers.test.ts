@@ -6,7 +6,11 @@ import { newToken } from '../../server/services/tokens';
 import { buildApplication, buildClub, buildMember } from '../factories';
 import { mailUrl, truncateAll } from '../helpers/app';
 import { extractLink, listMail, waitForMail } from '../helpers/inbox';
-import { CookieClient, runningServerPids, startServerProcess, stopAllServerProcesses, type ServerProcess } from '../helpers/server-process';
+import { CookieClient, runningServerPids, SHARED_SESSION_SECRET, startServerProcess, stopAllServerProcesses, type ServerProcess } from '../helpers/server-process';
+import { useMailSealSecret } from '../../server/mail/seal';
+
+// Mail this test puts in the outbox is sealed under the servers' key, as their own requests would seal it.
+useMailSealSecret(SHARED_SESSION_SECRET);
 
 // Two real server processes (server/index.ts) on one database and one session secret, as behind a
 // load balancer. Everything a person does may land on either; the jobs run in both.

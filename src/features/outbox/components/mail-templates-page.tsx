@@ -81,7 +81,8 @@ export function MailTemplatesPage({ clubId, clubName }: MailTemplatesPageProps) 
               <PageSection id="html-part" title="As most mail programs show it">
                 <iframe
                   title={`Preview of ${chosen?.label ?? 'the e-mail'}`}
-                  srcDoc={preview.data.html}
+                  // Its own address, served with a policy that lets e-mail's inline styles apply (a srcdoc frame would take the app's).
+                  src={`/api/clubs/${clubId}/mail-templates/${encodeURIComponent(chosen?.name ?? '')}/preview.html`}
                   sandbox=""
                   className="h-[36rem] w-full rounded-xl border border-paper-200 bg-white"
                 />

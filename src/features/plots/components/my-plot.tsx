@@ -84,7 +84,6 @@ export function MyPlot({ clubId, thisWeek }: MyPlotProps) {
                   <dd>{mine.data.holding.seasonYear}</dd>
                 </dl>
               </div>
-              {thisWeek?.(mine.data.holding.plotId)}
               <div className="flex flex-col gap-3 sm:flex-row">
                 <Link to={paths.plotBook(clubId, mine.data.holding.plotId)} className={`${buttonClasses('primary')} w-full sm:w-auto`}>
                   <BookOpen className="size-5" aria-hidden="true" />
@@ -96,6 +95,8 @@ export function MyPlot({ clubId, thisWeek }: MyPlotProps) {
                 </Link>
               </div>
               <HoldingMap holding={mine.data.holding} />
+              {/* Below the map: these lines arrive after it (their own requests), and must not push it down while someone pans it. */}
+              {thisWeek?.(mine.data.holding.plotId)}
             </Card>
           ) : (
             <p className="text-stone">You have no plot in this club yet. When the coordinator gives you one, it shows here.</p>
