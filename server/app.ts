@@ -8,6 +8,7 @@ import { pino } from 'pino';
 import type { AppDeps, Deps } from './deps';
 import { createStorage } from './storage';
 import { useMailSealSecret } from './mail/seal';
+import { AnswerCache } from './cache/answer-cache';
 import { requireCsrf } from './middleware/csrf';
 import { requestLog } from './middleware/request-log';
 import { createSessionStore } from './middleware/session-store';
@@ -52,6 +53,7 @@ export interface BuiltApp {
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 export function createApp(input: AppDeps): BuiltApp {
+  const answers = new AnswerCache(32 * 1024 * 1024);
   const { config } = input;
   const deps: Deps = { ...input, storage: input.storage ?? createStorage(config) };
   // The outbox seals mail bodies under a key derived from the session secret (server/mail/seal.ts).
@@ -120,6 +122,20 @@ export function createApp(input: AppDeps): BuiltApp {
   // Stop links of optional mail: the token is the key, and mail providers' one-click POST carries no CSRF token.
   app.use('/api/mail-stops', mailStopsRouter(deps));
   app.use('/api', requireCsrf(config.sessionSecret));
+  // The reads every page of the map and the boards make, reused per person while the database is unchanged.
+  app.get(
+    [
+      '/api/sites/:siteId/plots',
+      '/api/sites/:siteId/neighbours',
+      '/api/sites/:siteId/findings',
+      '/api/seasons/:seasonId/plot-states',
+      '/api/clubs/:clubId/findings',
+      '/api/clubs/:clubId/shifts',
+      '/api/clubs/:clubId/my-plot',
+      '/api/clubs/:clubId/season-summary',
+    ],
+    answers.middleware(),
+  );
   app.use('/api/session', sessionRouter(deps));
   app.use('/api/password-resets', passwordResetsRouter(deps));
   app.use('/api/invites', inviteLinksRouter(deps));

@@ -18,6 +18,8 @@ declare global {
       clubRoles?: Role[];
       /** The signed-in person's roles per club id, read with the session (see session-store.ts). */
       memberships?: Record<string, Role[]>;
+      /** The database's transaction snapshot when the session was read: AnswerCache's stamp. */
+      dbStamp?: string;
       /** The columns requireRoleVia's lookup selected for the record (its club_id, a cache stamp). */
       via?: Record<string, unknown>;
       /** The request's id (X-Request-Id), set by requestLog. */

@@ -5,16 +5,19 @@ import type pg from 'pg';
 import type { Role } from '@shared/schemas/auth';
 
 const MEMBERSHIPS = '__memberships';
+const STAMP = '__stamp';
 
 // The session row and the person's roles in every club in one query: the role check that follows
-// on nearly every request then needs no query of its own.
+// on nearly every request then needs no query of its own. The transaction snapshot comes with it, as
+// the stamp of the answers AnswerCache (server/cache/answer-cache.ts) reuses.
 const GET_SQL = `
   select s.sess,
          coalesce((select json_object_agg(x.club_id, x.roles)
                      from (select m.club_id, array_agg(m.role order by m.role) as roles
                              from memberships m
                             where m.user_id = (s.sess->>'userId')::int
-                            group by m.club_id) x), '{}'::json) as memberships
+                            group by m.club_id) x), '{}'::json) as memberships,
+         pg_current_snapshot()::text as stamp
     from session s
    where s.sid = $1 and s.expire >= now()`;
 
@@ -35,7 +38,7 @@ export function createSessionStore(opts: { pool: pg.Pool; errorLog: (...args: un
           const row = r.rows[0];
           if (!row) return fn(null, null);
           const sess = typeof row.sess === 'string' ? JSON.parse(row.sess) : row.sess;
-          fn(null, { ...sess, [MEMBERSHIPS]: row.memberships });
+          fn(null, { ...sess, [MEMBERSHIPS]: row.memberships, [STAMP]: row.stamp });
         },
         (err) => fn(err),
       );
@@ -56,7 +59,9 @@ export function createSessionStore(opts: { pool: pg.Pool; errorLog: (...args: un
     override createSession(req: Express.Request, sess: session.SessionData) {
       const bag = sess as unknown as Record<string, unknown>;
       req.memberships = (bag[MEMBERSHIPS] as Record<string, Role[]> | undefined) ?? undefined;
+      req.dbStamp = bag[STAMP] as string | undefined;
       delete bag[MEMBERSHIPS];
+      delete bag[STAMP];
       return super.createSession(req as never, sess);
     }
   }
