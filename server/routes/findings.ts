@@ -20,7 +20,7 @@ export function findingsRouter({ db }: Deps): Router {
   router.post('/plots/:plotId/plantings/check', requireUser, async (req, res) => {
     const plotId = idParam(req, 'plotId');
     const body = parseInput(PlantingCheckBodySchema, req.body);
-    res.json({ findings: await checkPlantingDraft(db, { plotId, userId: req.session.userId!, body }) });
+    res.json({ findings: await checkPlantingDraft(db, { plotId, userId: req.session.userId!, body, stamp: req.dbStamp }) });
   });
 
   router.get('/plots/:plotId/what-fits', requireUser, async (req, res) => {

@@ -10,7 +10,7 @@ import { assertPartInside, currentSeason, plotBookAccess } from './plot-book';
 // coordinators only. A finding names the neighbouring plot and crop, never the person who holds it.
 
 /** The findings a planting would have as the form now holds it, by the same rules as the saved check. */
-export async function checkPlantingDraft(db: Db, opts: { plotId: number; userId: number; body: PlantingCheckBody; now?: Date }): Promise<FindingView[]> {
+export async function checkPlantingDraft(db: Db, opts: { plotId: number; userId: number; body: PlantingCheckBody; now?: Date; stamp?: string }): Promise<FindingView[]> {
   const access = await plotBookAccess(db, { plotId: opts.plotId, userId: opts.userId, write: true, now: opts.now });
   if (!access.season) throw new AppError('conflict', 'The club has no season yet; plantings belong to a season.');
   const b = opts.body;
@@ -30,7 +30,7 @@ export async function checkPlantingDraft(db: Db, opts: { plotId: number; userId:
     method: b.method,
     plantedOn: b.plantedOn,
     status: b.status,
-  });
+  }, opts.stamp);
   return findings.map((f) => ({ ...f, keptReason: f.severity === 'clash' ? (b.keepReason ?? null) : null }));
 }
 

@@ -417,11 +417,35 @@ export async function listFindings(
 }
 
 /** A draft planting's findings, by the same rules and data as the saved check. */
-export async function dryRun(db: Db, siteId: number, draft: CheckPlanting): Promise<Finding[]> {
-  const ctx = await loadCheckContext(db, siteId, { plotIds: [draft.plotId], rings: 1 });
+/**
+ * A plot's check context (its site, the plots within one ring, their plantings and the crop notes), kept per
+ * process under the database's transaction snapshot read with the session (see AnswerCache): while a holder
+ * edits a draft, each dry run re-reads nothing unless something in the database changed meanwhile.
+ */
+const contextCache = new Map<string, { stamp: string; ctx: Awaited<ReturnType<typeof loadCheckContext>>; prepared: ReturnType<typeof prepare> }>();
+const CONTEXT_CACHE_PLOTS = 200;
+
+async function plotContext(db: Db, siteId: number, plotId: number, stamp: string | undefined) {
+  const key = `${siteId}:${plotId}`;
+  const hit = stamp ? contextCache.get(key) : undefined;
+  // Each check gets its own memo of growing windows (keyed by planting object, drafts are new each time).
+  if (hit && hit.stamp === stamp) return { ctx: hit.ctx, prepared: { ...hit.prepared, windows: new Map() } };
+  const ctx = await loadCheckContext(db, siteId, { plotIds: [plotId], rings: 1 });
+  const prepared = prepare(ctx);
+  if (stamp) {
+    contextCache.delete(key);
+    contextCache.set(key, { stamp, ctx, prepared });
+    if (contextCache.size > CONTEXT_CACHE_PLOTS) contextCache.delete(contextCache.keys().next().value!);
+  }
+  return { ctx, prepared: { ...prepared, windows: new Map() } };
+}
+
+/** `stamp`: the transaction snapshot read before this request's other queries (req.dbStamp), if any. */
+export async function dryRun(db: Db, siteId: number, draft: CheckPlanting, stamp?: string): Promise<Finding[]> {
+  const { ctx, prepared } = await plotContext(db, siteId, draft.plotId, stamp);
   // The club's crop notes are in the context: a crop outside them is the same 400 as on saving.
   if (!ctx.crops.has(draft.cropId)) throw new AppError('validation_failed', 'That crop is not in the crop notes.', { cropId: 'Choose a crop from the crop notes' });
-  return checkDraft(prepare(ctx), draft);
+  return checkDraft(prepared, draft);
 }
 
 /** Every crop of the club tried on a plot (or part) on a date, best first. */

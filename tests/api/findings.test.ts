@@ -64,6 +64,17 @@ describe('a planting against last year’s family', () => {
     expect(await t.db('findings').count({ n: '*' })).toEqual([{ n: 0 }]);
   });
 
+  it('a repeated dry run reuses its reading of the plot until the database changes, then sees the change', async () => {
+    const s = await club();
+    const rotations = async () =>
+      (await s.hana.post(`/api/plots/${s.a1}/plantings/check`, tomatoBody(s)).expect(200)).body.findings.filter((f: { kind: string }) => f.kind === 'rotation');
+    expect(await rotations()).toHaveLength(1);
+    expect(await rotations()).toHaveLength(1);
+    // Another server removes last year's potatoes: the next dry run no longer finds the family clash.
+    await t.db('plantings').where({ plot_id: s.a1 }).del();
+    expect(await rotations()).toEqual([]);
+  });
+
   it('refuses to save the clash without a reason (409 on keepReason, nothing kept), saves it with one, and the saved check equals the dry run', async () => {
     const s = await club();
     const refused = await s.hana.post(`/api/plots/${s.a1}/plantings`, tomatoBody(s)).expect(409);
@@ -234,9 +245,14 @@ describe('queries', () => {
       t.db.removeListener('query', listen);
       return n;
     };
-    // The first check reads the crop data into the process's cache; count from the second.
+    // The first check reads the crop data into the process's cache; count from the second. Between checks
+    // the snapshot is moved (txid_current() takes a transaction id, as any write does), so each reads the plot afresh.
+    const moveSnapshot = () => t.db.raw('select txid_current()');
     await count();
+    await moveSnapshot();
     const few = await count();
+    // Straight after, with nothing changed, the plot's reading is reused: fewer queries.
+    expect(await count()).toBeLessThan(few);
     await t.db('plots').insert(Array.from({ length: 37 }, (_, i) => ({ site_id: s.siteId, label: `B-${i}`, x_m: 4 + (i % 4) * 3.5, y_m: Math.floor(i / 4) * 2, width_m: 3, length_m: 1.5 })));
     expect(await count()).toBe(few);
   });
