@@ -97,7 +97,7 @@ function GlanceCard({ title, href, linkText, children }: { title: string; href: 
         {title}
       </h3>
       <div className="mt-3 flex-1 space-y-3">{children}</div>
-      <Link to={href} className="mt-4 self-start font-semibold text-water underline-offset-2 hover:underline">
+      <Link to={href} className="mt-4 inline-flex min-h-11 items-center self-start font-semibold text-water underline-offset-2 hover:underline">
         {linkText}
       </Link>
     </li>
@@ -120,7 +120,7 @@ function PlotsCard({ clubId, summary }: { clubId: number; summary: SeasonSummary
         return (
           <div key={site.siteId} className="space-y-1" data-testid={`glance-site-${site.siteId}`}>
             <p className="flex flex-wrap items-baseline justify-between gap-x-2">
-              <Link to={paths.map(clubId, site.siteId)} className="font-semibold text-water underline-offset-2 hover:underline">
+              <Link to={paths.map(clubId, site.siteId)} className="inline-flex min-h-11 items-center font-semibold text-water underline-offset-2 hover:underline">
                 {site.name}
               </Link>
               <span className="text-sm text-stone">{plural(total, 'plot')}</span>
@@ -195,7 +195,7 @@ function ShiftsCard({ clubId, summary }: { clubId: number; summary: SeasonSummar
           return (
             <li key={week.weekStart} className="space-y-1" data-testid={`glance-week-${week.weekStart}`}>
               <p className="flex flex-wrap items-baseline justify-between gap-x-2">
-                <Link to={paths.shifts(clubId, `?date=${week.weekStart}`)} className="font-semibold text-water underline-offset-2 hover:underline">
+                <Link to={paths.shifts(clubId, `?date=${week.weekStart}`)} className="inline-flex min-h-11 items-center font-semibold text-water underline-offset-2 hover:underline">
                   {weekName(week, i)}
                 </Link>
                 <span className="text-sm">{week.places === 0 ? 'No shifts' : `${week.taken} of ${week.places} places`}</span>
@@ -230,7 +230,7 @@ function FindingsCard({ clubId, summary }: { clubId: number; summary: SeasonSumm
       <ul className="space-y-2">
         {summary.findings.map((f) => (
           <li key={f.kind} className="grid grid-cols-[minmax(0,8rem)_1fr_auto] items-center gap-2" data-testid={`glance-finding-${f.kind}`}>
-            <Link to={`${paths.findings(clubId)}?kind=${f.kind}`} className="truncate text-water underline-offset-2 hover:underline">
+            <Link to={`${paths.findings(clubId)}?kind=${f.kind}`} className="inline-block min-h-11 truncate py-2.5 text-water underline-offset-2 hover:underline">
               {kindLabels[f.kind]}
             </Link>
             <Bar label={`${kindLabels[f.kind]}: ${plural(f.count, 'finding')}`} total={most} height={12} parts={[{ value: f.count, fill: 'hatch' }]} />

@@ -97,7 +97,7 @@ function columnsFor(opts: {
       sortingFn: (a, b) => whereWords(a.original).localeCompare(whereWords(b.original), 'en', { numeric: true }),
       cell: ({ row }) =>
         row.original.plotId ? (
-          <Link to={paths.plotBookTasks(clubId, row.original.plotId)} className="inline-flex min-h-11 items-center font-semibold whitespace-nowrap sm:min-h-0">
+          <Link to={paths.plotBookTasks(clubId, row.original.plotId)} className="inline-flex min-h-11 min-w-11 items-center font-semibold whitespace-nowrap">
             {row.original.plotLabel}
           </Link>
         ) : (
