@@ -240,6 +240,31 @@ describe('every page, as every role that may see it, at desktop and phone width'
     expect(routerPatterns(sample)).toEqual(['/', '/*', '/a', '/a/b']);
   });
 
+  it('moves focus to the new page heading on a route change, and a dialog keeps and then returns focus', async () => {
+    const ids = await loadIds();
+    const w = await signInAs(suite.browser, suite.server.url, PERSON.coordinator, 1280);
+    await w.page.locator('h1').first().waitFor();
+    await w.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sites' }).click();
+    await w.page.getByRole('heading', { level: 1, name: 'Sites' }).waitFor();
+    await expect.poll(() => w.page.evaluate(() => `${document.activeElement?.tagName} ${document.activeElement?.textContent}`)).toBe('H1 Sites');
+
+    await w.page.goto(`${suite.server.url}/clubs/${ids.club}/shifts/plan`);
+    const opener = w.page.getByRole('button', { name: 'Add a shift of your own' }).first();
+    await opener.click();
+    const dialog = w.page.getByRole('dialog', { name: 'Add a shift of your own' });
+    await dialog.waitFor();
+    // Tab through more stops than the dialog has: focus never leaves it (the native modal <dialog> makes the rest inert).
+    for (let i = 0; i < 15; i++) {
+      await w.page.keyboard.press('Tab');
+      expect(await w.page.evaluate(() => !!document.activeElement?.closest('dialog[open]') || document.activeElement === document.body)).toBe(true);
+    }
+    await w.page.keyboard.press('Escape');
+    await dialog.waitFor({ state: 'hidden' });
+    await expect.poll(() => w.page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Add a shift of your own');
+    expect(w.errors).toEqual([]);
+    await w.page.context().close();
+  }, 60_000);
+
   const roles: Role[] = ['anonymous', 'volunteer', 'plot-holder', 'coordinator'];
   for (const width of [1280, 390]) {
     for (const role of roles) {

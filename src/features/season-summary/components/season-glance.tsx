@@ -5,10 +5,11 @@ import { formatWeight } from '@shared/plot-book';
 import type { findingKinds } from '@shared/schemas/findings';
 import type { SeasonSummary, SiteSummary, WeekCoverage } from '@shared/schemas/season-summary';
 import { Alert } from '@/components/ui/alert';
-import { Spinner } from '@/components/ui/spinner';
+import { LoadingState } from '@/components/ui/spinner';
 import { plural } from '@/lib/format';
 import { paths } from '@/lib/paths';
 import { useSeasonSummary } from '../api/get-season-summary';
+import { palette } from '@/lib/palette';
 
 // The coordinator's season in pictures. Every picture is a plain SVG of bars drawn in percentages (so
 // it fits any width), named by its <title>; the same numbers are always written out beside it, and
@@ -27,20 +28,20 @@ function Patterns({ prefix }: { prefix: string }) {
   return (
     <defs>
       <pattern id={`${prefix}-hatch`} width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-        <rect width="6" height="6" fill="#e7f0f5" />
-        <rect width="3" height="6" fill="#2e6b8c" />
+        <rect width="6" height="6" fill={palette.water[50]} />
+        <rect width="3" height="6" fill={palette.water.DEFAULT} />
       </pattern>
       <pattern id={`${prefix}-dots`} width="6" height="6" patternUnits="userSpaceOnUse">
-        <rect width="6" height="6" fill="#faece7" />
-        <circle cx="3" cy="3" r="1.6" fill="#8e3f2b" />
+        <rect width="6" height="6" fill={palette.clay[50]} />
+        <circle cx="3" cy="3" r="1.6" fill={palette.clay[700]} />
       </pattern>
     </defs>
   );
 }
 
 function fillOf(fill: Fill, prefix: string): string {
-  if (fill === 'solid') return '#2f6b3b';
-  if (fill === 'empty') return '#ffffff';
+  if (fill === 'solid') return palette.leaf.DEFAULT;
+  if (fill === 'empty') return palette.white;
   return `url(#${prefix}-${fill})`;
 }
 
@@ -56,7 +57,7 @@ function Bar({ parts, total, label, height = 16 }: { parts: Part[]; total: numbe
     <svg role="img" aria-labelledby={`${prefix}-title`} width="100%" height={height} className="block rounded-sm border border-stone">
       <title id={`${prefix}-title`}>{label}</title>
       <Patterns prefix={prefix} />
-      <rect x="0" y="0" width="100%" height={height} fill="#ffffff" />
+      <rect x="0" y="0" width="100%" height={height} fill={palette.white} />
       {total > 0 &&
         parts.map((part, i) => {
           if (part.value <= 0) return null;
@@ -70,7 +71,7 @@ function Bar({ parts, total, label, height = 16 }: { parts: Part[]; total: numbe
         parts.slice(0, -1).reduce<{ at: number; lines: ReactNode[] }>(
           (acc, part, i) => {
             const at = acc.at + Math.max(0, part.value);
-            if (part.value > 0 && at < total) acc.lines.push(<rect key={i} x={`${(at / total) * 100}%`} y="0" width="2" height={height} fill="#ffffff" />);
+            if (part.value > 0 && at < total) acc.lines.push(<rect key={i} x={`${(at / total) * 100}%`} y="0" width="2" height={height} fill={palette.white} />);
             return { at, lines: acc.lines };
           },
           { at: 0, lines: [] },
@@ -85,7 +86,7 @@ function Swatch({ fill }: { fill: Fill }) {
   return (
     <svg aria-hidden="true" width="14" height="14" className="inline-block shrink-0 align-[-2px]">
       <Patterns prefix={prefix} />
-      <rect x="0.5" y="0.5" width="13" height="13" rx="2" fill={fillOf(fill, prefix)} stroke="#6f695f" />
+      <rect x="0.5" y="0.5" width="13" height="13" rx="2" fill={fillOf(fill, prefix)} stroke={palette.stone.DEFAULT} />
     </svg>
   );
 }
@@ -268,9 +269,9 @@ export function SeasonGlance({ clubId }: SeasonGlanceProps) {
   const summary = useSeasonSummary(clubId);
   if (summary.isPending) {
     return (
-      <p className="mb-4 flex items-center gap-2 text-stone" role="status">
-        <Spinner className="size-5" /> Loading the season at a glance…
-      </p>
+      <div className="mb-4">
+        <LoadingState inline label="Loading the season at a glance…" />
+      </div>
     );
   }
   if (summary.isError) return <Alert tone="error">The season at a glance didn't load. {summary.error.message}</Alert>;
