@@ -86,7 +86,7 @@ export function ShiftRota({ clubId, clubName, timeZone, sites, isCoordinator }: 
                 {dayHeading(g.date)}
               </h2>
               {/* On a phone the sheet's table scrolls in its own box; the page itself stays the screen's width. */}
-              <div className="overflow-x-auto">
+              <div className="overflow-x-auto" tabIndex={0} role="region" aria-labelledby={`rota-${g.date}`}>
                 <table className="w-full border-collapse text-left text-sm">
                 <thead>
                   <tr className="border-b-2 border-soil">

@@ -41,7 +41,7 @@ export function VolunteerWeek({ clubId }: { clubId: number }) {
           <ul className="space-y-1 text-sm">
             {openShifts.slice(0, 3).map((s) => (
               <li key={s.id}>
-                <Link to={paths.shift(clubId, s.id)} className="text-water underline underline-offset-2">
+                <Link to={paths.shift(clubId, s.id)} className="inline-block py-3 text-water underline underline-offset-2">
                   {s.title}
                 </Link>{' '}
                 · {shiftWhen(s)} · {s.capacity - s.taken} of {plural(s.capacity, 'place')} open
