@@ -18,8 +18,8 @@ function Findings() {
   const seasons = useSeasons(club.clubId);
   const sites = useSites(club.clubId);
   if (seasons.isPending || sites.isPending) return <LoadingState label="Loading the neighbour check…" />;
-  if (seasons.isError) return <ErrorState title="The seasons could not be loaded" message={seasons.error.message} onRetry={() => void seasons.refetch()} />;
-  if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
+  if (seasons.isError) return <ErrorState headingLevel="h1" title="The seasons could not be loaded" message={seasons.error.message} onRetry={() => void seasons.refetch()} />;
+  if (sites.isError) return <ErrorState headingLevel="h1" title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
   return (
     <FindingsPage
       clubId={club.clubId}

@@ -32,7 +32,7 @@ export function MapRoute() {
   });
 
   if (sites.isPending) return <LoadingState label="Loading the sites…" />;
-  if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
+  if (sites.isError) return <ErrorState headingLevel="h1" title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} />;
   const items = sites.data.items;
   if (items.length === 0) {
     return (

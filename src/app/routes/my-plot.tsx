@@ -12,7 +12,7 @@ export function MyPlotRoute() {
   const { club } = useClubContext();
   const mine = useMyPlot(club.clubId);
   if (mine.isPending) return <LoadingState label="Finding your plot…" />;
-  if (mine.isError) return <ErrorState message={mine.error.message} onRetry={() => void mine.refetch()} retrying={mine.isFetching} />;
+  if (mine.isError) return <ErrorState headingLevel="h1" message={mine.error.message} onRetry={() => void mine.refetch()} retrying={mine.isFetching} />;
   if (!mine.data.holding) {
     return (
       <DeadEnd clubId={club.clubId} icon={Shovel} title="No plot yet">

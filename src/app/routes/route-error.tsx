@@ -10,6 +10,7 @@ export function RouteError() {
   return (
     <FullPage>
       <ErrorState
+        headingLevel="h1"
         title="Something went wrong"
         message="This page hit a snag. Reloading usually sorts it out."
         onRetry={() => window.location.reload()}

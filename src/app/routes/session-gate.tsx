@@ -13,6 +13,7 @@ export function SessionGate({ children }: { children: (session: SessionInfo) => 
     return (
       <FullPage>
         <ErrorState
+          headingLevel="h1"
           title="Tillwell didn't open"
           message={session.error.message}
           onRetry={() => void session.refetch()}

@@ -18,7 +18,7 @@ function Plan() {
   const sites = useSites(club.clubId);
   const zone = useTimeZone();
   if (sites.isPending) return <LoadingState label="Loading the sites…" />;
-  if (sites.isError) return <ErrorState title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} retrying={sites.isFetching} />;
+  if (sites.isError) return <ErrorState headingLevel="h1" title="The sites could not be loaded" message={sites.error.message} onRetry={() => void sites.refetch()} retrying={sites.isFetching} />;
   return (
     <PlanPage
       key={club.clubId}

@@ -1,5 +1,5 @@
-import { useEffect, useId, useState, type ReactNode } from 'react';
-import { Link, NavLink } from 'react-router-dom';
+import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
+import { Link, NavLink, useLocation } from 'react-router-dom';
 import { LogOut, Mail, Menu, X, type LucideIcon } from 'lucide-react';
 import { Button } from '@/components/ui/button';
 import { Wordmark } from './logo';
@@ -8,8 +8,6 @@ export interface NavItem {
   to: string;
   label: string;
   icon: LucideIcon;
-  /** The page is a placeholder; the link says so to screen readers and with a small tag. */
-  comingSoon?: boolean;
   /** Match the path exactly, for "Home" links that prefix every other path. */
   end?: boolean;
 }
@@ -41,30 +39,19 @@ function navClasses(isActive: boolean, stacked: boolean): string {
   return `${shape} ${tone} no-underline`;
 }
 
-function NavLinks({ items, stacked, soonNoteId, onNavigate }: {
-  items: NavItem[];
-  stacked: boolean;
-  soonNoteId: string;
-  onNavigate?: () => void;
-}) {
+function NavLinks({ items, stacked, onNavigate }: { items: NavItem[]; stacked: boolean; onNavigate?: () => void }) {
   return (
     <ul className={stacked ? 'flex flex-col gap-1' : 'flex flex-wrap gap-1'}>
-      {items.map(({ to, label, icon: Icon, comingSoon, end }) => (
+      {items.map(({ to, label, icon: Icon, end }) => (
         <li key={to}>
           <NavLink
             to={to}
             end={end}
             onClick={onNavigate}
-            aria-describedby={comingSoon ? soonNoteId : undefined}
             className={({ isActive }) => navClasses(isActive, stacked)}
           >
             <Icon className="size-5 shrink-0" aria-hidden="true" />
             <span>{label}</span>
-            {comingSoon && (
-              <span aria-hidden="true" className="rounded-full bg-straw-100 px-1.5 text-xs font-medium text-soil">
-                soon
-              </span>
-            )}
           </NavLink>
         </li>
       ))}
@@ -86,7 +73,6 @@ export function AppLayout({
   const [menuOpen, setMenuOpen] = useState(false);
   const ids = useId();
   const menuId = `${ids}-menu`;
-  const soonNoteId = `${ids}-soon`;
 
   useEffect(() => {
     if (!menuOpen) return;
@@ -99,6 +85,18 @@ export function AppLayout({
 
   const closeMenu = () => setMenuOpen(false);
 
+  // After a route change, focus goes to the new page's heading (else the main content), so a screen reader starts there.
+  const { pathname } = useLocation();
+  const shown = useRef(pathname);
+  useEffect(() => {
+    if (shown.current === pathname) return;
+    shown.current = pathname;
+    const main = document.getElementById('main')!;
+    const heading = main.querySelector('h1') ?? main;
+    heading.tabIndex = -1;
+    heading.focus();
+  }, [pathname]);
+
   return (
     <div className="flex min-h-dvh flex-col">
       <a
@@ -107,9 +105,6 @@ export function AppLayout({
       >
         Skip to content
       </a>
-      <span id={soonNoteId} className="sr-only">
-        This page is coming soon.
-      </span>
 
       <header className="no-print border-b border-paper-200 bg-white">
         <div className="mx-auto flex min-h-16 max-w-6xl items-center gap-4 px-4">
@@ -146,7 +141,7 @@ export function AppLayout({
 
         {nav.length > 0 && (
           <nav aria-label="Main" className="mx-auto hidden max-w-6xl px-2 md:block">
-            <NavLinks items={nav} stacked={false} soonNoteId={soonNoteId} />
+            <NavLinks items={nav} stacked={false} />
           </nav>
         )}
 
@@ -155,7 +150,7 @@ export function AppLayout({
             {clubPicker && <div className="mb-3">{clubPicker}</div>}
             {nav.length > 0 && (
               <nav aria-label="Main">
-                <NavLinks items={nav} stacked soonNoteId={soonNoteId} onNavigate={closeMenu} />
+                <NavLinks items={nav} stacked onNavigate={closeMenu} />
               </nav>
             )}
             <div className="mt-4 flex flex-wrap items-center justify-between gap-3 border-t border-paper-200 pt-4">

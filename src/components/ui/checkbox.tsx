@@ -19,7 +19,7 @@ export function Checkbox({ label, hint, id, className = '', ...rest }: CheckboxP
         className="mt-0.5 size-5 shrink-0 cursor-pointer accent-leaf"
         {...rest}
       />
-      <label htmlFor={inputId} className="-my-2 flex-1 cursor-pointer py-2">
+      <label htmlFor={inputId} className="-my-2 min-h-11 flex-1 cursor-pointer py-2">
         <span className="font-medium">{label}</span>
         {hint && (
           <span id={hintId} className="block text-sm text-stone">

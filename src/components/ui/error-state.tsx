@@ -7,6 +7,8 @@ export interface ErrorStateProps {
   onRetry?: () => void;
   retrying?: boolean;
   requestId?: string;
+  /** h1 when the error is the whole page (a link that no longer works), so the page still has its heading. */
+  headingLevel?: 'h1' | 'h2';
 }
 
 /** Says what failed, offers a retry, and shows the request id for support. */
@@ -16,13 +18,14 @@ export function ErrorState({
   onRetry,
   retrying = false,
   requestId,
+  headingLevel: Heading = 'h2',
 }: ErrorStateProps) {
   return (
     <div role="alert" className="flex flex-col items-center px-4 py-10 text-center">
       <span className="mb-4 flex size-14 items-center justify-center rounded-full bg-clay-50 text-clay-700">
         <CloudOff className="size-7" aria-hidden="true" />
       </span>
-      <h2 className="text-xl font-semibold">{title}</h2>
+      <Heading className="text-xl font-semibold">{title}</Heading>
       <p className="mt-2 max-w-md text-stone">{message}</p>
       {requestId && <p className="mt-1 text-sm text-stone">Reference: {requestId}</p>}
       {onRetry && (

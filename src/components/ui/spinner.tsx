@@ -5,14 +5,17 @@ export function Spinner({ className = 'size-6' }: { className?: string }) {
   return <LoaderCircle className={`animate-spin text-leaf ${className}`} aria-hidden="true" />;
 }
 
-/** A centred spinner with a label that screen readers announce politely. */
-export function LoadingState({ label = 'Loading…', fullPage = false }: { label?: string; fullPage?: boolean }) {
+/**
+ * A spinner with a label that screen readers announce politely: centred in the space it loads into, or `inline`
+ * as one line inside a card or below a table that is loading more.
+ */
+export function LoadingState({ label = 'Loading…', fullPage = false, inline = false }: { label?: string; fullPage?: boolean; inline?: boolean }) {
   return (
     <div
       role="status"
-      className={`flex items-center justify-center gap-3 text-stone ${fullPage ? 'min-h-dvh' : 'py-12'}`}
+      className={inline ? 'flex items-center gap-2 text-stone' : `flex items-center justify-center gap-3 text-stone ${fullPage ? 'min-h-dvh' : 'py-12'}`}
     >
-      <Spinner />
+      <Spinner className={inline ? 'size-5' : undefined} />
       <span>{label}</span>
     </div>
   );

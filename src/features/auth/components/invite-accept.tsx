@@ -105,6 +105,7 @@ function InvitePreviewGate({ token }: { token: string }) {
     if (isApiError(preview.error, 410)) return <SpentInvite reason={preview.error.message} />;
     return (
       <ErrorState
+        headingLevel="h1"
         title="We couldn't open this invite"
         message={preview.error.message}
         onRetry={() => void preview.refetch()}

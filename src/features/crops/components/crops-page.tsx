@@ -26,7 +26,7 @@ function columnsFor(clubId: number): ColumnDef<CropSummary>[] {
       accessorFn: (crop) => crop.commonName,
       cell: ({ row }) => (
         <span className="flex flex-wrap items-center gap-2">
-          <Link to={paths.crop(clubId, row.original.id)} className="inline-flex min-h-11 items-center font-semibold sm:min-h-0">
+          <Link to={paths.crop(clubId, row.original.id)} className="inline-flex min-h-11 min-w-11 items-center font-semibold">
             {row.original.commonName}
           </Link>
           {row.original.isClubCrop && <Badge tone="straw">Club crop</Badge>}

@@ -1,7 +1,7 @@
 import { formatMoney } from '@shared/fees/compute';
 import { Alert } from '@/components/ui/alert';
 import { Badge } from '@/components/ui/badge';
-import { Spinner } from '@/components/ui/spinner';
+import { LoadingState } from '@/components/ui/spinner';
 import { useMyFees } from '../api/get-my-fees';
 import { formatCalendarDate } from '../lib/calendar-date';
 
@@ -15,9 +15,7 @@ export function MyFees({ clubId }: { clubId: number }) {
         Your fees
       </h2>
       {mine.isPending ? (
-        <p className="flex items-center gap-2 text-stone" role="status">
-          <Spinner className="size-5" /> Loading your fees…
-        </p>
+        <LoadingState inline label="Loading your fees…" />
       ) : mine.isError ? (
         <Alert tone="error">Your fees didn't load. {mine.error.message}</Alert>
       ) : fees.length === 0 ? (

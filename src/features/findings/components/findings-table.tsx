@@ -47,7 +47,7 @@ function columnsFor(clubId: number): ColumnDef<Row>[] {
       header: 'Plot',
       accessorFn: (f) => f.plotLabel,
       cell: ({ row }) => (
-        <Link to={paths.plot(clubId, row.original.plotId)} className="inline-flex min-h-11 items-center font-semibold sm:min-h-0">
+        <Link to={paths.plot(clubId, row.original.plotId)} className="inline-flex min-h-11 min-w-11 items-center font-semibold">
           {row.original.plotLabel}
         </Link>
       ),

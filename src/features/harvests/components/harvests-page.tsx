@@ -40,7 +40,7 @@ function columnsFor(clubId: number, units: UnitSystem): ColumnDef<HarvestFigure>
       header: 'Crop',
       accessorFn: (f) => f.crop.commonName,
       cell: ({ row }) => (
-        <Link to={paths.crop(clubId, row.original.crop.id)} className="inline-flex min-h-11 items-center font-semibold sm:min-h-0">
+        <Link to={paths.crop(clubId, row.original.crop.id)} className="inline-flex min-h-11 min-w-11 items-center font-semibold">
           {row.original.crop.commonName}
         </Link>
       ),

@@ -2,6 +2,7 @@ import type { UnitSystem } from '@shared/geometry';
 import { formatWeight } from '@shared/plot-book/harvest';
 import type { Planting, PlotBook } from '@shared/schemas/plot-book';
 import { plantingName } from '../lib/format';
+import { palette } from '@/lib/palette';
 
 const perArea = (grams: number | null, units: UnitSystem) =>
   grams === null || grams === 0 ? '—' : units === 'us' ? `${formatWeight(grams * 0.09290304, 'us')} a ft²` : `${formatWeight(grams, 'metric')} a m²`;
@@ -27,7 +28,7 @@ export function HarvestFigures({ book, plantings }: { book: PlotBook; plantings:
             <span className="flex items-center gap-2">
               {t.grams > 0 && (
                 <svg aria-hidden="true" viewBox="0 0 100 10" preserveAspectRatio="none" className="h-4" style={{ width: `${Math.max((t.grams / max) * 70, 2)}%` }}>
-                  <rect width="100" height="10" rx="2" fill="#2f6b3b" />
+                  <rect width="100" height="10" rx="2" fill={palette.leaf.DEFAULT} />
                 </svg>
               )}
               <span className="shrink-0 tabular-nums">{t.grams > 0 ? formatWeight(t.grams, units) : `${t.count} picked`}</span>

@@ -249,7 +249,7 @@ export function PlotBookPage({ clubId, plotId, year, isCoordinator, neighbourChe
                 {b.pastSeasons.map((s) => (
                   <Card key={s.year}>
                     <h3 className="mb-2 text-lg font-semibold">
-                      <Link to={paths.plotBook(clubId, plot.id, s.year)}>{s.year}</Link>
+                      <Link to={paths.plotBook(clubId, plot.id, s.year)} className="inline-flex min-h-11 min-w-11 items-center">{s.year}</Link>
                     </h3>
                     {s.plantings.length === 0 ? (
                       <p className="text-stone">Nothing recorded.</p>

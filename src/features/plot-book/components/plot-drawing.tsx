@@ -1,5 +1,6 @@
 import type { PointerEvent as ReactPointerEvent, ReactNode } from 'react';
 import type { PlotPart } from '@shared/schemas/plot-book';
+import { palette } from '@/lib/palette';
 
 export interface DrawnPart {
   id: number | string;
@@ -10,7 +11,7 @@ export interface DrawnPart {
 }
 
 // Leaf greens and straw from the palette, alternating so neighbouring parts stay apart; text says the rest.
-const fills = ['#dcebd0', '#f3e8c4', '#cfe3d6', '#efe2b8'];
+const fills = [palette.bed[1], palette.bed[2], palette.bed[3], palette.bed[4]];
 
 export interface PlotDrawingProps {
   width: number;
@@ -45,7 +46,7 @@ export function PlotDrawing({ width, length, parts, title, children, onPointerDo
       onPointerUp={onPointerUp}
       onPointerCancel={onPointerUp}
     >
-      <rect x={0} y={0} width={width} height={length} fill="#f1e4d3" stroke="#3d2e26" strokeWidth={Math.max(width, length) * 0.008} />
+      <rect x={0} y={0} width={width} height={length} fill={palette.bed.ground} stroke={palette.soil.DEFAULT} strokeWidth={Math.max(width, length) * 0.008} />
       {parts.map((p, i) => {
         const r = p.part ?? { x: 0, y: 0, width, length };
         return (
@@ -56,7 +57,7 @@ export function PlotDrawing({ width, length, parts, title, children, onPointerDo
               width={r.width}
               height={r.length}
               fill={fills[i % fills.length]}
-              stroke={p.emphasis ? '#2f6b3b' : '#6f695f'}
+              stroke={p.emphasis ? palette.leaf.DEFAULT : palette.stone.DEFAULT}
               strokeWidth={Math.max(width, length) * (p.emphasis ? 0.012 : 0.005)}
               strokeDasharray={p.part ? undefined : `${font / 2} ${font / 3}`}
             />
@@ -66,7 +67,7 @@ export function PlotDrawing({ width, length, parts, title, children, onPointerDo
               fontSize={Math.min(font, r.width / Math.max(p.label.length * 0.6, 1))}
               textAnchor="middle"
               dominantBaseline="middle"
-              fill="#3d2e26"
+              fill={palette.soil.DEFAULT}
             >
               {p.label}
             </text>

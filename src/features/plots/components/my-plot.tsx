@@ -6,7 +6,7 @@ import type { MyPlotHolding } from '@shared/schemas/my-plot';
 import { Alert } from '@/components/ui/alert';
 import { buttonClasses } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
-import { Spinner } from '@/components/ui/spinner';
+import { LoadingState } from '@/components/ui/spinner';
 import { paths } from '@/lib/paths';
 import { LocalDate } from '@/lib/time-zone';
 import { useMyPlot } from '../api/get-my-plot';
@@ -17,9 +17,7 @@ function HoldingMap({ holding }: { holding: MyPlotHolding }) {
   const plots = useSitePlots(holding.site.id);
   if (plots.isPending) {
     return (
-      <p className="flex items-center gap-2 text-stone" role="status">
-        <Spinner className="size-5" /> Loading the map…
-      </p>
+      <LoadingState inline label="Loading the map…" />
     );
   }
   if (plots.isError) return <Alert tone="error">The map didn't load. {plots.error.message}</Alert>;
@@ -41,9 +39,7 @@ export function MyPlot({ clubId, thisWeek }: MyPlotProps) {
         My plot
       </h2>
       {mine.isPending ? (
-        <p className="flex items-center gap-2 text-stone" role="status">
-          <Spinner className="size-5" /> Loading your plot…
-        </p>
+        <LoadingState inline label="Loading your plot…" />
       ) : mine.isError ? (
         <Alert tone="error">Your plot didn't load. {mine.error.message}</Alert>
       ) : (

@@ -68,7 +68,7 @@ function Neighbours({ plot, clubId }: { plot: PlotDetail; clubId: number }) {
     <ul className="flex flex-col divide-y divide-paper-200">
       {plot.neighbours.map((n) => (
         <li key={n.plotId} className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1 py-2.5">
-          <Link to={paths.plot(clubId, n.plotId)} className="font-semibold">
+          <Link to={paths.plot(clubId, n.plotId)} className="inline-flex min-h-11 min-w-11 items-center font-semibold">
             {n.label}
           </Link>
           <span>

@@ -36,7 +36,7 @@ function columnsFor(clubId: number, units: UnitSystem): ColumnDef<Plot>[] {
       // "A-2" before "A-10", as people number plots.
       sortingFn: 'alphanumeric',
       cell: ({ row }) => (
-        <Link to={paths.plot(clubId, row.original.id)} className="font-semibold whitespace-nowrap">
+        <Link to={paths.plot(clubId, row.original.id)} className="inline-flex min-h-11 min-w-11 items-center font-semibold whitespace-nowrap">
           {row.original.label}
         </Link>
       ),

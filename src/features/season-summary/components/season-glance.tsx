@@ -5,10 +5,11 @@ import { formatWeight } from '@shared/plot-book';
 import type { findingKinds } from '@shared/schemas/findings';
 import type { SeasonSummary, SiteSummary, WeekCoverage } from '@shared/schemas/season-summary';
 import { Alert } from '@/components/ui/alert';
-import { Spinner } from '@/components/ui/spinner';
+import { LoadingState } from '@/components/ui/spinner';
 import { plural } from '@/lib/format';
 import { paths } from '@/lib/paths';
 import { useSeasonSummary } from '../api/get-season-summary';
+import { palette } from '@/lib/palette';
 
 // The coordinator's season in pictures. Every picture is a plain SVG of bars drawn in percentages (so
 // it fits any width), named by its <title>; the same numbers are always written out beside it, and
@@ -27,20 +28,20 @@ function Patterns({ prefix }: { prefix: string }) {
   return (
     <defs>
       <pattern id={`${prefix}-hatch`} width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-        <rect width="6" height="6" fill="#e7f0f5" />
-        <rect width="3" height="6" fill="#2e6b8c" />
+        <rect width="6" height="6" fill={palette.water[50]} />
+        <rect width="3" height="6" fill={palette.water.DEFAULT} />
       </pattern>
       <pattern id={`${prefix}-dots`} width="6" height="6" patternUnits="userSpaceOnUse">
-        <rect width="6" height="6" fill="#faece7" />
-        <circle cx="3" cy="3" r="1.6" fill="#8e3f2b" />
+        <rect width="6" height="6" fill={palette.clay[50]} />
+        <circle cx="3" cy="3" r="1.6" fill={palette.clay[700]} />
       </pattern>
     </defs>
   );
 }
 
 function fillOf(fill: Fill, prefix: string): string {
-  if (fill === 'solid') return '#2f6b3b';
-  if (fill === 'empty') return '#ffffff';
+  if (fill === 'solid') return palette.leaf.DEFAULT;
+  if (fill === 'empty') return palette.white;
   return `url(#${prefix}-${fill})`;
 }
 
@@ -56,7 +57,7 @@ function Bar({ parts, total, label, height = 16 }: { parts: Part[]; total: numbe
     <svg role="img" aria-labelledby={`${prefix}-title`} width="100%" height={height} className="block rounded-sm border border-stone">
       <title id={`${prefix}-title`}>{label}</title>
       <Patterns prefix={prefix} />
-      <rect x="0" y="0" width="100%" height={height} fill="#ffffff" />
+      <rect x="0" y="0" width="100%" height={height} fill={palette.white} />
       {total > 0 &&
         parts.map((part, i) => {
           if (part.value <= 0) return null;
@@ -70,7 +71,7 @@ function Bar({ parts, total, label, height = 16 }: { parts: Part[]; total: numbe
         parts.slice(0, -1).reduce<{ at: number; lines: ReactNode[] }>(
           (acc, part, i) => {
             const at = acc.at + Math.max(0, part.value);
-            if (part.value > 0 && at < total) acc.lines.push(<rect key={i} x={`${(at / total) * 100}%`} y="0" width="2" height={height} fill="#ffffff" />);
+            if (part.value > 0 && at < total) acc.lines.push(<rect key={i} x={`${(at / total) * 100}%`} y="0" width="2" height={height} fill={palette.white} />);
             return { at, lines: acc.lines };
           },
           { at: 0, lines: [] },
@@ -85,7 +86,7 @@ function Swatch({ fill }: { fill: Fill }) {
   return (
     <svg aria-hidden="true" width="14" height="14" className="inline-block shrink-0 align-[-2px]">
       <Patterns prefix={prefix} />
-      <rect x="0.5" y="0.5" width="13" height="13" rx="2" fill={fillOf(fill, prefix)} stroke="#6f695f" />
+      <rect x="0.5" y="0.5" width="13" height="13" rx="2" fill={fillOf(fill, prefix)} stroke={palette.stone.DEFAULT} />
     </svg>
   );
 }
@@ -97,7 +98,7 @@ function GlanceCard({ title, href, linkText, children }: { title: string; href: 
         {title}
       </h3>
       <div className="mt-3 flex-1 space-y-3">{children}</div>
-      <Link to={href} className="mt-4 self-start font-semibold text-water underline-offset-2 hover:underline">
+      <Link to={href} className="mt-4 inline-flex min-h-11 items-center self-start font-semibold text-water underline-offset-2 hover:underline">
         {linkText}
       </Link>
     </li>
@@ -120,7 +121,7 @@ function PlotsCard({ clubId, summary }: { clubId: number; summary: SeasonSummary
         return (
           <div key={site.siteId} className="space-y-1" data-testid={`glance-site-${site.siteId}`}>
             <p className="flex flex-wrap items-baseline justify-between gap-x-2">
-              <Link to={paths.map(clubId, site.siteId)} className="font-semibold text-water underline-offset-2 hover:underline">
+              <Link to={paths.map(clubId, site.siteId)} className="inline-flex min-h-11 items-center font-semibold text-water underline-offset-2 hover:underline">
                 {site.name}
               </Link>
               <span className="text-sm text-stone">{plural(total, 'plot')}</span>
@@ -195,7 +196,7 @@ function ShiftsCard({ clubId, summary }: { clubId: number; summary: SeasonSummar
           return (
             <li key={week.weekStart} className="space-y-1" data-testid={`glance-week-${week.weekStart}`}>
               <p className="flex flex-wrap items-baseline justify-between gap-x-2">
-                <Link to={paths.shifts(clubId, `?date=${week.weekStart}`)} className="font-semibold text-water underline-offset-2 hover:underline">
+                <Link to={paths.shifts(clubId, `?date=${week.weekStart}`)} className="inline-flex min-h-11 items-center font-semibold text-water underline-offset-2 hover:underline">
                   {weekName(week, i)}
                 </Link>
                 <span className="text-sm">{week.places === 0 ? 'No shifts' : `${week.taken} of ${week.places} places`}</span>
@@ -230,7 +231,7 @@ function FindingsCard({ clubId, summary }: { clubId: number; summary: SeasonSumm
       <ul className="space-y-2">
         {summary.findings.map((f) => (
           <li key={f.kind} className="grid grid-cols-[minmax(0,8rem)_1fr_auto] items-center gap-2" data-testid={`glance-finding-${f.kind}`}>
-            <Link to={`${paths.findings(clubId)}?kind=${f.kind}`} className="truncate text-water underline-offset-2 hover:underline">
+            <Link to={`${paths.findings(clubId)}?kind=${f.kind}`} className="inline-block min-h-11 truncate py-2.5 text-water underline-offset-2 hover:underline">
               {kindLabels[f.kind]}
             </Link>
             <Bar label={`${kindLabels[f.kind]}: ${plural(f.count, 'finding')}`} total={most} height={12} parts={[{ value: f.count, fill: 'hatch' }]} />
@@ -268,9 +269,9 @@ export function SeasonGlance({ clubId }: SeasonGlanceProps) {
   const summary = useSeasonSummary(clubId);
   if (summary.isPending) {
     return (
-      <p className="mb-4 flex items-center gap-2 text-stone" role="status">
-        <Spinner className="size-5" /> Loading the season at a glance…
-      </p>
+      <div className="mb-4">
+        <LoadingState inline label="Loading the season at a glance…" />
+      </div>
     );
   }
   if (summary.isError) return <Alert tone="error">The season at a glance didn't load. {summary.error.message}</Alert>;

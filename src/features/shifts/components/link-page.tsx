@@ -214,12 +214,13 @@ function Closed({ preview }: { preview: ShiftLinkPreview }) {
 export function ShiftLinkPage({ token }: { token: string | null }) {
   const preview = useShiftLink(token ?? '');
 
-  if (!token) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
+  if (!token) return <ErrorState headingLevel="h1" title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
   if (preview.isPending) return <LoadingState label="Opening your link…" />;
   if (preview.isError) {
     const notOurs = isApiError(preview.error, 404) || isApiError(preview.error, 400);
     return (
       <ErrorState
+        headingLevel="h1"
         title={notOurs ? 'This link is not valid' : 'This link could not be opened'}
         message={notOurs ? 'It may have been cut short when it was copied. Open the link from the e-mail again, or copy all of it.' : preview.error.message}
         onRetry={notOurs ? undefined : () => void preview.refetch()}

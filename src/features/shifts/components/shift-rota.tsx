@@ -85,7 +85,9 @@ export function ShiftRota({ clubId, clubName, timeZone, sites, isCoordinator }: 
               <h2 id={`rota-${g.date}`} className="mb-1 text-lg font-semibold">
                 {dayHeading(g.date)}
               </h2>
-              <table className="w-full border-collapse text-left text-sm">
+              {/* On a phone the sheet's table scrolls in its own box; the page itself stays the screen's width. */}
+              <div className="overflow-x-auto" tabIndex={0} role="region" aria-labelledby={`rota-${g.date}`}>
+                <table className="w-full border-collapse text-left text-sm">
                 <thead>
                   <tr className="border-b-2 border-soil">
                     <th scope="col" className="w-44 py-1 pr-3">Time</th>
@@ -111,7 +113,8 @@ export function ShiftRota({ clubId, clubName, timeZone, sites, isCoordinator }: 
                     </tr>
                   ))}
                 </tbody>
-              </table>
+                </table>
+              </div>
             </section>
           ))}
         </div>

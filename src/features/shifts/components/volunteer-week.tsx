@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import { Alert } from '@/components/ui/alert';
-import { Spinner } from '@/components/ui/spinner';
+import { LoadingState } from '@/components/ui/spinner';
 import { plural } from '@/lib/format';
 import { paths } from '@/lib/paths';
 import { useTimeZone } from '@/lib/time-zone';
@@ -19,9 +19,9 @@ export function VolunteerWeek({ clubId }: { clubId: number }) {
   const mine = useMyShifts(clubId);
   if (open.isPending || mine.isPending) {
     return (
-      <p className="mb-4 flex items-center gap-2 text-stone" role="status">
-        <Spinner className="size-5" /> Loading your shifts…
-      </p>
+      <div className="mb-4">
+        <LoadingState inline label="Loading your shifts…" />
+      </div>
     );
   }
   if (open.isError || mine.isError) return <Alert tone="error">Your shifts didn't load. {(open.error ?? mine.error)?.message}</Alert>;
@@ -41,7 +41,7 @@ export function VolunteerWeek({ clubId }: { clubId: number }) {
           <ul className="space-y-1 text-sm">
             {openShifts.slice(0, 3).map((s) => (
               <li key={s.id}>
-                <Link to={paths.shift(clubId, s.id)} className="text-water underline underline-offset-2">
+                <Link to={paths.shift(clubId, s.id)} className="inline-block py-3 text-water underline underline-offset-2">
                   {s.title}
                 </Link>{' '}
                 · {shiftWhen(s)} · {s.capacity - s.taken} of {plural(s.capacity, 'place')} open

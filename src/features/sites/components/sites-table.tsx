@@ -20,7 +20,7 @@ function columnsFor(clubId: number): ColumnDef<Site>[] {
       sortingFn: (a, b) => a.original.name.localeCompare(b.original.name),
       cell: ({ row }) => (
         <div className="min-w-40">
-          <Link to={paths.sitePlots(clubId, row.original.id)} className="font-semibold">
+          <Link to={paths.sitePlots(clubId, row.original.id)} className="inline-flex min-h-11 items-center font-semibold">
             {row.original.name}
           </Link>
           {row.original.address && <p className="text-sm text-stone">{row.original.address}</p>}

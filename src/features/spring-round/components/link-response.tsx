@@ -48,15 +48,16 @@ export function LinkResponse({ kind, linkRef, chosen }: { kind: LinkKind; linkRe
   const answer = useAnswerLink(kind, ref);
   const w = words[kind];
 
-  if (!linkRef) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
+  if (!linkRef) return <ErrorState headingLevel="h1" title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
   if (preview.isPending) return <LoadingState label="Opening your link…" />;
   if (preview.isError) {
     if (isApiError(preview.error, 401)) {
-      return <ErrorState title="Please sign in first" message="Sign in, then open the renewal from your club's home page, or use the link in the e-mail." />;
+      return <ErrorState headingLevel="h1" title="Please sign in first" message="Sign in, then open the renewal from your club's home page, or use the link in the e-mail." />;
     }
     return (
       // A link cut short or made up (400) or unknown (404) is simply not a valid link.
       <ErrorState
+        headingLevel="h1"
         title={isApiError(preview.error, 404) || isApiError(preview.error, 400) ? 'This link is not valid' : 'This link cannot be used'}
         message={
           isApiError(preview.error, 404) || isApiError(preview.error, 400)

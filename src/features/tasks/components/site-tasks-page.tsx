@@ -14,7 +14,7 @@ import { TextField } from '@/components/ui/field';
 import { PageHeader } from '@/components/ui/page-header';
 import { PageSection } from '@/components/ui/page-section';
 import { Select } from '@/components/ui/select';
-import { LoadingState, Spinner } from '@/components/ui/spinner';
+import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { paths } from '@/lib/paths';
 import { siteTasksCsvUrl, useSiteTasks } from '../api/get-site-tasks';
@@ -97,7 +97,7 @@ function columnsFor(opts: {
       sortingFn: (a, b) => whereWords(a.original).localeCompare(whereWords(b.original), 'en', { numeric: true }),
       cell: ({ row }) =>
         row.original.plotId ? (
-          <Link to={paths.plotBookTasks(clubId, row.original.plotId)} className="inline-flex min-h-11 items-center font-semibold whitespace-nowrap sm:min-h-0">
+          <Link to={paths.plotBookTasks(clubId, row.original.plotId)} className="inline-flex min-h-11 min-w-11 items-center font-semibold whitespace-nowrap">
             {row.original.plotLabel}
           </Link>
         ) : (
@@ -369,9 +369,7 @@ export function SiteTasksPage({ clubId, site, plots, sites }: SiteTasksPageProps
         </form>
 
         {list.isFetching && !list.isPending && (
-          <p className="flex items-center gap-2 text-stone" role="status">
-            <Spinner className="size-5" /> Loading those tasks…
-          </p>
+          <LoadingState inline label="Loading those tasks…" />
         )}
         {notice && <Alert tone="success">{notice}</Alert>}
         <PageSection id="site-tasks" title="Tasks">

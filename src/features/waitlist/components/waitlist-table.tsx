@@ -42,7 +42,7 @@ function columns(onAction: (action: WaitlistAction, entry: WaitlistEntry) => voi
       cell: ({ row }) => (
         <div className="min-w-36">
           <span className="block font-medium">{row.original.name}</span>
-          <a href={`mailto:${row.original.email}`} className="block text-sm break-all">
+          <a href={`mailto:${row.original.email}`} className="block py-3 text-sm break-all">
             {row.original.email}
           </a>
           {row.original.phone && <span className="block text-sm whitespace-nowrap text-stone">{row.original.phone}</span>}

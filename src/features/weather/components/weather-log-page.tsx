@@ -14,7 +14,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { Select } from '@/components/ui/select';
-import { LoadingState, Spinner } from '@/components/ui/spinner';
+import { LoadingState } from '@/components/ui/spinner';
 import { isApiError } from '@/lib/api/client';
 import { paths } from '@/lib/paths';
 import { useDeleteWeatherDay } from '../api/delete-weather-day';
@@ -289,9 +289,7 @@ export function WeatherLogPage({ clubId, site }: WeatherLogPageProps) {
           <div className="flex flex-wrap gap-3">{downloads}</div>
         </div>
         {log.isFetching && !log.isPending && (
-          <p className="flex items-center gap-2 text-stone" role="status">
-            <Spinner className="size-5" /> Loading those days…
-          </p>
+          <LoadingState inline label="Loading those days…" />
         )}
         {notice && <Alert tone="success">{notice}</Alert>}
         <section aria-label="Days" className="min-w-0">
