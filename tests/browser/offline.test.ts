@@ -105,4 +105,56 @@ describe('a weak signal at the plot', () => {
     expect(w.errors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to fetch|net::ERR_FAILED/.test(e))).toEqual([]);
     await context.close();
   }, 120_000);
+
+  it('opens the plot book with no connection once visited, keeps a task marked done offline and sends it once', async () => {
+    const club = await db('clubs').where({ slug: 'mossgate' }).first('id');
+    const plot = await db('plots').where({ site_id: siteId, label: 'A-1' }).first('id');
+    const today = localToday(ZONE);
+    // A coordinator's task on A-1 whose window holds today, so it shows under this week with a Done button.
+    const [task] = await db('tasks')
+      .insert({ club_id: club.id, site_id: siteId, plot_id: plot.id, origin: 'coordinator', kind: 'weed', title: 'Weed the offline test bed', due_on: today, window_from: today, window_to: today })
+      .returning(['id', 'version']);
+
+    const w = await signInAs(suite.browser, suite.server.url, 'teodor@example.org', PHONE);
+    const { page } = w;
+    const context = page.context();
+    await page.getByRole('heading', { name: DEMO_CLUB }).waitFor();
+    await page.goto(`${suite.server.url}/clubs/${club.id}/plots/${plot.id}/book`);
+    await page.getByRole('heading', { name: 'Plot book: A-1' }).waitFor();
+    await controlled(page);
+    await page.reload();
+    const done = page.getByRole('button', { name: 'Done: Weed the offline test bed' });
+    await done.waitFor();
+
+    await context.setOffline(true);
+    await page.reload();
+    await page.getByRole('heading', { name: 'Plot book: A-1' }).waitFor();
+    await done.click();
+    const kept = page.getByRole('region', { name: /^Kept on this phone/ });
+    await kept.getByText('Waiting to send').waitFor();
+    await kept.getByText('Done: Weed the offline test bed').waitFor();
+    await w.shot('offline-task-done-waiting');
+    const [entry] = await queued(page);
+    expect(entry.path).toBe(`/api/tasks/${task.id}/done`);
+    expect((await db('tasks').where({ id: task.id }).first()).status).toBe('open');
+
+    await context.setOffline(false);
+    await kept.waitFor({ state: 'detached' });
+    await expect.poll(async () => (await db('tasks').where({ id: task.id }).first()).status).toBe('done');
+    // One write: the version moved by exactly one. computed: created at 1, done once = 2.
+    expect((await db('tasks').where({ id: task.id }).first()).version).toBe(task.version + 1);
+
+    const csrf = ((await (await page.request.get(`${suite.server.url}/api/session`)).json()) as { csrfToken: string }).csrfToken;
+    const replay = await page.request.post(`${suite.server.url}${entry.path}`, {
+      headers: { 'X-CSRF-Token': csrf, 'Idempotency-Key': entry.key },
+      data: entry.body,
+    });
+    // The stored answer (200), not the 409 a second Done with the old version would get.
+    expect(replay.status()).toBe(200);
+    expect(replay.headers()['idempotent-replayed']).toBe('true');
+    expect((await db('tasks').where({ id: task.id }).first()).version).toBe(task.version + 1);
+    expect(await db('idempotency_keys').where({ key: entry.key }).count({ n: '*' })).toEqual([{ n: 1 }]);
+    expect(w.errors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to fetch|net::ERR_FAILED/.test(e))).toEqual([]);
+    await context.close();
+  }, 120_000);
 });
