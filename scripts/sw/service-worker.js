@@ -1,6 +1,5 @@
 /* Tillwell's offline shell: built into dist/sw.js by the `offlineShell` plugin in vite.config.ts,
  * which replaces SHELL_FILES and SHELL_VERSION. Plain JavaScript: it runs in the worker, not the page. */
-/* global self, caches, fetch, Response, URL */
 const SHELL_FILES = self.__SHELL_FILES__;
 const SHELL = `tillwell-shell-${self.__SHELL_VERSION__}`;
 // Answers of the API that the offline pages read. Personal: emptied when the signed-in person changes or signs out.

@@ -25,12 +25,13 @@ export function useOfflineQueue(userId: number, page: string, onSent?: () => voi
   }, [userId, page, onSent, reload]);
 
   useEffect(() => {
-    reload();
-    void retry();
+    // After the first render (not inside the effect's own turn): send what is waiting and list what is left.
+    const first = window.setTimeout(() => void retry(), 0);
     const off = onQueueChanged(reload);
     const online = () => void retry();
     window.addEventListener('online', online);
     return () => {
+      window.clearTimeout(first);
       off();
       window.removeEventListener('online', online);
     };
