@@ -2,6 +2,9 @@ import { configDefaults, defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import path from 'node:path';
+import fs from 'node:fs';
+import crypto from 'node:crypto';
+import type { Plugin } from 'vite';
 
 const root = import.meta.dirname;
 const alias = {
@@ -9,9 +12,30 @@ const alias = {
   '@': path.join(root, 'src'),
 };
 
+/**
+ * Writes dist/sw.js from scripts/sw/service-worker.js with the built shell to precache: index.html and every
+ * script, stylesheet and font of the build (source maps and the manifest left out). Its version is a hash of
+ * that list, so each build's worker replaces the last one's shell.
+ */
+function offlineShell(): Plugin {
+  return {
+    name: 'tillwell-offline-shell',
+    apply: 'build',
+    generateBundle(_options, bundle) {
+      const files = ['/index.html', ...Object.keys(bundle).filter((f) => /\.(js|css|woff2)$/.test(f)).map((f) => `/${f}`)].sort();
+      const version = crypto.createHash('sha256').update(files.join('\n')).digest('hex').slice(0, 12);
+      const source = fs
+        .readFileSync(path.join(root, 'scripts', 'sw', 'service-worker.js'), 'utf8')
+        .replace('self.__SHELL_FILES__', JSON.stringify(files))
+        .replace('self.__SHELL_VERSION__', JSON.stringify(version));
+      this.emitFile({ type: 'asset', fileName: 'sw.js', source });
+    },
+  };
+}
+
 // One config for the client build, the dev server and the test runner.
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), offlineShell()],
   resolve: { alias },
   build: {
     outDir: 'dist',

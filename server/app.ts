@@ -79,6 +79,8 @@ export function createApp(input: AppDeps): BuiltApp {
           // No inline <style> and no style="" in markup: stylesheets come from our own origin. React's
           // style props go through the CSSOM, which CSP does not govern (CSP Level 3, §6.1.3 style-src).
           'style-src': ["'self'"],
+          // The offline shell's service worker (/sw.js) comes from our own origin and nowhere else.
+          'worker-src': ["'self'"],
           'upgrade-insecure-requests': config.cookieSecure ? [] : null,
         },
       },
@@ -179,6 +181,12 @@ export function createApp(input: AppDeps): BuiltApp {
 
   const indexHtml = path.join(config.staticDir, 'index.html');
   if (fs.existsSync(indexHtml)) {
+    // The service worker must be looked at afresh on every visit, or a new build's shell waits a day (and an
+    // hour of our own cache) behind the old one.
+    app.get('/sw.js', (_req, res) => {
+      res.set('Cache-Control', 'no-cache');
+      res.sendFile(path.join(config.staticDir, 'sw.js'));
+    });
     app.use(express.static(config.staticDir, { index: false, maxAge: '1h' }));
     app.get('/{*splat}', (_req, res) => res.sendFile(indexHtml));
   }

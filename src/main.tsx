@@ -10,6 +10,9 @@ import { AppProviders } from '@/app/providers';
 const container = document.getElementById('root');
 if (!container) throw new Error('index.html is missing the #root element');
 
+// The offline shell (dist/sw.js, built by vite.config.ts); the queue of entries lives in the pages' own chunks.
+if (import.meta.env.PROD) void navigator.serviceWorker?.register('/sw.js');
+
 createRoot(container).render(
   <StrictMode>
     <AppProviders />

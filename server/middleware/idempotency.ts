@@ -5,10 +5,10 @@ import type { Db } from '../db/knex';
 
 /** A key still "being handled" after this long belongs to a request that died (a crash): it may be claimed again. */
 export const ABANDONED_AFTER_MS = 2 * 60 * 1000;
-/** Remembered answers are kept this long: retries come within minutes, not days. */
-export const KEEP_ANSWERS_MS = 24 * 60 * 60 * 1000;
+/** Remembered answers are kept a week: a phone's offline queue may send an entry days after it was made. */
+export const KEEP_ANSWERS_MS = 7 * 24 * 60 * 60 * 1000;
 
-/** Forgets remembered answers older than a day; run by the deadline sweep job. */
+/** Forgets remembered answers older than a week; run by the deadline sweep job. */
 export async function pruneIdempotencyKeys(db: Db, now: Date): Promise<number> {
   return db('idempotency_keys').where('created_at', '<', new Date(now.getTime() - KEEP_ANSWERS_MS)).delete();
 }

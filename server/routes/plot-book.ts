@@ -1,4 +1,5 @@
 import { Router, type RequestHandler } from 'express';
+import { idempotent } from '../middleware/idempotency';
 import multer from 'multer';
 import {
   HarvestBodySchema,
@@ -73,7 +74,7 @@ export function plotBookRouter({ db, storage }: Deps): Router {
     res.status(204).end();
   });
 
-  router.post('/plantings/:plantingId/harvests', requireUser, async (req, res) => {
+  router.post('/plantings/:plantingId/harvests', requireUser, idempotent(db), async (req, res) => {
     const plantingId = idParam(req, 'plantingId');
     const body = parseInput(HarvestBodySchema, req.body);
     res.status(201).json(await createHarvest(db, { plantingId, userId: req.session.userId!, body }));
@@ -84,7 +85,7 @@ export function plotBookRouter({ db, storage }: Deps): Router {
     res.status(204).end();
   });
 
-  router.post('/plots/:plotId/observations', requireUser, async (req, res) => {
+  router.post('/plots/:plotId/observations', requireUser, idempotent(db), async (req, res) => {
     const plotId = idParam(req, 'plotId');
     const body = parseInput(ObservationBodySchema, req.body);
     res.status(201).json(await createObservation(db, { plotId, userId: req.session.userId!, body }));

@@ -141,7 +141,7 @@ export function shiftsRouter({ db, mailer, config, storage }: Deps): Router {
   router.post('/shifts/:shiftId/release', shiftMember, async (req, res) => {
     res.json(await releaseShift(ctx(), { shiftId: idParam(req, 'shiftId'), viewer: viewer(req) }));
   });
-  router.post('/shifts/:shiftId/done', shiftMember, doneForm(), async (req, res) => {
+  router.post('/shifts/:shiftId/done', shiftMember, doneForm(), idempotent(db), async (req, res) => {
     const body = doneBody(req.body);
     res.json(await doneShift(ctx(), { shiftId: idParam(req, 'shiftId'), viewer: viewer(req), body, photo: req.file?.buffer }));
   });

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { idempotent } from '../middleware/idempotency';
 import { HandoverBodySchema, SiteTaskQuerySchema, TaskCreateBodySchema, TaskStatusBodySchema, WaterQuerySchema } from '@shared/schemas/tasks';
 import type { Deps } from '../deps';
 import { csvText } from '../services/csv-files';
@@ -45,7 +46,7 @@ export function tasksRouter({ db }: Deps): Router {
   });
 
   for (const [path, to] of [['done', 'done'], ['reopen', 'open'], ['skip', 'skipped']] as const) {
-    router.post(`/tasks/:taskId/${path}`, requireUser, async (req, res) => {
+    router.post(`/tasks/:taskId/${path}`, requireUser, idempotent(db), async (req, res) => {
       const taskId = idParam(req, 'taskId');
       const body = parseInput(TaskStatusBodySchema, req.body);
       res.json(await setTaskStatus(db, { taskId, userId: req.session.userId!, to, version: body.version, note: body.note }));

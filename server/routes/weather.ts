@@ -1,4 +1,5 @@
 import { Router, type Request } from 'express';
+import { idempotent } from '../middleware/idempotency';
 import { parseIdText } from '@shared/schemas/common';
 import { UnitsQuerySchema } from '@shared/schemas/sites';
 import {
@@ -47,7 +48,7 @@ export function weatherRouter({ db }: Deps): Router {
     res.json(await getWeatherLog(db, { siteId, userId: req.session.userId!, from, to }));
   });
 
-  router.put('/sites/:siteId/weather/:day', requireUser, async (req, res) => {
+  router.put('/sites/:siteId/weather/:day', requireUser, idempotent(db), async (req, res) => {
     const siteId = siteIdOf(req);
     const day = dayOf(req);
     const body = parseInput(WeatherDayBodySchema, req.body);

@@ -112,11 +112,12 @@ describe('Idempotency-Key housekeeping', () => {
     expect(await payments(feeId)).toBe(1);
   });
 
-  it('forgets remembered answers older than a day', async () => {
+  it('forgets remembered answers older than a week', async () => {
     const { c, feeId } = await feeToPay();
     expect((await pay(c, feeId, cash, 'pay-old')).status).toBe(201);
     expect((await pay(c, feeId, { ...cash, amountMinor: 1000 }, 'pay-new')).status).toBe(201);
-    await t.db('idempotency_keys').where({ key: 'pay-old' }).update({ created_at: new Date(Date.now() - 25 * 3600 * 1000) });
+    // computed: a week and an hour = 7 × 24 + 1 = 169 hours old.
+    await t.db('idempotency_keys').where({ key: 'pay-old' }).update({ created_at: new Date(Date.now() - 169 * 3600 * 1000) });
     expect(await pruneIdempotencyKeys(t.db, new Date())).toBe(1);
     expect(await t.db('idempotency_keys').pluck('key')).toEqual(['pay-new']);
   });

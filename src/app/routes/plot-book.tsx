@@ -1,3 +1,4 @@
+import { useMemo, type ComponentProps } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { NeighbourCheck } from '@/features/findings/components/neighbour-check';
 import { PlantingCheck } from '@/features/findings/components/planting-check';
@@ -12,7 +13,14 @@ const neighbourCheck: NeighbourCheckSlots = { PlantingCheck, NeighbourCheck, Wha
 
 /** `/clubs/:clubId/plots/:plotId/book?year=`: a plot's plot book; the server decides who may read or write it. */
 export function PlotBookRoute() {
-  const { club } = useClubContext();
+  const { club, user } = useClubContext();
+  // The tasks panel keeps a Done pressed offline for this person (src/lib/offline).
+  const Tasks = useMemo(() => {
+    const userId = user.id;
+    return function PersonTasks(props: ComponentProps<typeof TasksPanel>) {
+      return <TasksPanel {...props} userId={userId} />;
+    };
+  }, [user.id]);
   const { plotId } = useParams();
   const [search] = useSearchParams();
   const year = Number(search.get('year'));
@@ -24,7 +32,7 @@ export function PlotBookRoute() {
       year={Number.isInteger(year) && year >= 2000 && year <= 2100 ? year : undefined}
       isCoordinator={club.roles.includes('coordinator')}
       neighbourCheck={neighbourCheck}
-      Tasks={TasksPanel}
+      Tasks={Tasks}
     />
   );
 }

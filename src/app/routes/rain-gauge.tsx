@@ -4,7 +4,7 @@ import { useClubContext } from '../app-context';
 
 /** `/clubs/:clubId/rain-gauge?site=ID`: the quick rain entry for the sites the person may log weather at. */
 export function RainGaugeRoute() {
-  const { club } = useClubContext();
+  const { club, user } = useClubContext();
   const [params] = useSearchParams();
-  return <RainGauge clubId={club.clubId} initialSiteId={Number(params.get('site')) || undefined} />;
+  return <RainGauge clubId={club.clubId} userId={user.id} initialSiteId={Number(params.get('site')) || undefined} />;
 }

@@ -9,6 +9,11 @@ export type TaskStatusBody = z.input<typeof TaskStatusBodySchema>;
 export type TaskStatusAction = 'done' | 'reopen' | 'skip';
 
 /** POST /api/tasks/:taskId/<action> with {version, note}; 409 when someone changed the task since it was read. */
-export function postTaskStatus(taskId: number, action: TaskStatusAction, body: TaskStatusBody) {
-  return apiFetch(`/api/tasks/${taskId}/${action}`, { method: 'POST', body: { version: body.version, note: body.note ?? '' }, schema: TaskSchema });
+export function postTaskStatus(taskId: number, action: TaskStatusAction, body: TaskStatusBody, idempotencyKey?: string) {
+  return apiFetch(`/api/tasks/${taskId}/${action}`, { method: 'POST', body: taskStatusBody(body), schema: TaskSchema, idempotencyKey });
+}
+
+/** What the three status changes send: the version and the note (empty when none). */
+export function taskStatusBody(body: TaskStatusBody) {
+  return { version: body.version, note: body.note ?? '' };
 }

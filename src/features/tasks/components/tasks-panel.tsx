@@ -1,4 +1,8 @@
-import { useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { WaitingToSend } from '@/components/offline/waiting-to-send';
+import { isOffline, putEntry } from '@/lib/offline/queue';
+import { useOfflineQueue } from '@/lib/offline/use-offline-queue';
 import { Link, useLocation } from 'react-router-dom';
 import { ChevronDown, Droplets, Luggage } from 'lucide-react';
 import type { PlotTasks, TaskView } from '@shared/schemas/tasks';
@@ -11,7 +15,9 @@ import { plural } from '@/lib/format';
 import { paths } from '@/lib/paths';
 import { useDeleteHandover } from '../api/delete-handover';
 import { usePlotTasks } from '../api/get-plot-tasks';
+import { invalidateTaskLists } from '../api/invalidate';
 import { useMarkTaskDone } from '../api/mark-task-done';
+import { taskStatusBody } from '../api/task-status';
 import { useReopenTask } from '../api/reopen-task';
 import { useSkipTask } from '../api/skip-task';
 import { taskWindow } from '../lib/dates';
@@ -26,6 +32,8 @@ export interface TasksPanelProps {
   plotLabel: string;
   siteId: number;
   siteName: string;
+  /** The signed-in person: a Done pressed with no connection is kept on the phone for them only. */
+  userId?: number;
 }
 
 /** The id the plot book gives the panel's heading; the home page's "This week" links to it. */
@@ -78,8 +86,11 @@ function GroupList({
  * Undo for those who may write the book, and the periods handed to the volunteers. A change that meets a newer
  * version of the task says so beside it and shows the task as it is now.
  */
-export function TasksPanel({ clubId, plotId, plotLabel, siteId, siteName }: TasksPanelProps) {
+export function TasksPanel({ clubId, plotId, plotLabel, siteId, siteName, userId }: TasksPanelProps) {
   const tasks = usePlotTasks(plotId);
+  const queryClient = useQueryClient();
+  const refresh = useCallback(() => void invalidateTaskLists(queryClient), [queryClient]);
+  const queue = useOfflineQueue(userId ?? 0, `task-done:${plotId}`, refresh);
   const done = useMarkTaskDone();
   const skip = useSkipTask();
   const reopen = useReopenTask();
@@ -132,7 +143,32 @@ export function TasksPanel({ clubId, plotId, plotLabel, siteId, siteName }: Task
   const actions = {
     done: (t: TaskView, note: string) => {
       start(t);
-      done.mutate({ taskId: t.id, body: { version: t.version, note } }, { onSuccess: () => report(`Done: ${t.title}.`), onError: onError(t) });
+      // Made on pressing Done: a copy kept offline and sent later carries the same key, so it counts once.
+      const key = crypto.randomUUID();
+      const body = { version: t.version, note };
+      done.mutate(
+        { taskId: t.id, body, key },
+        {
+          onSuccess: () => report(`Done: ${t.title}.`),
+          onError: (error) => {
+            if (!isOffline(error) || !userId) return onError(t)(error);
+            const entry = {
+              key,
+              page: `task-done:${plotId}`,
+              userId,
+              method: 'POST' as const,
+              path: `/api/tasks/${t.id}/done`,
+              body: taskStatusBody(body),
+              label: `Done: ${t.title}`,
+              createdAt: new Date().toISOString(),
+            };
+            putEntry(entry).then(
+              () => say(t.id, { notice: 'No connection: kept on this phone, waiting to send.' }),
+              () => onError(t)(error),
+            );
+          },
+        },
+      );
     },
     skip: (t: TaskView) => {
       start(t);
@@ -154,6 +190,7 @@ export function TasksPanel({ clubId, plotId, plotLabel, siteId, siteName }: Task
 
   return (
     <div className="flex flex-col gap-5">
+      <WaitingToSend entries={queue.entries} sending={queue.sending} onRetry={() => void queue.retry()} onDiscard={(k) => void queue.discard(k)} />
       <div className="flex flex-col gap-3 sm:flex-row sm:items-start sm:justify-between">
         <p className="max-w-prose text-sm text-stone">
           The care this plot needs, worked out from its plantings, the crop notes and the weather logged at {siteName}, plus the club's shared jobs.

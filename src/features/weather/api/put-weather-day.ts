@@ -8,9 +8,11 @@ import { weatherKeys } from './keys';
 export type WeatherDayInput = z.input<typeof WeatherDayBodySchema>;
 
 /** PUT /api/sites/:siteId/weather/:day: merges the values into the day (201 when the day is new). */
-export function putWeatherDay(siteId: number, day: string, body: WeatherDayInput | WeatherDayBody) {
-  return apiFetch(`/api/sites/${siteId}/weather/${day}`, { method: 'PUT', body, schema: WeatherDaySchema });
+export function putWeatherDay(siteId: number, day: string, body: WeatherDayInput | WeatherDayBody, idempotencyKey?: string) {
+  return apiFetch(weatherDayPath(siteId, day), { method: 'PUT', body, schema: WeatherDaySchema, idempotencyKey });
 }
+
+export const weatherDayPath = (siteId: number, day: string) => `/api/sites/${siteId}/weather/${day}`;
 
 /** Saves values for one day of a site's log and refreshes every range of that log. */
 export function usePutWeatherDay(siteId: number) {
@@ -18,7 +20,7 @@ export function usePutWeatherDay(siteId: number) {
   return useMutation({
     // The server re-plans the site's tasks with this write; the app reads its task lists again (src/app/providers.tsx).
     meta: { replansTasks: true },
-    mutationFn: ({ day, body }: { day: string; body: WeatherDayInput }) => putWeatherDay(siteId, day, body),
+    mutationFn: ({ day, body, key }: { day: string; body: WeatherDayInput; key?: string }) => putWeatherDay(siteId, day, body, key),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: weatherKeys.site(siteId) }),
   });
 }

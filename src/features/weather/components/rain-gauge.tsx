@@ -1,4 +1,5 @@
-import { useMemo, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -20,7 +21,11 @@ import { applyServerErrors } from '@/lib/forms/server-errors';
 import { paths } from '@/lib/paths';
 import { useWeatherLog } from '../api/get-weather-log';
 import { useWeatherSites } from '../api/get-weather-sites';
-import { usePutWeatherDay } from '../api/put-weather-day';
+import { usePutWeatherDay, weatherDayPath } from '../api/put-weather-day';
+import { weatherKeys } from '../api/keys';
+import { isOffline, putEntry } from '@/lib/offline/queue';
+import { useOfflineQueue } from '@/lib/offline/use-offline-queue';
+import { WaitingToSend } from '@/components/offline/waiting-to-send';
 import { rainText, shortDayText, temperatureText } from '../lib/format';
 import { weatherFormSchema, type WeatherFormResult, type WeatherFormValues } from '../lib/weather-form';
 
@@ -54,8 +59,11 @@ function StoredDay({ site, day }: { site: WeatherSite; day: string }) {
   );
 }
 
-function GaugeForm({ site }: { site: WeatherSite }) {
+function GaugeForm({ site, userId }: { site: WeatherSite; userId: number }) {
   const save = usePutWeatherDay(site.id);
+  const queryClient = useQueryClient();
+  const refresh = useCallback(() => void queryClient.invalidateQueries({ queryKey: weatherKeys.site(site.id) }), [queryClient, site.id]);
+  const queue = useOfflineQueue(userId, `rain-gauge:${site.id}`, refresh);
   const [saved, setSaved] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
   const schema = useMemo(
@@ -91,15 +99,38 @@ function GaugeForm({ site }: { site: WeatherSite }) {
   const submit = handleSubmit((form) => {
     setSaved(null);
     setFormError(null);
+    // Made on pressing save: a queued copy sent later carries the same key, so it is recorded once.
+    const key = crypto.randomUUID();
+    const body = { ...form.values, source: 'gauge' as const };
     save.mutate(
-      { day: form.day, body: { ...form.values, source: 'gauge' } },
+      { day: form.day, body, key },
       {
         onSuccess: (result) => {
           const rain = result.rainMm === null ? 'No rain' : formatWeather('rain', result.rainMm, site.units);
           setSaved(`${rain} on ${shortDayText(result.day, site.today)} saved`);
         },
         // What was typed stays in the form; the server's words go beside the inputs they are about.
-        onError: (error) => setFormError(applyServerErrors(error, setError, ['day', ...KEYS])),
+        onError: (error) => {
+          if (isOffline(error)) {
+            const rain = body.rainMm == null ? 'No rain' : formatWeather('rain', Number(body.rainMm), site.units);
+            const entry = {
+              key,
+              page: `rain-gauge:${site.id}`,
+              userId,
+              method: 'PUT' as const,
+              path: weatherDayPath(site.id, form.day),
+              body,
+              label: `${rain} on ${shortDayText(form.day, site.today)}`,
+              createdAt: new Date().toISOString(),
+            };
+            putEntry(entry).then(
+              () => setSaved(null),
+              () => setFormError('No connection, and this phone could not keep the entry.'),
+            );
+            return;
+          }
+          setFormError(applyServerErrors(error, setError, ['day', ...KEYS]));
+        },
       },
     );
   });
@@ -162,6 +193,7 @@ function GaugeForm({ site }: { site: WeatherSite }) {
           </Alert>
         )}
       </div>
+      <WaitingToSend entries={queue.entries} sending={queue.sending} onRetry={() => void queue.retry()} onDiscard={(k) => void queue.discard(k)} />
       {formError && <Alert tone="error">{formError} What you typed is still here; try again.</Alert>}
       <Button type="submit" className="min-h-14 w-full text-lg" loading={save.isPending} loadingText="Saving…">
         <CloudRain className="size-6" aria-hidden="true" />
@@ -173,12 +205,14 @@ function GaugeForm({ site }: { site: WeatherSite }) {
 
 export interface RainGaugeProps {
   clubId: number;
+  /** The signed-in person: entries kept offline are theirs only. */
+  userId: number;
   /** The site to show first (from the address), when the person may log there. */
   initialSiteId?: number;
 }
 
 /** The quick rain entry for a phone: pick the site and day, tap the rain in, save. */
-export function RainGauge({ clubId, initialSiteId }: RainGaugeProps) {
+export function RainGauge({ clubId, userId, initialSiteId }: RainGaugeProps) {
   const sites = useWeatherSites(clubId);
   const [chosen, setChosen] = useState<number | null>(null);
 
@@ -237,7 +271,7 @@ export function RainGauge({ clubId, initialSiteId }: RainGaugeProps) {
         ) : (
           <p className="font-medium text-soil">{site.name}</p>
         )}
-        <GaugeForm key={site.id} site={site} />
+        <GaugeForm key={site.id} site={site} userId={userId} />
       </Card>
       <Link to={paths.weather(clubId, site.id)} className="mt-4 inline-flex min-h-11 items-center gap-1.5 font-medium">
         <Table2 className="size-5" aria-hidden="true" />
