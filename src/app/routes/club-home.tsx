@@ -10,6 +10,8 @@ import { useClubContext } from '../app-context';
 const SeasonGlance = lazy(() => import('@/features/season-summary/components/season-glance').then((m) => ({ default: m.SeasonGlance })));
 // A volunteer's week reads the shifts API (checked with zod): its own chunk, so a holder's first page stays light.
 const VolunteerWeek = lazy(() => import('@/features/shifts/components/volunteer-week').then((m) => ({ default: m.VolunteerWeek })));
+// The first-run checklist is a coordinator's only, in a chunk of its own (the holder's first page is near its budget).
+const FirstRunChecklist = lazy(() => import('@/features/clubs/components/first-run-checklist').then((m) => ({ default: m.FirstRunChecklist })));
 const FindingsLine = lazy(() => import('@/features/plot-book/components/findings-line').then((m) => ({ default: m.FindingsLine })));
 
 /** `/clubs/:clubId`: the club's home page. */
@@ -24,6 +26,7 @@ export function ClubHomeRoute() {
         sections={{
           coordinator: (
             <Suspense fallback={null}>
+              <FirstRunChecklist clubId={clubId} />
               <SeasonGlance clubId={clubId} />
             </Suspense>
           ),
