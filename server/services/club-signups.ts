@@ -51,7 +51,7 @@ export async function requestClubSignup(
   const passwordHash = await hashPassword(body.password, opts.bcryptCost);
   const { token, hash } = newToken();
   const expiresAt = new Date(now.getTime() + SIGNUP_TTL_MS);
-  const url = `${opts.publicUrl}/start-a-club/confirm?token=${encodeURIComponent(token)}`;
+  const url = `${opts.publicUrl}/start-a-club?token=${encodeURIComponent(token)}`;
   await db.transaction(async (trx) => {
     await trx('club_signups').insert({
       email: body.email,

@@ -66,7 +66,7 @@ const templates: Template[] = [
     label: 'New club address check',
     optional: false,
     description: 'Someone starts a club on the sign-up page and confirms their address.',
-    render: (s) => clubSignupMail({ to, name, clubName: s.clubName, url: fake('start-a-club/confirm'), expiresAt: new Date(new Date(`${s.today}T12:00:00Z`).getTime() + 86_400_000), timeZone: s.timeZone }),
+    render: (s) => clubSignupMail({ to, name, clubName: s.clubName, url: fake('start-a-club'), expiresAt: new Date(new Date(`${s.today}T12:00:00Z`).getTime() + 86_400_000), timeZone: s.timeZone }),
   },
   {
     name: 'password_reset',

@@ -30,7 +30,6 @@ export const router = createBrowserRouter([
                 path: 'forgot-password',
                 lazy: () => import('./routes/forgot-password').then((m) => ({ Component: m.ForgotPasswordRoute })),
               },
-              { path: 'start-a-club', lazy: () => import('./routes/start-club').then((m) => ({ Component: m.StartClubRoute })) },
             ],
           },
           // Open to everyone: a signed-in person may still follow a reset or invite e-mail.
@@ -38,11 +37,8 @@ export const router = createBrowserRouter([
             path: 'reset-password',
             lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })),
           },
-          // A new club's e-mailed link: open to everyone (a signed-in person may start a second club).
-          {
-            path: 'start-a-club/confirm',
-            lazy: () => import('./routes/start-club').then((m) => ({ Component: m.ConfirmClubRoute })),
-          },
+          // Starting a club, and (with ?token=) its e-mailed link: open to everyone.
+          { path: 'start-a-club', lazy: () => import('./routes/start-club').then((m) => ({ Component: m.StartClubRoute })) },
           { path: 'invite', lazy: () => import('./routes/invite').then((m) => ({ Component: m.InviteRoute })) },
           // The waiting list form is public: anyone may apply, signed in or not.
           { path: 'apply/:clubSlug', lazy: () => import('./routes/apply').then((m) => ({ Component: m.ApplyRoute })) },

@@ -3,7 +3,6 @@ export const paths = {
   home: () => '/',
   signIn: () => '/sign-in',
   forgotPassword: () => '/forgot-password',
-  startClub: () => '/start-a-club',
   club: (clubId: number) => `/clubs/${clubId}`,
   members: (clubId: number) => `/clubs/${clubId}/members`,
   map: (clubId: number, siteId?: number) => `/clubs/${clubId}/map${siteId ? `?site=${siteId}` : ''}`,

@@ -61,7 +61,7 @@ export function SignInForm({ notice }: { notice?: string }) {
       </Button>
       <p className="text-sm">
         New to Tillwell and running a garden club?{' '}
-        <Link to={paths.startClub()} className="inline-flex min-h-11 items-center underline">
+        <Link to={'/start-a-club'} className="inline-flex min-h-11 items-center underline">
           Start a club
         </Link>
       </p>

@@ -18,7 +18,7 @@ function Problem({ title, children }: { title: string; children: React.ReactNode
       title={title}
       headingLevel="h1"
       action={
-        <Link to={paths.startClub()} className={buttonClasses('primary')}>
+        <Link to={'/start-a-club'} className={buttonClasses('primary')}>
           Start a club again
         </Link>
       }

@@ -78,7 +78,7 @@ export function StartClubForm() {
   if (sentTo) {
     return (
       <div className="flex flex-col gap-4" role="status">
-        <MailCheck className="size-10 text-leaf" aria-hidden="true" />
+        <MailCheck className="size-11 text-leaf" aria-hidden="true" />
         <h1 className="text-2xl font-bold">Check your e-mail</h1>
         <p>
           We sent a link to <strong className="font-semibold">{sentTo}</strong>. Follow it within a day to confirm the address and start

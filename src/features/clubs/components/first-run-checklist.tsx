@@ -75,9 +75,9 @@ export function FirstRunChecklist({ clubId }: { clubId: number }) {
           return (
             <li key={step.key} className="flex gap-3" data-step={step.key} data-done={step.done}>
               {step.done ? (
-                <CheckCircle2 className="mt-0.5 size-5 shrink-0 text-leaf" aria-hidden="true" />
+                <CheckCircle2 className="size-5 shrink-0 text-leaf" aria-hidden="true" />
               ) : (
-                <Circle className="mt-0.5 size-5 shrink-0 text-stone" aria-hidden="true" />
+                <Circle className="size-5 shrink-0 text-stone" aria-hidden="true" />
               )}
               <div className="min-w-0">
                 <p className="font-semibold">
