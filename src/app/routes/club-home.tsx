@@ -7,11 +7,10 @@ import { useClubContext } from '../app-context';
 
 // Coordinators' pictures and a holder's findings line load in chunks of their own, so a first page
 // that does not need them stays light.
-const SeasonGlance = lazy(() => import('@/features/season-summary/components/season-glance').then((m) => ({ default: m.SeasonGlance })));
+// The coordinator's part (first-run checklist and season) is one chunk.
+const CoordinatorHome = lazy(() => import('./coordinator-home').then((m) => ({ default: m.CoordinatorHome })));
 // A volunteer's week reads the shifts API (checked with zod): its own chunk, so a holder's first page stays light.
 const VolunteerWeek = lazy(() => import('@/features/shifts/components/volunteer-week').then((m) => ({ default: m.VolunteerWeek })));
-// The first-run checklist is a coordinator's only, in a chunk of its own (the holder's first page is near its budget).
-const FirstRunChecklist = lazy(() => import('@/features/clubs/components/first-run-checklist').then((m) => ({ default: m.FirstRunChecklist })));
 const FindingsLine = lazy(() => import('@/features/plot-book/components/findings-line').then((m) => ({ default: m.FindingsLine })));
 
 /** `/clubs/:clubId`: the club's home page. */
@@ -26,8 +25,7 @@ export function ClubHomeRoute() {
         sections={{
           coordinator: (
             <Suspense fallback={null}>
-              <FirstRunChecklist clubId={clubId} />
-              <SeasonGlance clubId={clubId} />
+              <CoordinatorHome clubId={clubId} />
             </Suspense>
           ),
           volunteer: (
