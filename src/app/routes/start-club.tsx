@@ -24,3 +24,6 @@ export function StartClubRoute() {
     </>
   );
 }
+
+/** React Router's lazy route takes the module's `Component` export as is. */
+export { StartClubRoute as Component };
