@@ -22,6 +22,7 @@ import { clubExportsRouter } from './routes/exports';
 import { memberImportsRouter } from './routes/member-imports';
 import { waitlistImportsRouter } from './routes/waitlist-imports';
 import { clubsRouter } from './routes/clubs';
+import { clubSignupsRouter } from './routes/club-signups';
 import { cropsRouter } from './routes/crops';
 import { clubFeesRouter, feesRouter, myFeesRouter } from './routes/fees';
 import { clubInvitesRouter, inviteLinksRouter } from './routes/invites';
@@ -141,6 +142,7 @@ export function createApp(input: AppDeps): BuiltApp {
   app.use('/api/session', sessionRouter(deps));
   app.use('/api/password-resets', passwordResetsRouter(deps));
   app.use('/api/invites', inviteLinksRouter(deps));
+  app.use('/api/club-signups', clubSignupsRouter(deps));
   app.use('/api/clubs/:clubId/invites', clubInvitesRouter(deps));
   app.use('/api/clubs/:clubId/members', membersRouter(deps));
   app.use('/api/clubs/:clubId/sites', clubSitesRouter(deps));

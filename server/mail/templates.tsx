@@ -161,3 +161,31 @@ export function WelcomeHolderEmail(p: WelcomeHolderProps) {
 export function welcomeHolderMail(p: WelcomeHolderProps) {
   return renderMail(p.to, `Plot ${p.plotLabel} is yours for ${p.year}`, <WelcomeHolderEmail {...p} />);
 }
+
+interface ClubSignupProps {
+  to: string;
+  name: string;
+  clubName: string;
+  url: string;
+  expiresAt: Date;
+  timeZone: string;
+}
+
+export function ClubSignupEmail(p: ClubSignupProps) {
+  return (
+    <MailLayout
+      preview={`Confirm your address to start ${p.clubName}`}
+      greeting={`Hello ${p.name},`}
+      actions={[{ label: 'Confirm and start the club', url: p.url }]}
+      why="You got this because someone started a club on Tillwell with this address. If it was not you, ignore it: nothing is made until the link is followed."
+    >
+      <P>{`Follow the link to confirm this address and start ${p.clubName}. You will be its first coordinator.`}</P>
+      <P>{`The link works once and expires on ${formatDateTime(p.expiresAt, p.timeZone)}. If you already have a Tillwell account with this address, the club is added to it and your password stays as it is.`}</P>
+    </MailLayout>
+  );
+}
+
+/** The e-mail that checks a new club's first coordinator's address. */
+export function clubSignupMail(p: ClubSignupProps) {
+  return renderMail(p.to, `Confirm your address to start ${p.clubName} on Tillwell`, <ClubSignupEmail {...p} />);
+}

@@ -7,7 +7,7 @@ import type { OutgoingMail } from '../mail/mailer';
 import { paymentReceiptMail } from '../mail/fee-templates';
 import { clubNewsMail } from '../mail/mailing-templates';
 import { placeReleasedMail, shiftCalledOffMail, shiftDigestMail, shiftHelpMail, shiftReminderMail, shiftTakenMail, type ShiftWords } from '../mail/shift-templates';
-import { inviteMail, offerMail, passwordResetMail, renewalMail, welcomeHolderMail } from '../mail/templates';
+import { clubSignupMail, inviteMail, offerMail, passwordResetMail, renewalMail, welcomeHolderMail } from '../mail/templates';
 import { alreadyOnWaitlistMail, applicationReceivedMail } from '../mail/waitlist-templates';
 import { stopUrls } from './mail-stops';
 
@@ -60,6 +60,13 @@ const templates: Template[] = [
     optional: false,
     description: 'A coordinator adds someone to the club.',
     render: (s) => inviteMail({ to, name, clubName: s.clubName, roles: ['plot_holder'], url: fake('invite'), expiresAt: new Date(inAWeek(s)), timeZone: s.timeZone }),
+  },
+  {
+    name: 'club_signup',
+    label: 'New club address check',
+    optional: false,
+    description: 'Someone starts a club on the sign-up page and confirms their address.',
+    render: (s) => clubSignupMail({ to, name, clubName: s.clubName, url: fake('start-a-club'), expiresAt: new Date(new Date(`${s.today}T12:00:00Z`).getTime() + 86_400_000), timeZone: s.timeZone }),
   },
   {
     name: 'password_reset',

@@ -26,11 +26,13 @@ export const mailKinds = [
   'shift_called_off',
   'shift_digest',
   'shift_help',
+  'club_signup',
 ] as const;
 export type MailKind = (typeof mailKinds)[number];
 
 export const mailKindLabels: Record<MailKind, string> = {
   invite: 'Invitation',
+  club_signup: 'New club address check',
   password_reset: 'Password link',
   application_received: 'Waiting list confirmation',
   offer: 'Plot offer',

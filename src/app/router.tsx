@@ -37,6 +37,8 @@ export const router = createBrowserRouter([
             path: 'reset-password',
             lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })),
           },
+          // Starting a club, and (with ?token=) its e-mailed link: open to everyone.
+          { path: 'start-a-club', lazy: () => import('./routes/start-club') },
           { path: 'invite', lazy: () => import('./routes/invite').then((m) => ({ Component: m.InviteRoute })) },
           // The waiting list form is public: anyone may apply, signed in or not.
           { path: 'apply/:clubSlug', lazy: () => import('./routes/apply').then((m) => ({ Component: m.ApplyRoute })) },

@@ -61,6 +61,9 @@ export const AUTHORIZATION_TABLE: Record<string, TableEntry> = {
   'POST /api/password-resets/complete': link(410), // a link not ours reads as used or expired
   'GET /api/invites/preview': link(404),
   'POST /api/invites/accept': link(404),
+  'POST /api/club-signups': pub,
+  'GET /api/club-signups/check': link(404),
+  'POST /api/club-signups/confirm': link(404),
   // Invites and members (they name people: coordinators)
   'GET /api/clubs/:clubId/invites': coordinator,
   'POST /api/clubs/:clubId/invites': coordinator,
@@ -148,6 +151,8 @@ export const AUTHORIZATION_TABLE: Record<string, TableEntry> = {
   // Club settings and fees
   'GET /api/clubs/:clubId': member,
   'PATCH /api/clubs/:clubId': coordinator,
+  'GET /api/clubs/:clubId/checklist': coordinator,
+  'PATCH /api/clubs/:clubId/checklist': coordinator,
   'GET /api/clubs/:clubId/fee-schedule': coordinator,
   'PUT /api/clubs/:clubId/fee-schedule': coordinator,
   'GET /api/clubs/:clubId/fees': coordinator,

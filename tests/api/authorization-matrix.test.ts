@@ -289,6 +289,12 @@ const SPECS: Record<string, (x: Fixture, role: MatrixRole) => Spec | Promise<Spe
   'POST /api/password-resets/complete': () => ({ body: { token: FAKE_TOKEN, password: 'a long enough new password' } }),
   'GET /api/invites/preview': () => tokenQuery,
   'POST /api/invites/accept': () => ({ body: { token: FAKE_TOKEN, name: 'Nobody', password: 'a long enough new password' } }),
+  'POST /api/club-signups': () => ({
+    body: { name: 'Nobody', email: 'nobody-matrix@example.org', password: 'a long enough new password', clubName: 'Matrix Club', timeZone: 'UTC', currency: 'EUR', units: 'metric' },
+  }),
+  'GET /api/club-signups/check': () => tokenQuery,
+  'POST /api/club-signups/confirm': () => ({ body: { token: FAKE_TOKEN } }),
+  'PATCH /api/clubs/:clubId/checklist': () => ({ body: { hidden: false } }),
   'GET /api/offers/preview': () => tokenQuery,
   'POST /api/offers/accept': () => tokenBody,
   'POST /api/offers/decline': () => tokenBody,

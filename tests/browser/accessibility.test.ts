@@ -12,7 +12,7 @@ const suite = seededServerAndBrowser();
 describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
   it('finds no violations on the public pages, at desktop and phone width', async () => {
     for (const width of [1280, 390]) {
-      for (const path of ['/sign-in', '/forgot-password', '/apply/mossgate']) {
+      for (const path of ['/sign-in', '/forgot-password', '/start-a-club', '/apply/mossgate']) {
         const w = await openPage(suite.browser, width);
         await w.page.goto(`${suite.server.url}${path}`);
         await w.page.getByRole('heading').first().waitFor();

@@ -7,7 +7,8 @@ import { useClubContext } from '../app-context';
 
 // Coordinators' pictures and a holder's findings line load in chunks of their own, so a first page
 // that does not need them stays light.
-const SeasonGlance = lazy(() => import('@/features/season-summary/components/season-glance').then((m) => ({ default: m.SeasonGlance })));
+// The coordinator's part (first-run checklist and season) is one chunk.
+const CoordinatorHome = lazy(() => import('./coordinator-home').then((m) => ({ default: m.CoordinatorHome })));
 // A volunteer's week reads the shifts API (checked with zod): its own chunk, so a holder's first page stays light.
 const VolunteerWeek = lazy(() => import('@/features/shifts/components/volunteer-week').then((m) => ({ default: m.VolunteerWeek })));
 const FindingsLine = lazy(() => import('@/features/plot-book/components/findings-line').then((m) => ({ default: m.FindingsLine })));
@@ -24,7 +25,7 @@ export function ClubHomeRoute() {
         sections={{
           coordinator: (
             <Suspense fallback={null}>
-              <SeasonGlance clubId={clubId} />
+              <CoordinatorHome clubId={clubId} />
             </Suspense>
           ),
           volunteer: (

@@ -3,6 +3,7 @@ import { sessionQueryOptions } from '@/features/auth/api/get-session';
 import { ClubSettingsPage } from '@/features/club-settings/components/club-settings-page';
 import { CoordinatorsOnly } from '@/components/coordinators-only';
 import { FeeScheduleSection } from '@/features/fees/components/fee-schedule-section';
+import { ChecklistSetting } from '@/features/clubs/components/first-run-checklist';
 import { useClubContext } from '../app-context';
 
 /** `/clubs/:clubId/settings`: the club's rules, then its fee schedule in the club currency. */
@@ -17,7 +18,12 @@ export function ClubSettingsRoute() {
       // The club's name shows in the header and switcher, which read it from the session.
       onSaved={() => void queryClient.invalidateQueries({ queryKey: sessionQueryOptions().queryKey })}
     >
-      {(settings) => <FeeScheduleSection clubId={club.clubId} currency={settings.currency} />}
+      {(settings) => (
+        <>
+          <FeeScheduleSection clubId={club.clubId} currency={settings.currency} />
+          <ChecklistSetting clubId={club.clubId} />
+        </>
+      )}
     </ClubSettingsPage>
   );
 }

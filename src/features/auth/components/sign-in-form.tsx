@@ -59,6 +59,12 @@ export function SignInForm({ notice }: { notice?: string }) {
       <Button type="submit" loading={signIn.isPending} loadingText="Signing in…">
         Sign in
       </Button>
+      <p className="text-sm">
+        New to Tillwell and running a garden club?{' '}
+        <Link to={'/start-a-club'} className="inline-flex min-h-11 items-center underline">
+          Start a club
+        </Link>
+      </p>
     </form>
   );
 }
