@@ -1,5 +1,6 @@
 import { TZDate, tzName } from '@date-fns/tz';
-import { addDays, endOfDay, format, isValid, parseISO } from 'date-fns';
+import { addDays, endOfDay, isValid, parseISO } from 'date-fns';
+import { formatPattern as format } from './pattern';
 
 // Every date and time a person sees goes through here, in the club's or the site's time zone
 // (an IANA name such as "Europe/London"). One format for dates, one for dates with a time.

@@ -1,5 +1,5 @@
 import { TZDate } from '@date-fns/tz';
-import { format } from 'date-fns';
+import { formatPattern as format } from '@shared/dates/pattern';
 import { addCalendarDays, localToday, zoneName } from '@shared/dates';
 
 // A shift's date and times are its site's own: the calendar date is the site's day, and the

@@ -1,5 +1,6 @@
 import { TZDate } from '@date-fns/tz';
-import { addDays, differenceInCalendarDays, format } from 'date-fns';
+import { addDays, differenceInCalendarDays } from 'date-fns';
+import { formatPattern as format } from '@shared/dates/pattern';
 
 // Task dates are calendar dates (YYYY-MM-DD) that are already the site's days, worked out by the server in
 // the site's time zone; they are read as those days and never shifted by the reader's own zone.
