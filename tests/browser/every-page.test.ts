@@ -41,13 +41,14 @@ const COORDINATOR: Role[] = ['coordinator'];
 const PAGES: Record<string, { roles: Role[]; url: (ids: Ids) => string; unknownToken?: true }> = {
   '/sign-in': { roles: ['anonymous'], url: () => '/sign-in' },
   '/forgot-password': { roles: ['anonymous'], url: () => '/forgot-password' },
+  '/start-a-club': { roles: ['anonymous'], url: () => '/start-a-club' },
   '/reset-password': { roles: ['anonymous'], url: () => `/reset-password?token=${BAD_TOKEN}`, unknownToken: true },
   '/invite': { roles: ['anonymous'], url: () => `/invite?token=${BAD_TOKEN}`, unknownToken: true },
   '/apply/:clubSlug': { roles: ['anonymous'], url: () => '/apply/mossgate' },
   '/respond/offer': { roles: ['anonymous'], url: () => `/respond/offer?token=${BAD_TOKEN}&answer=accept`, unknownToken: true },
   '/respond/renewal': { roles: ['anonymous'], url: () => `/respond/renewal?token=${BAD_TOKEN}&answer=accept`, unknownToken: true },
   '/shift-link': { roles: ['anonymous'], url: () => `/shift-link?token=${BAD_TOKEN}`, unknownToken: true },
-  '/stop-mail': { roles: ['anonymous'], url: () => `/stop-mail?token=${BAD_TOKEN}` },
+  '/stop-mail': { roles: ['anonymous'], url: () => `/stop-mail?token=${BAD_TOKEN}`, unknownToken: true },
   '/*': { roles: ['anonymous', 'plot-holder'], url: () => '/no-such-page' },
   '/': { roles: MEMBERS, url: () => '/' },
   '/clubs/:clubId': { roles: MEMBERS, url: (i) => `/clubs/${i.club}` },
@@ -183,7 +184,9 @@ async function loadIds(): Promise<Ids> {
 async function visit(w: WatchedPage, url: string, width: number, unknownToken = false): Promise<{ violations: AxeViolation[]; problems: string[] }> {
   const before = w.errors.length;
   await w.page.goto(`${suite.server.url}${url}`);
-  await w.page.locator('h1').first().waitFor();
+  await w.page.locator('h1').first().waitFor().catch((e: Error) => {
+    throw new Error(`${url}: no page heading (h1) appeared: ${e.message}`);
+  });
   await w.page.waitForLoadState('networkidle');
   // Let lazy parts (cards, maps) that arrive after the page's own answers settle before measuring.
   await w.page.waitForFunction(() => !document.querySelector('[role=status][aria-busy=true], .animate-spin'), undefined, { timeout: 5_000 }).catch(() => {});

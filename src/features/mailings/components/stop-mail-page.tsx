@@ -16,12 +16,13 @@ export function StopMailPage({ token }: { token: string | null }) {
   const preview = useMailStop(token ?? '');
   const stop = useStopMail(token ?? '');
 
-  if (!token) return <ErrorState title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
+  if (!token) return <ErrorState headingLevel="h1" title="This link is incomplete" message="Open the link from the e-mail again, or copy all of it." />;
   if (preview.isPending) return <LoadingState label="Opening your link…" />;
   if (preview.isError) {
     const notOurs = isApiError(preview.error, 404);
     return (
       <ErrorState
+        headingLevel="h1"
         title={notOurs ? 'This link is not valid' : 'This link could not be opened'}
         message={notOurs ? 'It may have been cut short when it was copied. Open the link from the newest e-mail, or sign in and change your e-mail choices.' : preview.error.message}
         onRetry={notOurs ? undefined : () => void preview.refetch()}
