@@ -1,4 +1,5 @@
 import type { Request, RequestHandler, Response } from 'express';
+import { ByteLru } from './byte-lru';
 
 interface Answer {
   stamp: string;
@@ -24,52 +25,39 @@ interface Answer {
  * person had from the same rows, so the role checks it passed then still hold (roles are rows too).
  */
 export class AnswerCache {
-  private entries = new Map<string, Answer>();
+  private store: ByteLru<Answer>;
   /** Answers being built, by key and stamp: requests that ask meanwhile wait for the same one. */
   private building = new Map<string, Promise<Answer | undefined>>();
-  private bytes = 0;
   hits = 0;
   misses = 0;
 
   constructor(
-    private readonly maxBytes: number,
+    maxBytes: number,
     private readonly clockMs = 1000,
     private readonly now: () => number = Date.now,
-  ) {}
+  ) {
+    this.store = new ByteLru<Answer>(maxBytes);
+  }
 
   get(key: string, stamp: string): Answer | undefined {
-    const e = this.entries.get(key);
-    if (!e) return undefined;
-    if (e.stamp !== stamp || this.now() - e.at > this.clockMs) {
-      this.drop(key);
-      return undefined;
-    }
-    this.entries.delete(key);
-    this.entries.set(key, e);
-    return e;
+    return this.store.get(key, (e) => e.stamp === stamp && this.now() - e.at <= this.clockMs);
   }
 
   set(key: string, answer: Answer) {
-    this.drop(key);
-    if (answer.body.length > this.maxBytes) return;
-    this.entries.set(key, answer);
-    this.bytes += answer.body.length;
-    for (const [k] of this.entries) {
-      if (this.bytes <= this.maxBytes) break;
-      this.drop(k);
-    }
+    this.store.set(key, answer);
   }
 
   get size() {
-    return this.entries.size;
+    return this.store.size;
   }
 
-  private drop(key: string) {
-    const e = this.entries.get(key);
-    if (e) {
-      this.bytes -= e.body.length;
-      this.entries.delete(key);
-    }
+  /**
+   * Whether a good answer is old enough to be built again ahead of time: past three quarters of the
+   * clock window, one request builds the next copy while the others are still answered from this one,
+   * so the answer does not lapse under load with every waiting request queued behind one build.
+   */
+  private dueForRenewal(hit: Answer) {
+    return this.now() - hit.at > this.clockMs * 0.75;
   }
 
   /** Middleware for the GET routes whose answers may be reused (mounted before their routers). */
@@ -91,12 +79,12 @@ export class AnswerCache {
       if (req.method !== 'GET' || !stamp || !userId) return next();
       const key = `${userId} ${req.originalUrl}`;
       const hit = this.get(key, stamp);
-      if (hit) {
+      const flight = `${key} ${stamp}`;
+      const pending = this.building.get(flight);
+      if (hit && (pending || !this.dueForRenewal(hit))) {
         this.hits += 1;
         return reply(req, res, hit);
       }
-      const flight = `${key} ${stamp}`;
-      const pending = this.building.get(flight);
       if (pending) {
         // The same person's same read from the same rows is being built: wait for it, or build it
         // too if that one did not end in a 200.
@@ -104,6 +92,7 @@ export class AnswerCache {
         return;
       }
       this.misses += 1;
+      const startedAt = this.now();
       let done!: (answer: Answer | undefined) => void;
       this.building.set(flight, new Promise((resolve) => (done = resolve)));
       const finish = (answer: Answer | undefined) => {
@@ -120,7 +109,7 @@ export class AnswerCache {
         if (res.statusCode === 200 && type.startsWith('application/json') && (typeof body === 'string' || Buffer.isBuffer(body))) {
           const answer: Answer = {
             stamp,
-            at: this.now(),
+            at: startedAt,
             body: Buffer.isBuffer(body) ? body : Buffer.from(body),
             etag: res.getHeader('ETag') as string | undefined,
             cacheControl: res.getHeader('Cache-Control') as string | undefined,

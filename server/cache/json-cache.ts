@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import type { Request, Response } from 'express';
+import { ByteLru } from './byte-lru';
 
 interface Entry {
   stamp: string;
@@ -12,53 +13,29 @@ interface Entry {
  * database moves whenever the answer could change (e.g. sites.map_stamp), read by the request before
  * the answer is built: an entry is used only while the stamp is the same, so a write on any server is
  * seen by the next read everywhere, and an answer built from newer rows than its stamp is at worst
- * built again. Bounded by total bytes; the entry used least recently goes first.
+ * built again. Bounded by total bytes (ByteLru).
  */
 export class JsonCache {
-  private entries = new Map<string, Entry>();
-  private bytes = 0;
+  private store: ByteLru<Entry>;
 
-  constructor(private readonly maxBytes: number) {}
+  constructor(maxBytes: number) {
+    this.store = new ByteLru<Entry>(maxBytes);
+  }
 
   get(key: string, stamp: string): Entry | undefined {
-    const e = this.entries.get(key);
-    if (!e) return undefined;
-    if (e.stamp !== stamp) {
-      this.drop(key);
-      return undefined;
-    }
-    // Most recently used last: re-insert.
-    this.entries.delete(key);
-    this.entries.set(key, e);
-    return e;
+    return this.store.get(key, (e) => e.stamp === stamp);
   }
 
   set(key: string, stamp: string, value: unknown): Entry {
     const body = Buffer.from(JSON.stringify(value));
     const etag = `"${crypto.createHash('sha1').update(body).digest('base64url')}"`;
     const e = { stamp, body, etag };
-    this.drop(key);
-    if (body.length <= this.maxBytes) {
-      this.entries.set(key, e);
-      this.bytes += body.length;
-      for (const [k] of this.entries) {
-        if (this.bytes <= this.maxBytes) break;
-        this.drop(k);
-      }
-    }
+    this.store.set(key, e);
     return e;
   }
 
   get size() {
-    return this.entries.size;
-  }
-
-  private drop(key: string) {
-    const e = this.entries.get(key);
-    if (e) {
-      this.bytes -= e.body.length;
-      this.entries.delete(key);
-    }
+    return this.store.size;
   }
 }
 

@@ -33,7 +33,8 @@ export function createSessionStore(opts: { pool: pg.Pool; errorLog: (...args: un
   const PgStore = connectPgSimple(session);
   class SessionStore extends PgStore {
     override get(sid: string, fn: (err: unknown, sess?: session.SessionData | null) => void) {
-      opts.pool.query(GET_SQL, [sessionKey(sid)]).then(
+      // Named, so each pooled connection parses and plans it once (it runs on nearly every request).
+      opts.pool.query({ name: 'tillwell-session-get', text: GET_SQL, values: [sessionKey(sid)] }).then(
         (r) => {
           const row = r.rows[0];
           if (!row) return fn(null, null);

@@ -428,8 +428,8 @@ const CONTEXT_CACHE_PLOTS = 200;
 async function plotContext(db: Db, siteId: number, plotId: number, stamp: string | undefined) {
   const key = `${siteId}:${plotId}`;
   const hit = stamp ? contextCache.get(key) : undefined;
-  // Each check gets its own memo of growing windows (keyed by planting object, drafts are new each time).
-  if (hit && hit.stamp === stamp) return { ctx: hit.ctx, prepared: { ...hit.prepared, windows: new Map() } };
+  // The growing-window memo is weak (keyed by planting object): a draft's leaves with its request.
+  if (hit && hit.stamp === stamp) return hit;
   const ctx = await loadCheckContext(db, siteId, { plotIds: [plotId], rings: 1 });
   const prepared = prepare(ctx);
   if (stamp) {
@@ -437,7 +437,7 @@ async function plotContext(db: Db, siteId: number, plotId: number, stamp: string
     contextCache.set(key, { stamp, ctx, prepared });
     if (contextCache.size > CONTEXT_CACHE_PLOTS) contextCache.delete(contextCache.keys().next().value!);
   }
-  return { ctx, prepared: { ...prepared, windows: new Map() } };
+  return { ctx, prepared };
 }
 
 /** `stamp`: the transaction snapshot read before this request's other queries (req.dbStamp), if any. */

@@ -39,7 +39,8 @@ interface Prepared {
   byPlot: Map<number, CheckPlanting[]>;
   soilBorne: Map<number, CheckContext['observations']>;
   relations: Map<string, CheckRelation>;
-  windows: Map<CheckPlanting, { from: string; to: string }>;
+  /** Each planting's growing window, worked out once; weak, so drafts checked against a kept context leave with their request. */
+  windows: WeakMap<CheckPlanting, { from: string; to: string }>;
 }
 
 const pairKey = (a: number, b: number) => (a < b ? `${a}|${b}` : `${b}|${a}`);
@@ -69,7 +70,7 @@ export function prepare(ctx: CheckContext): Prepared {
   for (const o of ctx.observations) if (o.isSoilBorne && o.pestSlug) push(soilBorne, o.plotId, o);
   const relations = new Map<string, CheckRelation>();
   for (const r of ctx.relations) relations.set(pairKey(r.cropA, r.cropB), r);
-  return { ctx, plots, neighbours: nb, bySeasonPlot, byPlot, soilBorne, relations, windows: new Map() };
+  return { ctx, plots, neighbours: nb, bySeasonPlot, byPlot, soilBorne, relations, windows: new WeakMap() };
 }
 
 function cropOf(pr: Prepared, planting: CheckPlanting): Crop | null {
