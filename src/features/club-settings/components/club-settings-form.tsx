@@ -9,26 +9,9 @@ import { Checkbox } from '@/components/ui/checkbox';
 import { TextField } from '@/components/ui/field';
 import { EmailSchema } from '@shared/schemas/common';
 import { Select } from '@/components/ui/select';
+import { currencyLabels, timeZoneNames } from '@/lib/club-choices';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { useUpdateClubSettings } from '../api/update-club-settings';
-
-const currencyLabels: Record<ClubSettings['currency'], string> = {
-  GBP: 'Pound sterling (£)',
-  EUR: 'Euro (€)',
-  USD: 'US dollar ($)',
-  CAD: 'Canadian dollar ($)',
-  AUD: 'Australian dollar ($)',
-  NZD: 'New Zealand dollar ($)',
-};
-
-// Older browsers lack the list; the field then works as plain text and the server checks the name.
-const timeZones: string[] = (() => {
-  try {
-    return Intl.supportedValuesOf('timeZone');
-  } catch {
-    return [];
-  }
-})();
 
 const shape = ClubSettingsSchema.shape;
 const daysText = (days: typeof shape.offerDays) =>
@@ -255,7 +238,7 @@ export function ClubSettingsForm({ settings, onSaved }: ClubSettingsFormProps) {
           {...register('volunteerHoursRequired')}
         />
         <datalist id="club-settings-time-zones">
-          {timeZones.map((zone) => (
+          {timeZoneNames.map((zone) => (
             <option key={zone} value={zone} />
           ))}
         </datalist>

@@ -9,27 +9,10 @@ import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { Select } from '@/components/ui/select';
+import { currencyLabels, timeZoneNames } from '@/lib/club-choices';
 import { applyServerErrors } from '@/lib/forms/server-errors';
 import { paths } from '@/lib/paths';
 import { useRequestClubSignup } from '../api/club-signup';
-
-const currencyLabels: Record<ClubSignupBody['currency'], string> = {
-  GBP: 'Pound sterling (£)',
-  EUR: 'Euro (€)',
-  USD: 'US dollar ($)',
-  CAD: 'Canadian dollar ($)',
-  AUD: 'Australian dollar ($)',
-  NZD: 'New Zealand dollar ($)',
-};
-
-// Older browsers lack the list; the field then works as plain text and the server checks the name.
-const timeZones: string[] = (() => {
-  try {
-    return Intl.supportedValuesOf('timeZone');
-  } catch {
-    return [];
-  }
-})();
 
 function browserZone(): string {
   try {
@@ -121,7 +104,7 @@ export function StartClubForm() {
           {...register('timeZone')}
         />
         <datalist id="start-club-time-zones">
-          {timeZones.map((z) => (
+          {timeZoneNames.map((z) => (
             <option key={z} value={z} />
           ))}
         </datalist>
